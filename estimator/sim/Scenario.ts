@@ -1,0 +1,252 @@
+// The scenario: everything one landing trial needs, as read from a scenario file.
+// SI units throughout; angles in degrees where the key says Deg. World frame ENU,
+// body FLU, camera optical (REP 103). Validated once at the boundary (io/), then frozen.
+// Studies address fields by dotted path, e.g. "detector.pixelNoise": keep names stable.
+
+export type PathShape = 'straight' | 'rectangle' | 'ellipse' | 'figure-eight' | 'survey' | 'recorded';
+export type CarrierKind = 'ground' | 'boat' | 'aircraft';
+
+export interface CarrierPath {
+  shape: PathShape;
+  /** straight: heading of travel (deg from East, counter-clockwise). Others: rotation of the whole path. */
+  headingDeg: number;
+  /** rectangle/survey: extent along the first axis (m); ellipse/figure-eight: semi-axis a (m). */
+  length: number;
+  /** rectangle/survey: extent along the second axis (m); ellipse/figure-eight: semi-axis b (m). */
+  width: number;
+  /** rectangle: corner radius (m). */
+  cornerRadius: number;
+  /** survey: spacing between passes (m). */
+  spacing: number;
+  /** recorded: CSV file of t,x,y,z (relative to the scenario file). */
+  file?: string;
+}
+
+export interface SpeedProfile {
+  /** Time to reach cruise speed from rest (s); 0 = starts at speed. */
+  rampTime: number;
+  /** Sinusoidal speed variation amplitude (m/s) and period (s); 0 = constant. */
+  variation: number;
+  variationPeriod: number;
+}
+
+export interface Oscillation {
+  /** Heave amplitude (m) and period (s). */
+  heaveAmplitude: number;
+  heavePeriod: number;
+  /** Pitch amplitude (deg) and period (s). */
+  pitchAmplitudeDeg: number;
+  pitchPeriod: number;
+}
+
+export interface CarrierSpec {
+  kind: CarrierKind;
+  path: CarrierPath;
+  /** Cruise speed along the path (m/s). */
+  speed: number;
+  profile: SpeedProfile;
+  motion: Oscillation;
+  /** Height of the deck (landing surface) above ground (m); for an aircraft carrier, its altitude. */
+  deckHeight: number;
+  /** Deck outline: length along travel and width (m). The detector sees this box outline. */
+  deckLength: number;
+  deckWidth: number;
+  /** Height of the visible body below the deck (m), used for the 3-D outline. */
+  bodyHeight: number;
+}
+
+export type TurbulenceLevel = 'none' | 'light' | 'moderate' | 'severe';
+
+export interface WindSpec {
+  /** Mean wind speed (m/s) and the direction it blows towards (deg from East, CCW). */
+  speed: number;
+  directionDeg: number;
+  /** Dryden turbulence intensity (MIL-F-8785C low-altitude W20: light 15 kt, moderate 30 kt, severe 45 kt). */
+  turbulence: TurbulenceLevel;
+}
+
+export interface LanderSpec {
+  /** Start position relative to the carrier's deck centre, world ENU axes (m). */
+  startOffset: [number, number, number];
+  /** First-order lag of velocity-command tracking (s). */
+  velocityTimeConstant: number;
+  /** Limits: horizontal acceleration (m/s^2), tilt (deg), horizontal speed (m/s), vertical speed (m/s). */
+  maxAccel: number;
+  maxTiltDeg: number;
+  maxSpeed: number;
+  maxVerticalSpeed: number;
+  wind: WindSpec;
+}
+
+export interface Intrinsics {
+  fx: number;
+  fy: number;
+  cx: number;
+  cy: number;
+}
+
+export interface LensSpec {
+  /** Lens focal length and sensor size (m); the image size comes from width/height. */
+  focalLength: number;
+  sensorWidth: number;
+  sensorHeight: number;
+}
+
+export interface Distortion {
+  k1: number;
+  k2: number;
+  k3: number;
+  p1: number;
+  p2: number;
+}
+
+export interface CameraMount {
+  /** Camera position in the body frame FLU (m). */
+  offset: [number, number, number];
+  /** Optical-frame orientation relative to the nominal nadir mount (deg): roll, pitch, yaw. */
+  rollDeg: number;
+  pitchDeg: number;
+  yawDeg: number;
+}
+
+export interface CameraSpec {
+  /** Exactly one of intrinsics or lens. */
+  intrinsics?: Intrinsics;
+  lens?: LensSpec;
+  /** Image size (px). */
+  width: number;
+  height: number;
+  distortion: Distortion;
+  mount: CameraMount;
+}
+
+export interface BurstLoss {
+  /** Gilbert–Elliott: P(good -> bad) and P(bad -> good) per frame; no loss in good, full loss in bad. */
+  enter: number;
+  exit: number;
+}
+
+export interface DetectorSpec {
+  /** Frame rate (Hz). */
+  rate: number;
+  /** Box centre noise (px, 1 sigma) and box size noise (fraction of size, 1 sigma). */
+  pixelNoise: number;
+  sizeNoise: number;
+  /** Latency from capture to arrival (s) and its jitter (s, 1 sigma, truncated at 0). */
+  latency: number;
+  latencyJitter: number;
+  /** Independent per-frame dropout probability. */
+  dropout: number;
+  /** Bursty loss on top of i.i.d. dropout; null = none. */
+  burst: BurstLoss | null;
+  /** False boxes per second (Poisson), placed uniformly in the image. */
+  falseBoxRate: number;
+  /** A box whose true outline comes closer than this to the image edge is lost (px). */
+  edgeMargin: number;
+}
+
+export interface LocalizationSpec {
+  /** Attitude estimate error: constant bias (deg, per axis roll/pitch/yaw) and white noise (deg, 1 sigma). */
+  attitudeBiasDeg: number;
+  attitudeNoiseDeg: number;
+  /** Odometry (lander velocity) rate (Hz), bias (m/s), white noise (m/s), drift (bias random walk, m/s per sqrt(s)). */
+  odometryRate: number;
+  odometryBias: number;
+  odometryNoise: number;
+  odometryDrift: number;
+  /** IMU rate (Hz), accelerometer noise (m/s^2, 1 sigma per sample) and constant bias (m/s^2). */
+  imuRate: number;
+  accelNoise: number;
+  accelBias: number;
+  /** Camera mounting misalignment not known to the filter (deg, about each axis). */
+  misalignmentDeg: number;
+  /** Fractional error of the focal length the filter assumes (0.02 = 2 % too long). */
+  focalError: number;
+  /** Fractional error of the target size the filter assumes. */
+  targetSizeError: number;
+  /** Camera clock minus IMU clock (s). */
+  clockOffset: number;
+}
+
+export type CameraUpdateMode = 'tight' | 'loose';
+export type CarrierModel = 'constant-velocity' | 'singer';
+
+export interface FilterSpec {
+  /** Filter (and IMU integration) rate (Hz). */
+  rate: number;
+  cameraUpdate: CameraUpdateMode;
+  carrierModel: CarrierModel;
+  /** Carrier acceleration noise (m/s^2 / sqrt(Hz)) and Singer time constant (s). */
+  carrierAccelNoise: number;
+  singerTau: number;
+  /** Accelerometer noise density assumed (m/s^2 / sqrt(Hz)) and bias random walk (m/s^3 / sqrt(Hz)). */
+  accelNoise: number;
+  accelBiasWalk: number;
+  /** Measurement noise assumed: box centre (px), box size (px), odometry (m/s). */
+  pixelNoise: number;
+  sizeNoise: number;
+  odometryNoise: number;
+  /** Gate: probability mass inside the chi-square gate (e.g. 0.997). */
+  gateProbability: number;
+  /** Tuning multipliers (log-scaled by the tuner): Q, R and gate threshold. */
+  qScale: number;
+  rScale: number;
+  gateScale: number;
+  /** History kept for delayed boxes (s). */
+  historyLength: number;
+}
+
+export type GuidanceLaw = 'pid' | 'lqr';
+
+export interface GuidanceSpec {
+  law: GuidanceLaw;
+  /** PID gains on horizontal relative position (1/s, 1/s^2, dimensionless). */
+  kp: number;
+  ki: number;
+  kd: number;
+  /** Feed forward the estimated carrier velocity. */
+  feedForward: boolean;
+  /** LQR weights: position (1/m^2), velocity (s^2/m^2), acceleration command (s^4/m^2). */
+  lqrPosition: number;
+  lqrVelocity: number;
+  lqrControl: number;
+  /** Supervisor: trailing height above deck (m), alignment radius (m) and time (s) before descent. */
+  trailHeight: number;
+  alignRadius: number;
+  alignTime: number;
+  /** Descent rate (m/s) and the funnel: allowed horizontal error = funnelBase + funnelSlope * height. */
+  descentRate: number;
+  funnelBase: number;
+  funnelSlope: number;
+  /** Abort when the target is unseen this long (s); re-acquire afterwards. */
+  lostTimeout: number;
+  /** Height above deck at which the motors are cut / contact is expected (m). */
+  flareHeight: number;
+}
+
+export interface LandingEnvelope {
+  /** Landing pad radius on the deck (m). */
+  padRadius: number;
+  /** Max vertical closing speed (m/s), max horizontal relative speed (m/s), max tilt (deg) at contact. */
+  maxClosingSpeed: number;
+  maxLateralSpeed: number;
+  maxTiltDeg: number;
+}
+
+export interface Scenario {
+  /** Schema version of the file. */
+  version: 1;
+  name: string;
+  description: string;
+  seed: number;
+  /** Simulated time limit (s). */
+  duration: number;
+  carrier: CarrierSpec;
+  lander: LanderSpec;
+  camera: CameraSpec;
+  detector: DetectorSpec;
+  localization: LocalizationSpec;
+  filter: FilterSpec;
+  guidance: GuidanceSpec;
+  envelope: LandingEnvelope;
+}

@@ -1,0 +1,43 @@
+// What one closed-loop trial reports. Field names are promises to users' scripts
+// (`alight simulate --json`, sweep JSON Lines): keep them.
+
+export type Outcome = 'landed' | 'off-pad' | 'hard-contact' | 'aborted' | 'timed-out' | 'diverged';
+export const OUTCOMES: readonly Outcome[] = ['landed', 'off-pad', 'hard-contact', 'aborted', 'timed-out', 'diverged'];
+
+export type Phase = 'acquire' | 'trail' | 'align' | 'descend' | 'touchdown';
+export const PHASES: readonly Phase[] = ['acquire', 'trail', 'align', 'descend', 'touchdown'];
+
+export interface TrialResult {
+  outcome: Outcome;
+  /** Horizontal distance of the contact point from the pad centre (m); null without contact. */
+  missDistance: number | null;
+  /** Contact point relative to the pad centre in the carrier's deck frame, x along travel, y left (m). */
+  missX: number | null;
+  missY: number | null;
+  /** Vertical closing speed and horizontal relative speed at contact (m/s), tilt at contact (deg). */
+  closingSpeed: number | null;
+  lateralSpeed: number | null;
+  tiltDeg: number | null;
+  /** Simulated time of contact (s); null without contact. */
+  touchdownTime: number | null;
+  /** RMS error of the relative position / velocity estimate over the trial (m, m/s). */
+  positionRmse: number;
+  velocityRmse: number;
+  /** Mean NEES of the relative-position+velocity block over filter steps, and its dimension. */
+  neesMean: number;
+  neesDim: number;
+  /** Mean NIS over accepted camera updates, and its dimension. */
+  nisMean: number;
+  nisDim: number;
+  nisCount: number;
+  /** Seconds spent in each phase. */
+  phaseTimes: Record<Phase, number>;
+  /** Counts: boxes delivered, dropped, false boxes, gate rejections, aborts. */
+  boxes: number;
+  dropped: number;
+  falseBoxes: number;
+  gateRejections: number;
+  aborts: number;
+  /** Named filter event if the estimate diverged (e.g. 'covariance-not-positive-definite'). */
+  divergence: string | null;
+}

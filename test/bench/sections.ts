@@ -1,0 +1,7 @@
+// The benchmark sections, one import and one entry each; the key is the JSON key.
+export interface BenchSection {
+  name: string;
+  run(): Promise<Record<string, unknown>>;
+}
+
+export const sections: BenchSection[] = [];

@@ -20,6 +20,8 @@ export interface CarrierPath {
   spacing: number;
   /** recorded: CSV file of t,x,y,z (relative to the scenario file). */
   file?: string;
+  /** recorded: [t, x, y, z] rows (s, m ENU); given inline or filled from `file` by loadScenario. */
+  points?: number[][];
 }
 
 export interface SpeedProfile {

@@ -1,0 +1,110 @@
+// The scenario every file starts from: any section or field a scenario file omits takes
+// its value from here (see scenario.schema.json, whose "default" keywords mirror these
+// values and are tested against them). Exception: a file that gives a `camera` section
+// must name exactly one of camera.intrinsics / camera.lens itself.
+import type { Scenario } from '../sim/Scenario.js';
+
+/**
+ * A fresh default scenario (new object each call; callers may mutate it).
+ * A mid-size ground carrier on a straight road at 3 m/s, a 640x480 nadir camera,
+ * a 30 Hz detector with 1.5 px noise and 80 ms latency, PID guidance.
+ * @example defaultScenario().detector.rate // 30
+ */
+export function defaultScenario(): Scenario {
+  return {
+    version: 1,
+    name: 'default',
+    description: 'Default scenario: ground carrier on a straight road at 3 m/s.',
+    seed: 1,
+    duration: 60,
+    carrier: {
+      kind: 'ground',
+      path: { shape: 'straight', headingDeg: 0, length: 40, width: 20, cornerRadius: 5, spacing: 10 },
+      speed: 3,
+      profile: { rampTime: 0, variation: 0, variationPeriod: 10 },
+      motion: { heaveAmplitude: 0, heavePeriod: 6, pitchAmplitudeDeg: 0, pitchPeriod: 6 },
+      deckHeight: 1.5,
+      deckLength: 2,
+      deckWidth: 1.6,
+      bodyHeight: 1.2,
+    },
+    lander: {
+      startOffset: [-2, 0.5, 8],
+      velocityTimeConstant: 0.3,
+      maxAccel: 4,
+      maxTiltDeg: 30,
+      maxSpeed: 15,
+      maxVerticalSpeed: 2,
+      wind: { speed: 0, directionDeg: 0, turbulence: 'none' },
+    },
+    camera: {
+      intrinsics: { fx: 500, fy: 500, cx: 320, cy: 240 },
+      width: 640,
+      height: 480,
+      distortion: { k1: 0, k2: 0, k3: 0, p1: 0, p2: 0 },
+      mount: { offset: [0, 0, -0.05], rollDeg: 0, pitchDeg: 0, yawDeg: 0 },
+    },
+    detector: {
+      rate: 30,
+      pixelNoise: 1.5,
+      sizeNoise: 0.03,
+      latency: 0.08,
+      latencyJitter: 0.01,
+      dropout: 0.05,
+      burst: null,
+      falseBoxRate: 0,
+      edgeMargin: 4,
+    },
+    localization: {
+      attitudeBiasDeg: 0.3,
+      attitudeNoiseDeg: 0.1,
+      odometryRate: 20,
+      odometryBias: 0.03,
+      odometryNoise: 0.05,
+      odometryDrift: 0.01,
+      imuRate: 100,
+      accelNoise: 0.05,
+      accelBias: 0.05,
+      misalignmentDeg: 0.3,
+      focalError: 0.01,
+      targetSizeError: 0.05,
+      clockOffset: 0,
+    },
+    filter: {
+      rate: 100,
+      cameraUpdate: 'tight',
+      carrierModel: 'constant-velocity',
+      carrierAccelNoise: 0.5,
+      singerTau: 3,
+      accelNoise: 0.1,
+      accelBiasWalk: 0.01,
+      pixelNoise: 2,
+      sizeNoise: 2,
+      odometryNoise: 0.1,
+      gateProbability: 0.997,
+      qScale: 1,
+      rScale: 1,
+      gateScale: 1,
+      historyLength: 0.3,
+    },
+    guidance: {
+      law: 'pid',
+      kp: 0.8,
+      ki: 0.05,
+      kd: 0.2,
+      feedForward: true,
+      lqrPosition: 1,
+      lqrVelocity: 0.5,
+      lqrControl: 1,
+      trailHeight: 6,
+      alignRadius: 0.4,
+      alignTime: 1,
+      descentRate: 0.6,
+      funnelBase: 0.25,
+      funnelSlope: 0.2,
+      lostTimeout: 1.5,
+      flareHeight: 0.3,
+    },
+    envelope: { padRadius: 0.5, maxClosingSpeed: 1.2, maxLateralSpeed: 0.8, maxTiltDeg: 20 },
+  };
+}

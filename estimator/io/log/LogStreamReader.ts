@@ -1,0 +1,223 @@
+// Reads one CSV stream of a flight log row by row from text lines (browser-safe: no fs),
+// validates each row and hands out the next good one in a reused Float64Array.
+// Bad rows are skipped, counted and reported with file, line and column; nothing else is dropped.
+// Per row it allocates only what String.split does; values land in preallocated slots.
+import { LogLayoutError, ProblemLog } from './LogProblem.js';
+import { BOX_SLOTS, type StreamSpec } from './logStreams.js';
+
+/** Boxes with the same arrival time remembered for duplicate detection (frames rarely carry more). */
+const SAME_TIME_MEMORY = 32;
+
+export class LogStreamReader {
+  readonly spec: StreamSpec;
+  /** Seconds added to every time of this stream to bring it onto the log's common clock. */
+  readonly offset: number;
+  /** Current row, normalized: slot 0 = time, then the layout's columns, then optional columns; times on the common clock. */
+  readonly values: Float64Array;
+  /** Merge key of the current row: the order column plus offset (s). */
+  key = -Infinity;
+  /** 1-based line number of the current row. */
+  line = 0;
+  /** Data rows seen / rows skipped for a problem. The consumer counts used rows. */
+  read = 0;
+  skipped = 0;
+  used = 0;
+  /** Header columns this stream does not use (reported, never an error). */
+  ignoredColumns: string[] = [];
+  /** Which accepted layout the header matched (boxes: 0 = corners, 1 = x/y/w/h). */
+  layout = 0;
+  private readonly iterator: AsyncIterator<string>;
+  private readonly problems: ProblemLog;
+  private columnIndex = new Int32Array(0);
+  private columnNames: string[] = [];
+  private orderSlot = 0;
+  private timeSlots: number[] = [0];
+  private fieldCount = 0;
+  private readonly previous: Float64Array;
+  private sameTimeRows = 0;
+  private done = false;
+
+  constructor(spec: StreamSpec, lines: AsyncIterable<string>, problems: ProblemLog, offset = 0) {
+    this.spec = spec;
+    this.offset = offset;
+    this.problems = problems;
+    this.iterator = lines[Symbol.asyncIterator]();
+    const slots = 1 + spec.layouts[0]!.length + spec.optional.length;
+    this.values = new Float64Array(slots);
+    this.previous = new Float64Array(slots * SAME_TIME_MEMORY);
+  }
+
+  get file(): string {
+    return this.spec.file;
+  }
+
+  /** Read the header (first line that is neither blank nor a # comment) and map the columns. */
+  async start(): Promise<void> {
+    const header = await this.nextLine();
+    if (header === null) throw new LogLayoutError(this.file, null, null, 'empty file: expected a header line naming the columns');
+    const names = header.split(',').map((s) => s.trim());
+    const seen = new Set<string>();
+    for (const name of names) {
+      if (seen.has(name)) throw new LogLayoutError(this.file, this.line, name, `column "${name}" appears twice in the header`);
+      seen.add(name);
+    }
+    if (!seen.has('time')) throw new LogLayoutError(this.file, this.line, 'time', `missing column "time" (header: ${names.join(',')})`);
+    const layoutIndex = this.spec.layouts.findIndex((cols) => cols.every((c) => seen.has(c)));
+    if (layoutIndex < 0) {
+      const first = this.spec.layouts[0]!;
+      const missing = first.filter((c) => !seen.has(c));
+      const alternatives = this.spec.layouts.map((l) => l.join(',')).join(' or ');
+      throw new LogLayoutError(this.file, this.line, missing[0]!, `missing column${missing.length > 1 ? 's' : ''} ${missing.map((m) => `"${m}"`).join(', ')} (expected time,${alternatives})`);
+    }
+    this.layout = layoutIndex;
+    const wanted = ['time', ...this.spec.layouts[layoutIndex]!];
+    const optional = this.spec.optional.map((o) => o.column);
+    this.columnNames = [...wanted, ...optional];
+    this.columnIndex = new Int32Array(this.columnNames.map((c) => names.indexOf(c)));
+    this.orderSlot = this.columnNames.indexOf(this.spec.orderColumn);
+    if (this.orderSlot < 0) this.orderSlot = 0;
+    this.timeSlots = this.columnNames.flatMap((c, s) => (c === 'time' || c === 'arrival' ? [s] : []));
+    this.fieldCount = names.length;
+    this.ignoredColumns = names.filter((n) => !this.columnNames.includes(n));
+  }
+
+  /** Advance to the next valid row; false at the end of the stream. */
+  async advance(): Promise<boolean> {
+    for (;;) {
+      const text = await this.nextLine();
+      if (text === null) {
+        this.key = Infinity;
+        return false;
+      }
+      this.read++;
+      if (this.parse(text)) return true;
+      this.skipped++;
+    }
+  }
+
+  private async nextLine(): Promise<string | null> {
+    while (!this.done) {
+      const next = await this.iterator.next();
+      if (next.done) {
+        this.done = true;
+        break;
+      }
+      this.line++;
+      const text = next.value;
+      const end = text.endsWith('\r') ? text.length - 1 : text.length;
+      if (end === 0 || text.charCodeAt(0) === 35 /* # */) continue;
+      if (end === text.length ? text.trim() === '' : text.slice(0, end).trim() === '') continue;
+      return end === text.length ? text : text.slice(0, end);
+    }
+    return null;
+  }
+
+  /** Parse and check one data row into `values`; on a problem, report it and return false. */
+  private parse(text: string): boolean {
+    const fields = text.split(',');
+    const file = this.file;
+    if (fields.length !== this.fieldCount) {
+      const column = fields.length < this.fieldCount ? this.columnNameAt(fields.length) : null;
+      this.problems.add('field-count', file, this.line, column, `${fields.length} fields, header has ${this.fieldCount}; row skipped`);
+      return false;
+    }
+    const v = this.values;
+    const idx = this.columnIndex;
+    for (let s = 0; s < idx.length; s++) {
+      const i = idx[s]!;
+      if (i < 0) continue; // optional column absent: filled below
+      const field = fields[i]!;
+      const value = Number(field);
+      if (!Number.isFinite(value) || (value === 0 && field.trim() === '')) {
+        const shown = field.trim() === '' ? 'empty' : `"${field.trim()}"`;
+        this.problems.add('not-a-number', file, this.line, this.columnNames[s]!, `${shown} is not a finite number; row skipped`);
+        return false;
+      }
+      v[s] = value;
+    }
+    const base = 1 + this.spec.layouts[this.layout]!.length;
+    for (let o = 0; o < this.spec.optional.length; o++) {
+      if (idx[base + o]! >= 0) continue;
+      const fallback = this.spec.optional[o]!.fallback;
+      v[base + o] = fallback === 'time' ? v[0]! : fallback;
+    }
+    return this.checkDomain() && this.checkOrder();
+  }
+
+  private columnNameAt(fieldIndex: number): string | null {
+    const s = Array.from(this.columnIndex).indexOf(fieldIndex);
+    return s >= 0 ? this.columnNames[s]! : null;
+  }
+
+  private checkDomain(): boolean {
+    const v = this.values;
+    const name = this.spec.name;
+    if (name === 'boxes') {
+      if (this.layout === 1) {
+        // x, y, w, h: top-left corner and size -> corners.
+        if (v[3]! < 0 || v[4]! < 0) {
+          const column = v[3]! < 0 ? 'w' : 'h';
+          this.problems.add('box-inverted', this.file, this.line, column, `${column} ${v[column === 'w' ? 3 : 4]} is negative; row skipped`);
+          return false;
+        }
+        v[BOX_SLOTS.xMax] = v[1]! + v[3]!;
+        v[BOX_SLOTS.yMax] = v[2]! + v[4]!;
+      } else if (v[BOX_SLOTS.xMax]! < v[BOX_SLOTS.xMin]! || v[BOX_SLOTS.yMax]! < v[BOX_SLOTS.yMin]!) {
+        const x = v[BOX_SLOTS.xMax]! < v[BOX_SLOTS.xMin]!;
+        const message = x ? `xMax ${v[BOX_SLOTS.xMax]} is less than xMin ${v[BOX_SLOTS.xMin]}` : `yMax ${v[BOX_SLOTS.yMax]} is less than yMin ${v[BOX_SLOTS.yMin]}`;
+        this.problems.add('box-inverted', this.file, this.line, x ? 'xMax' : 'yMax', `${message}; row skipped`);
+        return false;
+      }
+      if (v[BOX_SLOTS.capture]! > v[BOX_SLOTS.arrival]!) {
+        this.problems.add('capture-after-arrival', this.file, this.line, 'arrival', `arrival ${v[BOX_SLOTS.arrival]} is before capture time ${v[0]}; row skipped`);
+        return false;
+      }
+      const score = v[BOX_SLOTS.score]!;
+      if (score < 0 || score > 1) {
+        this.problems.add('score-out-of-range', this.file, this.line, 'score', `score ${score} is outside [0, 1]; row skipped`);
+        return false;
+      }
+    } else if (name === 'attitude') {
+      const norm = Math.hypot(v[1]!, v[2]!, v[3]!, v[4]!);
+      if (Math.abs(norm - 1) > 1e-3) {
+        this.problems.add('quaternion-not-unit', this.file, this.line, 'qw', `quaternion norm ${norm} differs from 1 by more than 1e-3; row skipped`);
+        return false;
+      }
+    }
+    return true;
+  }
+
+  private checkOrder(): boolean {
+    const v = this.values;
+    const key = v[this.orderSlot]! + this.offset;
+    const column = this.columnNames[this.orderSlot]!;
+    if (key < this.key) {
+      this.problems.add('unsorted-time', this.file, this.line, column, `${column} ${v[this.orderSlot]} is earlier than the previous row's ${this.key - this.offset} (rows must be in time order); row skipped`);
+      return false;
+    }
+    const slots = v.length;
+    if (key === this.key) {
+      for (let r = 0; r < Math.min(this.sameTimeRows, SAME_TIME_MEMORY); r++) {
+        let same = true;
+        for (let s = 0; s < slots && same; s++) same = this.previous[r * slots + s] === v[s];
+        if (same) {
+          this.problems.add('duplicate-row', this.file, this.line, null, `same values as an earlier row at ${column} ${v[this.orderSlot]}; row skipped`);
+          return false;
+        }
+      }
+      if (this.spec.strict) {
+        this.problems.add('repeated-time', this.file, this.line, column, `${column} ${v[this.orderSlot]} repeats the previous row's time with other values (one row per time); row skipped`);
+        return false;
+      }
+    } else {
+      this.sameTimeRows = 0;
+    }
+    const r = this.sameTimeRows % SAME_TIME_MEMORY;
+    for (let s = 0; s < slots; s++) this.previous[r * slots + s] = v[s]!;
+    this.sameTimeRows++;
+    this.key = key;
+    // Onto the common clock: every time slot (time, arrival) gets the stream's offset.
+    if (this.offset !== 0) for (let t = 0; t < this.timeSlots.length; t++) v[this.timeSlots[t]!] += this.offset;
+    return true;
+  }
+}

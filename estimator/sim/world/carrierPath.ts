@@ -1,0 +1,165 @@
+// The carrier's true motion: deck-centre position, velocity, acceleration, heading and deck
+// attitude at any time. stateAt is allocation-free (writes into a CarrierState from createCarrierState).
+import type { CarrierSpec } from '../Scenario.js';
+import { CarrierPathError } from './CarrierPathError.js';
+import { createPlanarPoint, type PlanarPath } from './PlanarPath.js';
+import { ellipsePath, figureEightPath } from './parametricPath.js';
+import { RecordedPath, type RecordedSample } from './recordedPath.js';
+import { roundedRectanglePath, straightPath, surveyPath } from './segmentPath.js';
+import { SpeedProfileModel, type ProfileSample } from './speedProfile.js';
+import { attitudeFromAcceleration, pitchQuaternionInPlace } from './thrustAttitude.js';
+
+const DEG = Math.PI / 180;
+
+export interface CarrierState {
+  /** Deck centre in world ENU (m), its velocity (m/s) and acceleration (m/s^2). */
+  position: Float64Array;
+  velocity: Float64Array;
+  acceleration: Float64Array;
+  /** Heading of travel (rad from East, counter-clockwise) = yaw of the deck. */
+  heading: number;
+  /** Deck attitude q_wd (Hamilton [w, x, y, z], deck FLU -> world ENU), heave/pitch/bank included. */
+  qWorldDeck: Float64Array;
+  /** Distance travelled along the path (m). */
+  distance: number;
+}
+
+export function createCarrierState(): CarrierState {
+  return {
+    position: new Float64Array(3),
+    velocity: new Float64Array(3),
+    acceleration: new Float64Array(3),
+    heading: 0,
+    qWorldDeck: Float64Array.of(1, 0, 0, 0),
+    distance: 0,
+  };
+}
+
+export interface CarrierTrajectory {
+  /** Path length (m) of one lap; Infinity for straight and recorded paths. */
+  readonly pathLength: number;
+  readonly closed: boolean;
+  stateAt(t: number, out: CarrierState): CarrierState;
+}
+
+function positive(field: string, value: number): number {
+  if (!(value > 0) || !Number.isFinite(value)) throw new CarrierPathError(field, `must be a positive number, got ${value}`);
+  return value;
+}
+
+/** The plane curve of a path spec (recorded paths are handled separately). */
+export function planarPathFromSpec(spec: CarrierSpec['path']): PlanarPath {
+  switch (spec.shape) {
+    case 'straight':
+      return straightPath();
+    case 'rectangle': {
+      const length = positive('carrier.path.length', spec.length);
+      const width = positive('carrier.path.width', spec.width);
+      if (!(spec.cornerRadius >= 0) || 2 * spec.cornerRadius > Math.min(length, width)) {
+        throw new CarrierPathError('carrier.path.cornerRadius', `must lie in [0, min(length, width) / 2 = ${Math.min(length, width) / 2}] m, got ${spec.cornerRadius}`);
+      }
+      return roundedRectanglePath(length, width, spec.cornerRadius);
+    }
+    case 'ellipse':
+      return ellipsePath(positive('carrier.path.length', spec.length), positive('carrier.path.width', spec.width));
+    case 'figure-eight':
+      return figureEightPath(positive('carrier.path.length', spec.length), positive('carrier.path.width', spec.width));
+    case 'survey':
+      return surveyPath(
+        positive('carrier.path.length', spec.length),
+        positive('carrier.path.width', spec.width),
+        positive('carrier.path.spacing', spec.spacing),
+      );
+    case 'recorded':
+      throw new CarrierPathError('carrier.path.shape', 'a recorded path needs its rows (t, x, y, z)');
+  }
+}
+
+/**
+ * The carrier's trajectory. Geometric paths start at the world origin and are rotated by
+ * path.headingDeg; the distance along them follows the speed profile exactly. Recorded
+ * paths replay rows [t, x, y, z] in their own timing (speed and profile unused; trial time 0
+ * = first row; the deck is at z + deckHeight). Heave adds deck height, pitch tilts the deck
+ * about its lateral axis; an 'aircraft' carrier also banks and pitches with its acceleration
+ * (thrust attitude), and its deckHeight is its altitude.
+ */
+export function createCarrierTrajectory(spec: CarrierSpec, recordedRows?: number[][]): CarrierTrajectory {
+  const motion = spec.motion;
+  const heaveOmega = motion.heaveAmplitude !== 0 && motion.heavePeriod > 0 ? (2 * Math.PI) / motion.heavePeriod : 0;
+  const pitchOmega = motion.pitchAmplitudeDeg !== 0 && motion.pitchPeriod > 0 ? (2 * Math.PI) / motion.pitchPeriod : 0;
+  const heaveAmplitude = heaveOmega > 0 ? motion.heaveAmplitude : 0;
+  const pitchAmplitude = pitchOmega > 0 ? motion.pitchAmplitudeDeg * DEG : 0;
+  const banks = spec.kind === 'aircraft';
+
+  // Shared tail of stateAt: heave on z, then the deck attitude.
+  function finish(t: number, out: CarrierState): CarrierState {
+    if (heaveAmplitude !== 0) {
+      // z += A sin(w t); z' = A w cos(w t); z'' = -A w^2 sin(w t)
+      const sin = Math.sin(heaveOmega * t), cos = Math.cos(heaveOmega * t);
+      out.position[2] = out.position[2]! + heaveAmplitude * sin;
+      out.velocity[2] = out.velocity[2]! + heaveAmplitude * heaveOmega * cos;
+      out.acceleration[2] = out.acceleration[2]! - heaveAmplitude * heaveOmega * heaveOmega * sin;
+    }
+    const q = out.qWorldDeck;
+    if (banks) {
+      attitudeFromAcceleration(out.acceleration, out.heading, q);
+    } else {
+      q[0] = Math.cos(out.heading / 2); q[1] = 0; q[2] = 0; q[3] = Math.sin(out.heading / 2);
+    }
+    if (pitchAmplitude !== 0) pitchQuaternionInPlace(q, pitchAmplitude * Math.sin(pitchOmega * t));
+    return out;
+  }
+
+  if (spec.path.shape === 'recorded') {
+    if (!recordedRows) throw new CarrierPathError('carrier.path.file', 'a recorded path needs its rows (t, x, y, z)');
+    const recorded = new RecordedPath(recordedRows);
+    const sample: RecordedSample = { position: new Float64Array(3), velocity: new Float64Array(3), acceleration: new Float64Array(3), heading: 0 };
+    return {
+      pathLength: Infinity,
+      closed: false,
+      stateAt(t: number, out: CarrierState): CarrierState {
+        recorded.sample(t, sample);
+        out.position.set(sample.position);
+        out.position[2] = out.position[2]! + spec.deckHeight;
+        out.velocity.set(sample.velocity);
+        out.acceleration.set(sample.acceleration);
+        out.heading = sample.heading;
+        out.distance = NaN; // not tracked for recordings
+        return finish(t, out);
+      },
+    };
+  }
+
+  const path = planarPathFromSpec(spec.path);
+  const profile = new SpeedProfileModel(spec.speed, spec.profile);
+  const rotation = spec.path.headingDeg * DEG;
+  const cr = Math.cos(rotation), sr = Math.sin(rotation);
+  const point = createPlanarPoint();
+  const speed: ProfileSample = { s: 0, v: 0, a: 0 };
+  return {
+    pathLength: path.length,
+    closed: path.closed,
+    stateAt(t: number, out: CarrierState): CarrierState {
+      profile.sample(t, speed);
+      const s = path.closed ? speed.s % path.length : speed.s;
+      path.evaluate(s, point);
+      // rotate the path into the world by the path heading
+      const tx = cr * point.tx - sr * point.ty;
+      const ty = sr * point.tx + cr * point.ty;
+      out.position[0] = cr * point.x - sr * point.y;
+      out.position[1] = sr * point.x + cr * point.y;
+      out.position[2] = spec.deckHeight;
+      out.velocity[0] = speed.v * tx;
+      out.velocity[1] = speed.v * ty;
+      out.velocity[2] = 0;
+      // a = s'' T + s'^2 kappa N, N = left normal (-ty, tx)
+      const centripetal = speed.v * speed.v * point.curvature;
+      out.acceleration[0] = speed.a * tx - centripetal * ty;
+      out.acceleration[1] = speed.a * ty + centripetal * tx;
+      out.acceleration[2] = 0;
+      out.heading = Math.atan2(ty, tx);
+      out.distance = speed.s;
+      return finish(t, out);
+    },
+  };
+}

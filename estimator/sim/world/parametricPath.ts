@@ -1,0 +1,124 @@
+// Closed smooth curves p(theta), theta in [0, 2 pi), re-parametrised by arc length so a
+// carrier moves along them at exactly the commanded speed: ellipse and figure-eight.
+// Evaluation is allocation-free (table built once; Newton refinement per query).
+import type { PlanarPath, PlanarPoint } from './PlanarPath.js';
+
+/** A closed curve and its first two derivatives with respect to theta. */
+export interface ClosedCurve {
+  x(theta: number): number;
+  y(theta: number): number;
+  dx(theta: number): number;
+  dy(theta: number): number;
+  ddx(theta: number): number;
+  ddy(theta: number): number;
+}
+
+// 8-point Gauss-Legendre nodes and weights on [-1, 1] (Abramowitz & Stegun, table 25.4).
+const GL_NODES = [
+  -0.9602898564975363, -0.7966664774136267, -0.525532409916329, -0.1834346424956498,
+  0.1834346424956498, 0.525532409916329, 0.7966664774136267, 0.9602898564975363,
+];
+const GL_WEIGHTS = [
+  0.1012285362903763, 0.2223810344533745, 0.3137066458778873, 0.362683783378362,
+  0.362683783378362, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763,
+];
+
+const TABLE_INTERVALS = 512;
+
+export class ParametricPath implements PlanarPath {
+  readonly closed = true;
+  readonly length: number;
+  private readonly curve: ClosedCurve;
+  /** cumulative[i] = arc length from theta = 0 to theta = i h, h = 2 pi / TABLE_INTERVALS. */
+  private readonly cumulative = new Float64Array(TABLE_INTERVALS + 1);
+  private readonly step = (2 * Math.PI) / TABLE_INTERVALS;
+
+  constructor(curve: ClosedCurve) {
+    this.curve = curve;
+    for (let i = 0; i < TABLE_INTERVALS; i++) {
+      this.cumulative[i + 1] = this.cumulative[i]! + this.arcLength(i * this.step, (i + 1) * this.step);
+    }
+    this.length = this.cumulative[TABLE_INTERVALS]!;
+  }
+
+  private speed(theta: number): number {
+    return Math.hypot(this.curve.dx(theta), this.curve.dy(theta));
+  }
+
+  // integral_a^b |p'(theta)| dtheta by 8-point Gauss-Legendre
+  private arcLength(a: number, b: number): number {
+    const half = (b - a) / 2;
+    const mid = (a + b) / 2;
+    let sum = 0;
+    for (let k = 0; k < 8; k++) sum += GL_WEIGHTS[k]! * this.speed(mid + half * GL_NODES[k]!);
+    return sum * half;
+  }
+
+  /** Curve parameter theta at arc length s in [0, length]. */
+  thetaAt(s: number): number {
+    const c = this.cumulative;
+    let lo = 0;
+    let hi = TABLE_INTERVALS - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (c[mid]! <= s) lo = mid;
+      else hi = mid - 1;
+    }
+    const a = lo * this.step;
+    let theta = a + ((s - c[lo]!) / (c[lo + 1]! - c[lo]!)) * this.step;
+    // Newton on f(theta) = c[lo] + integral_a^theta |p'| - s, f' = |p'(theta)|
+    for (let iteration = 0; iteration < 4; iteration++) {
+      const f = c[lo]! + this.arcLength(a, theta) - s;
+      theta -= f / this.speed(theta);
+    }
+    return theta;
+  }
+
+  evaluate(s: number, out: PlanarPoint): PlanarPoint {
+    const theta = this.thetaAt(s);
+    const { curve } = this;
+    const dx = curve.dx(theta);
+    const dy = curve.dy(theta);
+    const ddx = curve.ddx(theta);
+    const ddy = curve.ddy(theta);
+    const speed = Math.hypot(dx, dy);
+    out.x = curve.x(theta);
+    out.y = curve.y(theta);
+    out.tx = dx / speed;
+    out.ty = dy / speed;
+    // signed curvature kappa = (x' y'' - y' x'') / |p'|^3
+    out.curvature = (dx * ddy - dy * ddx) / (speed * speed * speed);
+    return out;
+  }
+}
+
+/**
+ * Ellipse with semi-axes a (along x) and b (along y), counter-clockwise, starting at the
+ * origin heading +x: p = (a sin theta, b (1 - cos theta)).
+ */
+export function ellipsePath(a: number, b: number): ParametricPath {
+  return new ParametricPath({
+    x: (t) => a * Math.sin(t),
+    y: (t) => b * (1 - Math.cos(t)),
+    dx: (t) => a * Math.cos(t),
+    dy: (t) => b * Math.sin(t),
+    ddx: (t) => -a * Math.sin(t),
+    ddy: (t) => b * Math.cos(t),
+  });
+}
+
+/**
+ * Figure-eight (lemniscate of Gerono) reaching +-a along x and +-b along y, crossing
+ * itself at the origin where it starts: p = (a sin theta, b sin 2 theta). |p'| never
+ * vanishes, so the curvature stays bounded.
+ */
+export function figureEightPath(a: number, b: number): ParametricPath {
+  return new ParametricPath({
+    x: (t) => a * Math.sin(t),
+    y: (t) => b * Math.sin(2 * t),
+    dx: (t) => a * Math.cos(t),
+    dy: (t) => 2 * b * Math.cos(2 * t),
+    ddx: (t) => -a * Math.sin(t),
+    ddy: (t) => -4 * b * Math.sin(2 * t),
+  });
+}

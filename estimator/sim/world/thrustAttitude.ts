@@ -1,0 +1,81 @@
+// Attitude of a multirotor whose thrust produces a given acceleration: the body z axis
+// points along the specific force a - g_vec, yaw is held. Allocation-free (writes out).
+export const GRAVITY = 9.80665; // m/s^2, standard gravity; gravity vector in ENU is (0, 0, -GRAVITY)
+
+/**
+ * q_wb (Hamilton, [w, x, y, z], body FLU -> world ENU) with body z along
+ * f = a - (0, 0, -g) and the body x axis's horizontal projection at heading yaw (rad from East, CCW).
+ *   z_b = f / |f|,  y_b = (z_b x x_c) / |z_b x x_c| with x_c = (cos yaw, sin yaw, 0),  x_b = y_b x z_b.
+ * When |f| vanishes (free fall) the body is held level. Returns the tilt angle (rad) of z_b from vertical.
+ */
+export function attitudeFromAcceleration(acceleration: ArrayLike<number>, yaw: number, out: Float64Array): number {
+  let zx = acceleration[0]!, zy = acceleration[1]!, zz = acceleration[2]! + GRAVITY;
+  let norm = Math.hypot(zx, zy, zz);
+  if (norm < 1e-9 || zz <= 0) {
+    // free fall or thrust pointing down: a multirotor cannot do that; stay level
+    zx = 0; zy = 0; zz = 1; norm = 1;
+  }
+  zx /= norm; zy /= norm; zz /= norm;
+  const cx = Math.cos(yaw), cy = Math.sin(yaw);
+  // y_b = z_b x x_c  (x_c has zero z component)
+  let yx = -zz * cy, yy = zz * cx, yz = zx * cy - zy * cx;
+  const ny = Math.hypot(yx, yy, yz);
+  yx /= ny; yy /= ny; yz /= ny;
+  // x_b = y_b x z_b
+  const xx = yy * zz - yz * zy, xy = yz * zx - yx * zz, xz = yx * zy - yy * zx;
+  quaternionFromAxes(xx, xy, xz, yx, yy, yz, zx, zy, zz, out);
+  return Math.acos(Math.min(1, zz));
+}
+
+/**
+ * Quaternion of the rotation matrix whose columns are the body axes in world coordinates
+ * (Shepperd's method: pick the largest of w, x, y, z to divide by).
+ */
+export function quaternionFromAxes(
+  xx: number, xy: number, xz: number,
+  yx: number, yy: number, yz: number,
+  zx: number, zy: number, zz: number,
+  out: Float64Array,
+): Float64Array {
+  // R = [[xx, yx, zx], [xy, yy, zy], [xz, yz, zz]]
+  const trace = xx + yy + zz;
+  if (trace > 0) {
+    const s = 2 * Math.sqrt(trace + 1);
+    out[0] = s / 4;
+    out[1] = (yz - zy) / s;
+    out[2] = (zx - xz) / s;
+    out[3] = (xy - yx) / s;
+  } else if (xx > yy && xx > zz) {
+    const s = 2 * Math.sqrt(1 + xx - yy - zz);
+    out[0] = (yz - zy) / s;
+    out[1] = s / 4;
+    out[2] = (yx + xy) / s;
+    out[3] = (zx + xz) / s;
+  } else if (yy > zz) {
+    const s = 2 * Math.sqrt(1 + yy - xx - zz);
+    out[0] = (zx - xz) / s;
+    out[1] = (yx + xy) / s;
+    out[2] = s / 4;
+    out[3] = (zy + yz) / s;
+  } else {
+    const s = 2 * Math.sqrt(1 + zz - xx - yy);
+    out[0] = (xy - yx) / s;
+    out[1] = (zx + xz) / s;
+    out[2] = (zy + yz) / s;
+    out[3] = s / 4;
+  }
+  if (out[0]! < 0) for (let i = 0; i < 4; i++) out[i] = -out[i]!; // scalar part >= 0
+  return out;
+}
+
+/** q <- q * (rotation by angle about body y), in place: the deck's pitch oscillation. */
+export function pitchQuaternionInPlace(q: Float64Array, angle: number): Float64Array {
+  const c = Math.cos(angle / 2), s = Math.sin(angle / 2);
+  const w = q[0]!, x = q[1]!, y = q[2]!, z = q[3]!;
+  // (w, x, y, z) * (c, 0, s, 0)
+  q[0] = w * c - y * s;
+  q[1] = x * c - z * s;
+  q[2] = y * c + w * s;
+  q[3] = z * c + x * s;
+  return q;
+}

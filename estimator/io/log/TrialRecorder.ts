@@ -4,13 +4,7 @@
 // (estimator/io/log/LAYOUT.md) so a simulated trial replays like a real flight.
 // Arrays passed in may be reused by the caller after the call returns: copy, do not keep.
 
-/** Pixel corners, origin top-left, pixel centres at integer + 0.5 (same shape as camera/Box). */
-export interface RecordedBox {
-  xMin: number;
-  yMin: number;
-  xMax: number;
-  yMax: number;
-}
+import type { Box } from '../../camera/Box.js';
 
 export interface TrialRecorder {
   /**
@@ -28,7 +22,7 @@ export interface TrialRecorder {
    * tCapture (both s, the timestamps the filter used); score in [0, 1] (1 when unknown).
    * False boxes are recorded too: the lander cannot tell them apart.
    */
-  box(tArrival: number, tCapture: number, box: RecordedBox, score: number): void;
+  box(tArrival: number, tCapture: number, box: Box, score: number): void;
   /** Simulator truth at t: r = p_carrier - p_lander (ENU, m), carrier and lander velocity (m/s). */
   truth(t: number, r: ArrayLike<number>, vC: ArrayLike<number>, vL: ArrayLike<number>): void;
   /** The filter's state x and covariance diagonal at t, after every event up to t (onboard.csv). */

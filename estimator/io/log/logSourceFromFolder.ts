@@ -1,0 +1,31 @@
+// Node-only adapter: a LogSource over a log folder on disk. CSV files stream line by line
+// through readline (bounded memory whatever the file size); the JSON files are read whole.
+import { createReadStream, existsSync, readFileSync, statSync } from 'node:fs';
+import { join } from 'node:path';
+import { createInterface } from 'node:readline';
+import { LogLayoutError } from './LogProblem.js';
+import { parseJsonOrText, type LogSource } from './LogSource.js';
+import { STREAM_SPECS } from './logStreams.js';
+
+/** Read chunk size: large enough that readline, not the disk, sets the pace. */
+const CHUNK_BYTES = 1 << 20;
+
+export function logSourceFromFolder(folder: string): LogSource {
+  if (!existsSync(folder)) throw new LogLayoutError(folder, null, null, 'no such log folder');
+  if (!statSync(folder).isDirectory()) throw new LogLayoutError(folder, null, null, 'not a folder (a log is a folder with camera.json and CSV files)');
+  const json = (name: string): unknown => {
+    const path = join(folder, name);
+    return existsSync(path) ? parseJsonOrText(readFileSync(path, 'utf8')) : undefined;
+  };
+  return {
+    name: folder,
+    camera: json('camera.json'),
+    filter: json('filter.json') ?? null,
+    open(stream) {
+      const path = join(folder, STREAM_SPECS[stream].file);
+      if (!existsSync(path)) return null;
+      return createInterface({ input: createReadStream(path, { encoding: 'utf8', highWaterMark: CHUNK_BYTES }), crlfDelay: Infinity });
+    },
+    fileName: (stream) => STREAM_SPECS[stream].file,
+  };
+}

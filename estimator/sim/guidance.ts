@@ -1,0 +1,43 @@
+// Horizontal guidance on the ESTIMATE: a law turns the estimated relative state into a
+// horizontal velocity command for the lander. Allocation-free: commands are written into
+// `out`. Saturation everywhere: acceleration, then speed (norm limits, direction kept).
+import type { GuidanceSpec, LanderSpec } from './Scenario.js';
+import { PidGuidance } from './guidancePid.js';
+import { LqrGuidance } from './guidanceLqr.js';
+
+/** The estimated horizontal relative state a law sees (m, m/s, world ENU axes x, y). */
+export interface HorizontalEstimate {
+  /** r = p_carrier - p_lander, horizontal (m). */
+  rx: number;
+  ry: number;
+  /** Estimated carrier and lander horizontal velocity (m/s). */
+  vcx: number;
+  vcy: number;
+  vlx: number;
+  vly: number;
+}
+
+export interface HorizontalGuidance {
+  /** Forget integrator state (after an abort or a filter re-initialization). */
+  reset(): void;
+  /** Velocity command (m/s, world ENU x, y) into out[0], out[1] for a step of dt (s). */
+  command(estimate: HorizontalEstimate, dt: number, out: Float64Array): void;
+}
+
+/** Scale (out[0], out[1]) down so its norm is at most `limit`; returns true when it clipped. */
+export function limitNorm2(out: Float64Array, limit: number): boolean {
+  const norm = Math.hypot(out[0]!, out[1]!);
+  if (norm <= limit) return false;
+  const s = limit / norm;
+  out[0] = out[0]! * s;
+  out[1] = out[1]! * s;
+  return true;
+}
+
+/**
+ * The law named by guidance.law, with the lander's limits for saturation.
+ * @param dt guidance step (s), = 1 / filter.rate; LQR gains are computed for it.
+ */
+export function createGuidance(guidance: GuidanceSpec, lander: LanderSpec, dt: number): HorizontalGuidance {
+  return guidance.law === 'lqr' ? new LqrGuidance(guidance, lander, dt) : new PidGuidance(guidance, lander);
+}

@@ -1,0 +1,38 @@
+// LQR on the relative double integrator, per horizontal axis (gains from lqrGain, i.e. the
+// discrete Riccati equation). Allocation-free after construction.
+//   a = kr r + kv (vC - vL)              desired lander acceleration (m/s^2), |a| <= maxAccel
+//   v_cmd = vL + tau a                   velocity command a first-order lag tau turns into a
+// |v_cmd| <= maxSpeed. The carrier's velocity enters through the relative rate, so no
+// separate feed-forward is needed (guidance.feedForward only affects the PID law).
+import type { GuidanceSpec, LanderSpec } from './Scenario.js';
+import { limitNorm2, type HorizontalEstimate, type HorizontalGuidance } from './guidance.js';
+import { lqrGain } from './lqrGain.js';
+
+export class LqrGuidance implements HorizontalGuidance {
+  /** Position (1/s^2) and rate (1/s) gains. */
+  readonly kr: number;
+  readonly kv: number;
+  private readonly tau: number;
+  private readonly maxAccel: number;
+  private readonly maxSpeed: number;
+
+  constructor(spec: GuidanceSpec, lander: LanderSpec, dt: number) {
+    const gain = lqrGain(spec.lqrPosition, spec.lqrVelocity, spec.lqrControl, dt);
+    this.kr = gain.kr;
+    this.kv = gain.kv;
+    this.tau = lander.velocityTimeConstant;
+    this.maxAccel = lander.maxAccel;
+    this.maxSpeed = lander.maxSpeed;
+  }
+
+  reset(): void {}
+
+  command(e: HorizontalEstimate, _dt: number, out: Float64Array): void {
+    out[0] = this.kr * e.rx + this.kv * (e.vcx - e.vlx);
+    out[1] = this.kr * e.ry + this.kv * (e.vcy - e.vly);
+    limitNorm2(out, this.maxAccel);
+    out[0] = e.vlx + this.tau * out[0]!;
+    out[1] = e.vly + this.tau * out[1]!;
+    limitNorm2(out, this.maxSpeed);
+  }
+}

@@ -1,0 +1,37 @@
+import { describe, expect, it } from 'vitest';
+import { defaultScenario } from '../../estimator/io/defaultScenario.js';
+import { getPath, setPath } from '../../estimator/io/scenarioPath.js';
+import { validateScenario } from '../../estimator/io/validateScenario.js';
+
+const base = validateScenario(defaultScenario(), 'default');
+
+describe('setPath', () => {
+  it('returns a validated copy and leaves the original alone', () => {
+    const changed = setPath(base, 'detector.pixelNoise', 8);
+    expect(changed.detector.pixelNoise).toBe(8);
+    expect(base.detector.pixelNoise).toBe(1.5);
+    expect(Object.isFrozen(changed.detector)).toBe(true);
+    expect(setPath(base, 'lander.startOffset.2', 12).lander.startOffset).toEqual([-2, 0.5, 12]);
+    expect(setPath(base, 'guidance.law', 'lqr').guidance.law).toBe('lqr');
+  });
+
+  it('refuses an unknown path with the fields that do exist', () => {
+    expect(() => setPath(base, 'detector.pixelNose', 3)).toThrow(
+      'unknown scenario field "detector.pixelNose" (detector has: rate, pixelNoise, sizeNoise, latency, latencyJitter, dropout, burst, falseBoxRate, edgeMargin)',
+    );
+    expect(() => setPath(base, 'detector.rate.x', 3)).toThrow('unknown scenario field "detector.rate.x" (detector.rate is a value, not a section)');
+  });
+
+  it('refuses an out-of-range value naming the field', () => {
+    expect(() => setPath(base, 'detector.pixelNoise', -3)).toThrow('setPath: detector.pixelNoise: must be >= 0, got -3');
+    expect(() => setPath(base, 'detector.dropout', 'x')).toThrow('setPath: detector.dropout: must be number, got "x"');
+  });
+});
+
+describe('getPath', () => {
+  it('reads nested fields and array entries', () => {
+    expect(getPath(base, 'filter.rate')).toBe(100);
+    expect(getPath(base, 'lander.startOffset.0')).toBe(-2);
+    expect(() => getPath(base, 'nope')).toThrow(/unknown scenario field "nope" \(the scenario has: version, name/);
+  });
+});

@@ -12,7 +12,7 @@ describe('parseRecordedPath', () => {
 
   it('names file and line of every bad row', () => {
     expect(() => parseRecordedPath('t,x,y,z\n0,0,0,0\n1,2,0\n1,abc,0,0\n0,1,1,1\n', 'road.csv')).toThrow(
-      'road.csv:3: expected 4 numbers t,x,y,z, got "1,2,0"\nroad.csv:4: expected 4 numbers t,x,y,z, got "1,abc,0,0"\nroad.csv:5: t must increase, got 0.5 after 0',
+      'road.csv:3: expected 4 numbers t,x,y,z, got "1,2,0"\nroad.csv:4: expected 4 numbers t,x,y,z, got "1,abc,0,0"\nroad.csv:5: t must increase, got 0 after 0',
     );
     expect(() => parseRecordedPath('0,0,0,0\n', 'one.csv')).toThrow('one.csv: a recorded path needs at least 2 rows, got 1');
   });

@@ -17,10 +17,15 @@ const node = {
 // One line per Node entry point: [source, output]. Missing sources are skipped with a note.
 const nodeEntries = [
   ['estimator/cli/node.ts', 'dist/alight.mjs'],
+  ['notebooks/serve.node.ts', 'dist/serve.mjs'],
+  ['estimator/study/sweepWorker.node.ts', 'dist/sweep-worker.mjs'],
 ];
 
 // One line per browser entry point: [source, output].
-const browserEntries = [];
+const browserEntries = [
+  ['notebooks/host/app.ts', 'dist/notebooks/app.js'],
+  ['notebooks/worker/jobWorker.ts', 'dist/notebooks/worker.js'],
+];
 
 for (const [source, outfile] of nodeEntries) {
   if (!existsSync(source)) { console.warn(`build: skipping missing ${source}`); continue; }

@@ -1,0 +1,50 @@
+// Summaries as text for a terminal and as CSV for spreadsheets (RFC 4180 quoting).
+import { OUTCOMES } from '../sim/TrialResult.js';
+import type { PointSummary } from './summarize.js';
+
+function fixed(v: number | null, digits: number): string {
+  return v === null ? '-' : v.toFixed(digits);
+}
+
+function pointLabel(s: PointSummary): string {
+  const entries = Object.entries(s.point);
+  return entries.length === 0 ? '(scenario)' : entries.map(([k, v]) => `${k}=${typeof v === 'number' ? Number(v.toPrecision(6)) : v}`).join(' ');
+}
+
+/** A plain aligned table, one row per point. */
+export function summaryTable(summaries: readonly PointSummary[]): string {
+  const head = ['point', 'trials', 'landed', 'success', 'wilson95', 'cep50 m', 'cep95 m', 'land s p50', 'nees', 'verdict'];
+  const rows = summaries.map((s) => [
+    pointLabel(s),
+    String(s.trials),
+    String(s.landed),
+    fixed(s.successRate, 3),
+    `${fixed(s.wilsonLow, 3)}-${fixed(s.wilsonHigh, 3)}` + (s.ruleOfThreeLow !== null ? ` (r3 >= ${fixed(s.ruleOfThreeLow, 3)})` : ''),
+    fixed(s.cep50, 3),
+    fixed(s.cep95, 3),
+    fixed(s.timeToLandP50, 1),
+    s.neesMean === null ? '-' : `${fixed(s.neesMean, 2)} [${fixed(s.neesLow, 2)}, ${fixed(s.neesHigh, 2)}]`,
+    s.neesVerdict ?? '-',
+  ]);
+  const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i]!.length)));
+  const line = (cells: string[]) => cells.map((c, i) => (i === 0 ? c.padEnd(widths[i]!) : c.padStart(widths[i]!))).join('  ');
+  const failures = summaries.filter((s) => s.trials - s.landed > 0);
+  const notes = failures.length > 0 ? `\noutcomes: ${OUTCOMES.map((o) => `${o} ${summaries.reduce((n, s) => n + s.outcomes[o], 0)}`).join(', ')}` : '';
+  return [line(head), ...rows.map(line)].join('\n') + notes + '\n';
+}
+
+function csvCell(v: unknown): string {
+  if (v === null || v === undefined) return '';
+  const text = String(v);
+  return /[",\n]/.test(text) ? `"${text.replaceAll('"', '""')}"` : text;
+}
+
+/** CSV with one column per varied path, then the statistics; outcome counts as outcome.<name>. */
+export function summaryCsv(summaries: readonly PointSummary[], paths: readonly string[]): string {
+  const stats = ['trials', 'landed', 'successRate', 'wilsonLow', 'wilsonHigh', 'ruleOfThreeLow', 'contacts', 'cep50', 'cep95',
+    'timeToLandP10', 'timeToLandP50', 'timeToLandP90', 'neesMean', 'neesDim', 'neesLow', 'neesHigh', 'neesVerdict',
+    'nisMean', 'nisDim', 'nisLow', 'nisHigh', 'nisVerdict', 'positionRmse'] as const;
+  const head = [...paths, ...stats, ...OUTCOMES.map((o) => `outcome.${o}`)];
+  const rows = summaries.map((s) => [...paths.map((p) => s.point[p]), ...stats.map((k) => s[k]), ...OUTCOMES.map((o) => s.outcomes[o])]);
+  return [head, ...rows].map((r) => r.map(csvCell).join(',')).join('\n') + '\n';
+}

@@ -4,8 +4,9 @@ export const GRAVITY = 9.80665; // m/s^2, standard gravity; gravity vector in EN
 
 /**
  * q_wb (Hamilton, [w, x, y, z], body FLU -> world ENU) with body z along
- * f = a - (0, 0, -g) and the body x axis's horizontal projection at heading yaw (rad from East, CCW).
- *   z_b = f / |f|,  y_b = (z_b x x_c) / |z_b x x_c| with x_c = (cos yaw, sin yaw, 0),  x_b = y_b x z_b.
+ * f = a - (0, 0, -g) and the body x axis's horizontal projection at heading yaw (rad from East,
+ * CCW), i.e. yaw is the ZYX Euler yaw:
+ *   z_b = f / |f|,  x_b = (y_c x z_b) / |y_c x z_b| with y_c = (-sin yaw, cos yaw, 0),  y_b = z_b x x_b.
  * When |f| vanishes (free fall) the body is held level. Returns the tilt angle (rad) of z_b from vertical.
  */
 export function attitudeFromAcceleration(acceleration: ArrayLike<number>, yaw: number, out: Float64Array): number {
@@ -16,13 +17,13 @@ export function attitudeFromAcceleration(acceleration: ArrayLike<number>, yaw: n
     zx = 0; zy = 0; zz = 1; norm = 1;
   }
   zx /= norm; zy /= norm; zz /= norm;
-  const cx = Math.cos(yaw), cy = Math.sin(yaw);
-  // y_b = z_b x x_c  (x_c has zero z component)
-  let yx = -zz * cy, yy = zz * cx, yz = zx * cy - zy * cx;
-  const ny = Math.hypot(yx, yy, yz);
-  yx /= ny; yy /= ny; yz /= ny;
-  // x_b = y_b x z_b
-  const xx = yy * zz - yz * zy, xy = yz * zx - yx * zz, xz = yx * zy - yy * zx;
+  const c = Math.cos(yaw), s = Math.sin(yaw);
+  // x_b = y_c x z_b / |.| with y_c = (-sin yaw, cos yaw, 0): x_b stays in the vertical plane of the yaw
+  let xx = c * zz, xy = s * zz, xz = -s * zy - c * zx;
+  const nx = Math.hypot(xx, xy, xz);
+  xx /= nx; xy /= nx; xz /= nx;
+  // y_b = z_b x x_b
+  const yx = zy * xz - zz * xy, yy = zz * xx - zx * xz, yz = zx * xy - zy * xx;
   quaternionFromAxes(xx, xy, xz, yx, yy, yz, zx, zy, zz, out);
   return Math.acos(Math.min(1, zz));
 }

@@ -24,6 +24,13 @@ export class DareError extends Error {
   }
 }
 
+/** Largest |entry| (ml-matrix's abs() works in place, so not used on live matrices). */
+function maxAbs(M: Matrix): number {
+  let m = 0;
+  for (const row of M.to2DArray()) for (const v of row) m = Math.max(m, Math.abs(v));
+  return m;
+}
+
 /** Max-abs entry of the DARE residual A'XA - A'XB (R + B'XB)^-1 B'XA + Q - X. */
 export function dareResidual(A: Matrix, B: Matrix, Q: Matrix, R: Matrix, X: Matrix): number {
   const At = A.transpose();
@@ -31,7 +38,7 @@ export function dareResidual(A: Matrix, B: Matrix, Q: Matrix, R: Matrix, X: Matr
   const BtXA = B.transpose().mmul(XA);
   const S = R.clone().add(B.transpose().mmul(X).mmul(B));
   const res = At.mmul(XA).sub(BtXA.transpose().mmul(inverse(S)).mmul(BtXA)).add(Q).sub(X);
-  return res.abs().max();
+  return maxAbs(res);
 }
 
 /**
@@ -51,12 +58,12 @@ export function dareSolve(A: Matrix, B: Matrix, Q: Matrix, R: Matrix, maxIterati
     const nextA = AW.mmul(Ak);
     const nextG = G.clone().add(AW.mmul(G).mmul(Ak.transpose()));
     const nextH = H.clone().add(Ak.transpose().mmul(H).mmul(Winv).mmul(Ak));
-    const change = nextH.clone().sub(H).abs().max();
+    const change = maxAbs(nextH.clone().sub(H));
     Ak = nextA;
     G = nextG.add(nextG.transpose()).mul(0.5); // keep symmetric against round-off
     H = nextH.add(nextH.transpose()).mul(0.5);
     if (!Number.isFinite(change)) break;
-    if (change <= tolerance * Math.max(1, H.abs().max())) {
+    if (change <= tolerance * Math.max(1, maxAbs(H))) {
       const K = inverse(R.clone().add(B.transpose().mmul(H).mmul(B))).mmul(B.transpose()).mmul(H).mmul(A);
       return { X: H, K, iterations: k };
     }

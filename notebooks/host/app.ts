@@ -1,0 +1,199 @@
+// Browser entry (dist/notebooks/app.js): reads the analysis from the URL (or a study's default),
+// builds the study's reactive graph with a Web Worker job runner, and lays out the page.
+import { analysisToText, AnalysisError, isStudyId, type Analysis } from '../analysis/Analysis.js';
+import { defaultAnalysis } from '../analysis/defaultAnalysis.js';
+import { parseAnalysis } from '../analysis/parseAnalysis.js';
+import { analysisTextFromFragment, permalinkFragment } from '../analysis/permalink.js';
+import { WorkerJobRunner, type Activity } from '../jobs/WorkerJobRunner.js';
+import { mountStudy, type MountedStudy } from '../runtime/mountStudy.js';
+import { STUDIES, studyById } from '../studies/studies.js';
+import type { Study } from '../studies/Study.js';
+import { escapeXml } from '../figures/svg.js';
+import { SAFETY_CAUTION } from './hostPage.js';
+import { Plate } from './Plate.js';
+import { renderControl, renderSeed } from './renderControls.js';
+import { downloadText } from './download.js';
+import { renderDropzone } from './dropzone.js';
+
+const runner = new WorkerJobRunner('/worker.js', Math.min(2, navigator.hardwareConcurrency || 2));
+let mounted: MountedStudy | null = null;
+let plates = new Map<string, Plate>();
+let activity: readonly Activity[] = [];
+
+/** Read by the browser tests and handy in the console. */
+interface PageProbe {
+  renders(): Record<string, number>;
+  computeCounts(): Record<string, number>;
+  analysisText(): string;
+}
+declare global {
+  interface Window {
+    alight?: PageProbe;
+  }
+}
+
+function analysisFromLocation(): { analysis: Analysis; problem: string | null } {
+  const fragment = location.hash;
+  try {
+    const text = analysisTextFromFragment(fragment);
+    if (text !== null) return { analysis: parseAnalysis(text, 'the link', (id) => studyById(id).parameters), problem: null };
+  } catch (error) {
+    const problem = error instanceof AnalysisError ? error.problems.join('\n') : (error as Error).message;
+    return { analysis: defaultAnalysis(STUDIES[0]!), problem: `This link's analysis could not be used:\n${problem}` };
+  }
+  const match = /^#study=([a-z-]+)$/.exec(fragment);
+  const id = match?.[1];
+  return { analysis: defaultAnalysis(isStudyId(id) ? studyById(id) : STUDIES[0]!), problem: null };
+}
+
+function updateBusy(): void {
+  const busy = activity.length > 0 || [...plates.values()].some((p) => p.element.dataset.final !== 'true');
+  document.body.dataset.state = busy ? 'busy' : 'idle';
+  const bar = document.querySelector<HTMLElement>('.progress > div');
+  const line = document.querySelector<HTMLElement>('.run-text');
+  const cancel = document.querySelector<HTMLButtonElement>('#cancel');
+  const done = activity.reduce((s, a) => s + a.done, 0);
+  const total = activity.reduce((s, a) => s + a.total, 0);
+  if (bar) bar.style.width = activity.length === 0 ? '100%' : `${total > 0 ? (100 * done) / total : 2}%`;
+  if (line) line.textContent = activity.length === 0 ? 'all results in' : `${activity.map((a) => a.label).join(', ')}: ${done} of ${total || '…'}`;
+  if (cancel) cancel.disabled = activity.length === 0;
+}
+
+function setPermalink(analysis: Analysis): void {
+  history.replaceState(null, '', permalinkFragment(analysisToText(analysis)));
+}
+
+function render(analysis: Analysis, problem: string | null): void {
+  mounted?.dispose();
+  runner.cancelAll();
+  const study = studyById(analysis.study);
+  const app = document.getElementById('app')!;
+  app.innerHTML = '';
+  document.title = `${study.title} · alight`;
+
+  const masthead = document.createElement('header');
+  masthead.className = 'masthead';
+  masthead.innerHTML = `<div class="wordmark">alight<small>landing studies</small></div><nav aria-label="Studies"><ul class="studies">${STUDIES.map(
+    (s) => `<li><a href="#study=${s.id}"${s.id === study.id ? ' aria-current="page"' : ''}>${escapeXml(s.title)}</a></li>`,
+  ).join('')}</ul></nav>`;
+
+  const layout = document.createElement('div');
+  layout.className = 'layout';
+  const setup = renderSetup(study, analysis);
+  const article = document.createElement('article');
+  article.className = 'study';
+  article.innerHTML = `<h1>${escapeXml(study.title)}</h1><p class="lede">${escapeXml(study.lede)}</p>`;
+  if (problem) article.insertAdjacentHTML('afterbegin', `<p class="message" role="alert">${escapeXml(problem)}</p>`);
+
+  plates = new Map(study.figures.map((f) => [f.name, new Plate(f, study.id)]));
+  let group: HTMLElement | null = null;
+  for (const block of study.blocks) {
+    if ('figure' in block) {
+      if (!group) {
+        group = document.createElement('div');
+        group.className = 'plates';
+        article.append(group);
+      }
+      group.append(plates.get(block.figure)!.element);
+      continue;
+    }
+    group = null;
+    if ('prose' in block) {
+      const p = document.createElement('p');
+      p.className = 'prose';
+      p.textContent = block.prose;
+      article.append(p);
+    } else {
+      article.append(renderDropzone(block.dropzone, (files) => mounted?.set('logFiles', files)));
+    }
+  }
+  layout.append(setup, article);
+  app.append(masthead, layout);
+
+  mounted = mountStudy(study, analysis, runner, {
+    figure: (name, output) => {
+      plates.get(name)?.update(output);
+      updateBusy();
+    },
+    failed: (name, message) => {
+      plates.get(name)?.fail(message);
+      updateBusy();
+    },
+    pending: (name) => {
+      plates.get(name)?.markPending();
+      updateBusy();
+    },
+  });
+  const current = mounted;
+  window.alight = {
+    renders: () => Object.fromEntries([...plates].map(([k, p]) => [k, p.renders])),
+    computeCounts: () => Object.fromEntries(current.graph.computeCounts),
+    analysisText: () => analysisToText(analysis),
+  };
+  setPermalink(analysis);
+  updateBusy();
+}
+
+function renderSetup(study: Study, analysis: Analysis): HTMLElement {
+  const setup = document.createElement('aside');
+  setup.className = 'setup';
+  setup.setAttribute('aria-label', 'Setup');
+  setup.innerHTML = `<h2>Scenario</h2><div class="scenario-name">${escapeXml(analysis.scenario.name)}</div><p class="hint">${escapeXml(analysis.scenario.description)}</p><h2>Controls</h2>`;
+  const change = (name: string, value: unknown): void => {
+    if (name === 'seed') analysis.seed = value as number;
+    else analysis.parameters[name] = value as string | number;
+    mounted?.set(name, value);
+    setPermalink(analysis);
+    updateBusy();
+  };
+  for (const p of study.parameters) setup.append(renderControl(p, analysis.parameters[p.name] ?? p.default, (v) => change(p.name, v)));
+  setup.append(renderSeed(analysis.seed, (seed) => change('seed', seed)));
+
+  setup.insertAdjacentHTML('beforeend', `<h2>Run</h2><div class="progress" role="progressbar" aria-label="Trials"><div></div></div><div class="run-line"><span class="run-text" aria-live="polite"></span><button type="button" id="cancel">Cancel</button></div><h2>Share</h2>`);
+  setup.querySelector('#cancel')!.addEventListener('click', () => runner.cancelAll());
+  const share = document.createElement('div');
+  share.className = 'share';
+  const button = (text: string, id: string, action: () => void): void => {
+    const b = document.createElement('button');
+    b.type = 'button';
+    b.id = id;
+    b.textContent = text;
+    b.addEventListener('click', action);
+    share.append(b);
+  };
+  button('Copy link', 'copy-link', () => void navigator.clipboard?.writeText(location.href));
+  button('Download analysis', 'download-analysis', () => downloadText(analysisToText(analysis), `${study.id}-analysis.json`, 'application/json'));
+  const upload = document.createElement('input');
+  upload.type = 'file';
+  upload.accept = '.json,application/json';
+  upload.hidden = true;
+  upload.id = 'upload-analysis';
+  upload.addEventListener('change', async () => {
+    const file = upload.files?.[0];
+    if (!file) return;
+    try {
+      const next = parseAnalysis(await file.text(), file.name, (id) => studyById(id).parameters);
+      location.hash = permalinkFragment(analysisToText(next));
+    } catch (error) {
+      render(analysis, error instanceof AnalysisError ? error.problems.join('\n') : (error as Error).message);
+    }
+  });
+  button('Open analysis…', 'open-analysis', () => upload.click());
+  setup.append(share, upload);
+  setup.insertAdjacentHTML(
+    'beforeend',
+    `<p class="hint">The link holds the whole analysis. Headless: <code>alight report ${study.id}-analysis.json --out report.html</code></p><p class="caution">${escapeXml(SAFETY_CAUTION)}</p>`,
+  );
+  return setup;
+}
+
+runner.onActivity((list) => {
+  activity = list;
+  updateBusy();
+});
+window.addEventListener('hashchange', () => {
+  const { analysis, problem } = analysisFromLocation();
+  render(analysis, problem);
+});
+const first = analysisFromLocation();
+render(first.analysis, first.problem);

@@ -1,0 +1,49 @@
+// Browser only: a drop target for a log folder (or its files), plus a folder picker for the
+// keyboard. Hands over the files by name (camera.json, boxes.csv, ...).
+export function renderDropzone(text: string, onFiles: (files: Map<string, File>) => void): HTMLElement {
+  const zone = document.createElement('div');
+  zone.className = 'dropzone';
+  zone.innerHTML = `<p></p><button type="button">Choose a log folder…</button>`;
+  zone.querySelector('p')!.textContent = text;
+  const picker = document.createElement('input');
+  picker.type = 'file';
+  picker.multiple = true;
+  picker.hidden = true;
+  picker.setAttribute('webkitdirectory', '');
+  picker.id = 'log-folder';
+  zone.append(picker);
+  zone.querySelector('button')!.addEventListener('click', () => picker.click());
+  picker.addEventListener('change', () => {
+    if (picker.files) onFiles(new Map([...picker.files].map((f) => [f.name, f])));
+  });
+  zone.addEventListener('dragover', (event) => {
+    event.preventDefault();
+    zone.classList.add('over');
+  });
+  zone.addEventListener('dragleave', () => zone.classList.remove('over'));
+  zone.addEventListener('drop', (event) => {
+    event.preventDefault();
+    zone.classList.remove('over');
+    const items = [...(event.dataTransfer?.items ?? [])];
+    const entries = items.map((i) => i.webkitGetAsEntry()).filter((e): e is FileSystemEntry => e !== null);
+    collect(entries).then((files) => onFiles(new Map(files.map((f) => [f.name, f]))));
+  });
+  return zone;
+}
+
+async function collect(entries: FileSystemEntry[]): Promise<File[]> {
+  const files: File[] = [];
+  for (const entry of entries) {
+    if (entry.isFile) files.push(await new Promise<File>((resolve, reject) => (entry as FileSystemFileEntry).file(resolve, reject)));
+    else if (entry.isDirectory) {
+      const reader = (entry as FileSystemDirectoryEntry).createReader();
+      // readEntries returns batches until an empty one.
+      for (;;) {
+        const batch = await new Promise<FileSystemEntry[]>((resolve, reject) => reader.readEntries(resolve, reject));
+        if (batch.length === 0) break;
+        files.push(...(await collect(batch)));
+      }
+    }
+  }
+  return files;
+}

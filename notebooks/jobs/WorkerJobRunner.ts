@@ -1,0 +1,111 @@
+// Browser only: runs each job in its own module Web Worker (dist/notebooks/worker.js), at most
+// `concurrency` at a time, and reports activity for the progress bar. Cancel = terminate.
+import type { JobState } from './JobState.js';
+import { StateChannel, type JobRunner, type JobStates } from './JobRunner.js';
+import type { JobInput, JobKind, JobOutput } from './jobTable.js';
+import type { WorkerMessage } from './protocol.js';
+
+export interface Activity {
+  id: number;
+  label: string;
+  done: number;
+  total: number;
+}
+
+interface Pending {
+  id: number;
+  label: string;
+  start(): void;
+  cancel(): void;
+}
+
+export class WorkerJobRunner implements JobRunner {
+  private readonly url: string;
+  private readonly concurrency: number;
+  private readonly queue: Pending[] = [];
+  private readonly running = new Map<number, Pending>();
+  private readonly activity = new Map<number, Activity>();
+  private listeners: ((activity: readonly Activity[]) => void)[] = [];
+  private nextId = 1;
+
+  constructor(url: string, concurrency: number) {
+    this.url = url;
+    this.concurrency = Math.max(1, concurrency);
+  }
+
+  onActivity(listener: (activity: readonly Activity[]) => void): void {
+    this.listeners.push(listener);
+  }
+
+  /** Stop every running and queued job; their figures keep the partial results, marked cancelled. */
+  cancelAll(): void {
+    for (const p of [...this.queue, ...this.running.values()]) p.cancel();
+  }
+
+  run<K extends JobKind>(kind: K, input: JobInput<K>, label: string): JobStates<JobOutput<K>> {
+    const id = this.nextId++;
+    let worker: Worker | null = null;
+    let last: JobState<JobOutput<K>> = { done: 0, total: 0, value: null, final: false, cancelled: false, error: null };
+    const finish = (): void => {
+      worker?.terminate();
+      worker = null;
+      this.running.delete(id);
+      const queued = this.queue.findIndex((p) => p.id === id);
+      if (queued >= 0) this.queue.splice(queued, 1);
+      this.activity.delete(id);
+      this.notify();
+      this.pump();
+    };
+    const channel = new StateChannel<JobOutput<K>>(finish);
+    const pending: Pending = {
+      id,
+      label,
+      start: () => {
+        worker = new Worker(this.url, { type: 'module', name: `alight ${kind}` });
+        worker.onmessage = (event: MessageEvent<WorkerMessage>) => {
+          const message = event.data;
+          if (message.type === 'progress') {
+            last = { done: message.done, total: message.total, value: (message.partial as JobOutput<K> | null) ?? last.value, final: false, cancelled: false, error: null };
+            this.activity.set(id, { id, label, done: message.done, total: message.total });
+            this.notify();
+            channel.push(last);
+          } else if (message.type === 'result') {
+            channel.push({ done: message.done, total: message.total, value: message.value as JobOutput<K>, final: true, cancelled: false, error: null });
+            finish();
+          } else {
+            channel.push({ ...last, final: true, error: message.message });
+            finish();
+          }
+        };
+        worker.onerror = (event) => {
+          event.preventDefault();
+          channel.push({ ...last, final: true, error: event.message || 'worker failed to start' });
+          finish();
+        };
+        worker.postMessage({ type: 'start', kind, input });
+      },
+      cancel: () => {
+        channel.push({ ...last, final: true, cancelled: true });
+        finish();
+      },
+    };
+    this.activity.set(id, { id, label, done: 0, total: 0 });
+    this.queue.push(pending);
+    this.notify();
+    this.pump();
+    return channel;
+  }
+
+  private pump(): void {
+    while (this.running.size < this.concurrency && this.queue.length > 0) {
+      const next = this.queue.shift()!;
+      this.running.set(next.id, next);
+      next.start();
+    }
+  }
+
+  private notify(): void {
+    const list = [...this.activity.values()];
+    for (const l of this.listeners) l(list);
+  }
+}

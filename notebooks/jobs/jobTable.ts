@@ -1,0 +1,17 @@
+// Every job a study can run, by name. The worker and the in-process runner both call these,
+// so page and report compute with the same functions. Each job takes (input, progress, context).
+import { sweepJob } from './sweepJob.js';
+
+/** What only some hosts can give a job (Node: reading a log folder from disk). */
+export interface JobContext {
+  openLogFolder?: (path: string) => unknown;
+}
+
+export const jobTable = {
+  sweep: sweepJob,
+};
+
+type Table = typeof jobTable;
+export type JobKind = keyof Table;
+export type JobInput<K extends JobKind> = Parameters<Table[K]>[0];
+export type JobOutput<K extends JobKind> = Awaited<ReturnType<Table[K]>>;

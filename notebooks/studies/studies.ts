@@ -1,0 +1,12 @@
+// The studies of the page, in menu order.
+import type { StudyId } from '../analysis/Analysis.js';
+import { detectionStudy } from './detectionStudy.js';
+import type { Study } from './Study.js';
+
+export const STUDIES: readonly Study[] = [detectionStudy];
+
+export function studyById(id: StudyId): Study {
+  const study = STUDIES.find((s) => s.id === id);
+  if (!study) throw new Error(`no study "${id}" in this build`);
+  return study;
+}

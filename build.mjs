@@ -18,7 +18,6 @@ const node = {
 const nodeEntries = [
   ['estimator/cli/node.ts', 'dist/alight.mjs'],
   ['notebooks/serve.node.ts', 'dist/serve.mjs'],
-  ['notebooks/serve.node.ts', 'dist/serve.mjs'],
   ['estimator/study/sweepWorker.node.ts', 'dist/sweep-worker.mjs'],
 ];
 

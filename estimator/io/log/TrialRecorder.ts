@@ -15,16 +15,18 @@ export interface TrialRecorder {
   imu(t: number, f: ArrayLike<number>, q: ArrayLike<number>): void;
   /** An attitude estimate at a time with no IMU step (rarely needed: imu() carries q). */
   attitude(t: number, q: ArrayLike<number>): void;
-  /** Lander velocity in world ENU (m/s) as given to updateOdometry at t. */
+  /** Lander velocity in world ENU (m/s) as given to updateOdometry at t (also those only used to start the filter). */
   odometry(t: number, v: ArrayLike<number>): void;
   /**
-   * A detector box as handed to the filter: it arrived at tArrival and was captured at
-   * tCapture (both s, the timestamps the filter used); score in [0, 1] (1 when unknown).
-   * False boxes are recorded too: the lander cannot tell them apart.
+   * A detector box as handed to the filter: tArrival = the filter clock when updateBox was
+   * called (the step that processed it, so replay applies it at the same point), tCapture =
+   * the capture time given to updateBox (s); score in [0, 1] (1 when unknown). False boxes are
+   * recorded too: the lander cannot tell them apart. For the first box, the one given to
+   * initializeFromBox, tArrival = the t passed there.
    */
   box(tArrival: number, tCapture: number, box: Box, score: number): void;
   /** Simulator truth at t: r = p_carrier - p_lander (ENU, m), carrier and lander velocity (m/s). */
   truth(t: number, r: ArrayLike<number>, vC: ArrayLike<number>, vL: ArrayLike<number>): void;
-  /** The filter's state x and covariance diagonal at t, after every event up to t (onboard.csv). */
+  /** The filter's state x and covariance diagonal at filter time t, after every event up to t (onboard.csv). */
   estimate(t: number, x: ArrayLike<number>, Pdiag: ArrayLike<number>): void;
 }

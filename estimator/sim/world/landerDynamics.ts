@@ -2,6 +2,7 @@
 // lag, within acceleration, tilt and speed limits, pushed by wind through drag; attitude
 // follows the thrust direction. step() is allocation-free (state in preallocated arrays).
 import type { LanderSpec } from '../Scenario.js';
+import { mat3TransposeMultiplyVector, rotationMatrixFromQuat } from '../../frames/rotationMatrixFromQuat.js';
 import { attitudeFromAcceleration, GRAVITY } from './thrustAttitude.js';
 
 const DEG = Math.PI / 180;
@@ -51,6 +52,8 @@ export class LanderDynamics {
   /** Wind-drag acceleration the velocity loop has learnt to cancel (m/s^2, world). */
   private readonly compensation = new Float64Array(3);
   private readonly thrust = new Float64Array(3);
+  private readonly specificForceWorld = new Float64Array(3);
+  private readonly Rwb = new Float64Array(9);
 
   constructor(spec: LanderSpec, position: ArrayLike<number>, options: LanderDynamicsOptions = {}) {
     this.spec = spec;
@@ -126,20 +129,11 @@ export class LanderDynamics {
   private updateAttitude(): void {
     const s = this.state;
     s.tilt = attitudeFromAcceleration(this.thrust, this.yaw, s.qWorldBody);
-    const q = s.qWorldBody;
-    const fx = s.acceleration[0]!, fy = s.acceleration[1]!, fz = s.acceleration[2]! + GRAVITY;
-    rotateByConjugate(q, fx, fy, fz, s.specificForceBody);
+    const f = this.specificForceWorld;
+    f[0] = s.acceleration[0]!; f[1] = s.acceleration[1]!; f[2] = s.acceleration[2]! + GRAVITY;
+    rotationMatrixFromQuat(s.qWorldBody, this.Rwb);
+    mat3TransposeMultiplyVector(this.Rwb, f, s.specificForceBody);
   }
-}
-
-/** out = R(q)^T v, the world vector v expressed in the body frame. */
-export function rotateByConjugate(q: ArrayLike<number>, vx: number, vy: number, vz: number, out: Float64Array): Float64Array {
-  const w = q[0]!, x = q[1]!, y = q[2]!, z = q[3]!;
-  // rows of R^T = columns of R
-  out[0] = (1 - 2 * (y * y + z * z)) * vx + 2 * (x * y + w * z) * vy + 2 * (x * z - w * y) * vz;
-  out[1] = 2 * (x * y - w * z) * vx + (1 - 2 * (x * x + z * z)) * vy + 2 * (y * z + w * x) * vz;
-  out[2] = 2 * (x * z + w * y) * vx + 2 * (y * z - w * x) * vy + (1 - 2 * (x * x + y * y)) * vz;
-  return out;
 }
 
 export function copyLanderState(from: LanderState, to: LanderState): LanderState {

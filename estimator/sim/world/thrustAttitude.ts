@@ -1,6 +1,10 @@
 // Attitude of a multirotor whose thrust produces a given acceleration: the body z axis
 // points along the specific force a - g_vec, yaw is held. Allocation-free (writes out).
+import { quatFromRotationMatrix } from '../../frames/rotationMatrixFromQuat.js';
+
 export const GRAVITY = 9.80665; // m/s^2, standard gravity; gravity vector in ENU is (0, 0, -GRAVITY)
+
+const scratch = new Float64Array(9);
 
 /**
  * q_wb (Hamilton, [w, x, y, z], body FLU -> world ENU) with body z along
@@ -24,49 +28,13 @@ export function attitudeFromAcceleration(acceleration: ArrayLike<number>, yaw: n
   xx /= nx; xy /= nx; xz /= nx;
   // y_b = z_b x x_b
   const yx = zy * xz - zz * xy, yy = zz * xx - zx * xz, yz = zx * xy - zy * xx;
-  quaternionFromAxes(xx, xy, xz, yx, yy, yz, zx, zy, zz, out);
+  // R_wb = [x_b y_b z_b] (columns), row-major
+  const R = scratch;
+  R[0] = xx; R[1] = yx; R[2] = zx;
+  R[3] = xy; R[4] = yy; R[5] = zy;
+  R[6] = xz; R[7] = yz; R[8] = zz;
+  quatFromRotationMatrix(R, out);
   return Math.acos(Math.min(1, zz));
-}
-
-/**
- * Quaternion of the rotation matrix whose columns are the body axes in world coordinates
- * (Shepperd's method: pick the largest of w, x, y, z to divide by).
- */
-export function quaternionFromAxes(
-  xx: number, xy: number, xz: number,
-  yx: number, yy: number, yz: number,
-  zx: number, zy: number, zz: number,
-  out: Float64Array,
-): Float64Array {
-  // R = [[xx, yx, zx], [xy, yy, zy], [xz, yz, zz]]
-  const trace = xx + yy + zz;
-  if (trace > 0) {
-    const s = 2 * Math.sqrt(trace + 1);
-    out[0] = s / 4;
-    out[1] = (yz - zy) / s;
-    out[2] = (zx - xz) / s;
-    out[3] = (xy - yx) / s;
-  } else if (xx > yy && xx > zz) {
-    const s = 2 * Math.sqrt(1 + xx - yy - zz);
-    out[0] = (yz - zy) / s;
-    out[1] = s / 4;
-    out[2] = (yx + xy) / s;
-    out[3] = (zx + xz) / s;
-  } else if (yy > zz) {
-    const s = 2 * Math.sqrt(1 + yy - xx - zz);
-    out[0] = (zx - xz) / s;
-    out[1] = (yx + xy) / s;
-    out[2] = s / 4;
-    out[3] = (zy + yz) / s;
-  } else {
-    const s = 2 * Math.sqrt(1 + zz - xx - yy);
-    out[0] = (xy - yx) / s;
-    out[1] = (zx + xz) / s;
-    out[2] = (zy + yz) / s;
-    out[3] = s / 4;
-  }
-  if (out[0]! < 0) for (let i = 0; i < 4; i++) out[i] = -out[i]!; // scalar part >= 0
-  return out;
 }
 
 /** q <- q * (rotation by angle about body y), in place: the deck's pitch oscillation. */

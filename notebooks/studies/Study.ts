@@ -24,6 +24,8 @@ export interface FigureOutput {
   final: boolean;
   /** A line shown under the figure (e.g. "12 of 40 trials"). */
   status: string;
+  /** Set when the computation behind the figure failed (the report refuses to print it). */
+  failure?: string;
   /** A file offered for download beside the figure (e.g. the sweep's JSON Lines results). */
   attachment?: { label: string; fileName: string; text: string };
 }

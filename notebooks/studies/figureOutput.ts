@@ -18,7 +18,7 @@ export interface Drawn {
 
 export function fromState<T>(state: JobState<T>, unit: string, draw: (value: T, partial: boolean) => Drawn): FigureOutput {
   const status = progressText(state, unit);
-  if (state.error && state.value === null) return { kind: 'table', markup: `<p class="message">${escapeXml(state.error)}</p>`, csv: null, numbers: [], final: true, status };
+  if (state.error) return { kind: 'table', markup: `<p class="message">${escapeXml(state.error)}</p>`, csv: null, numbers: [], final: true, status, failure: state.error };
   if (state.value === null) return { kind: 'table', markup: '<p>waiting for the first results…</p>', csv: null, numbers: [], final: state.final, status };
   const drawn = draw(state.value, !state.final || state.cancelled);
   const output: FigureOutput = { kind: drawn.kind ?? 'svg', markup: drawn.markup, csv: drawn.csv ?? null, numbers: drawn.numbers ?? [], final: state.final, status };

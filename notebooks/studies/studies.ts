@@ -1,9 +1,11 @@
 // The studies of the page, in menu order.
 import type { StudyId } from '../analysis/Analysis.js';
+import { carrierStudy } from './carrierStudy.js';
 import { detectionStudy } from './detectionStudy.js';
+import { localizationStudy } from './localizationStudy.js';
 import type { Study } from './Study.js';
 
-export const STUDIES: readonly Study[] = [detectionStudy];
+export const STUDIES: readonly Study[] = [detectionStudy, localizationStudy, carrierStudy];
 
 export function studyById(id: StudyId): Study {
   const study = STUDIES.find((s) => s.id === id);

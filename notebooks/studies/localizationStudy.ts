@@ -1,0 +1,165 @@
+// Study: the lander's own localization errors (attitude bias, odometry drift, camera
+// misalignment, focal-length and target-size errors): each one switched from zero to a chosen
+// severity with the others at the scenario's values, and ranked by the harm it does.
+import type { Scenario } from '../../estimator/sim/Scenario.js';
+import type { PointSummary } from '../../estimator/study/summarize.js';
+import { combineStates } from '../jobs/combineStates.js';
+import type { JobRunner } from '../jobs/JobRunner.js';
+import type { JobState } from '../jobs/JobState.js';
+import type { SweepOutput } from '../jobs/sweepJob.js';
+import { ESTIMATE, SERIES, TRUTH } from '../figures/palette.js';
+import { plotSvg } from '../figures/plot.js';
+import { formatNumber, formatPercent } from '../figures/svg.js';
+import { fromState, HALF, htmlTable, keyNumber, toCsv } from './figureOutput.js';
+import type { Study, StudyCell } from './Study.js';
+
+interface ErrorSource {
+  key: string;
+  label: string;
+  path: string;
+  unit: string;
+  /** The value at "moderate" severity; "severe" doubles it. */
+  moderate: number;
+}
+
+export const ERROR_SOURCES: readonly ErrorSource[] = [
+  { key: 'attitude', label: 'attitude bias', path: 'localization.attitudeBiasDeg', unit: 'deg', moderate: 1.5 },
+  { key: 'odometry', label: 'odometry drift', path: 'localization.odometryDrift', unit: 'm/s/√s', moderate: 0.08 },
+  { key: 'misalignment', label: 'camera misalignment', path: 'localization.misalignmentDeg', unit: 'deg', moderate: 1.5 },
+  { key: 'focal', label: 'focal-length error', path: 'localization.focalError', unit: 'fraction', moderate: 0.05 },
+  { key: 'targetSize', label: 'target-size error', path: 'localization.targetSizeError', unit: 'fraction', moderate: 0.2 },
+];
+
+const SEVERITY: Record<string, number> = { moderate: 1, severe: 2 };
+
+function sweepCell(source: ErrorSource): StudyCell {
+  return {
+    name: `sweep_${source.key}`,
+    inputs: ['jobs', 'scenario', 'seed', 'severity', 'trials'],
+    compute: (jobs: JobRunner, scenario: Scenario, seed: number, severity: string, trials: number) =>
+      jobs.run('sweep', { scenario, seed, trials, vary: [{ path: source.path, values: [0, source.moderate * SEVERITY[severity]!] }] }, source.label),
+  };
+}
+
+const SWEEP_NAMES = ERROR_SOURCES.map((s) => `sweep_${s.key}`);
+
+interface Harm {
+  source: ErrorSource;
+  clean: PointSummary;
+  erred: PointSummary;
+}
+
+function harms(values: readonly (SweepOutput | null)[]): Harm[] {
+  const out: Harm[] = [];
+  values.forEach((v, i) => {
+    const clean = v?.summaries[0];
+    const erred = v?.summaries[1];
+    if (clean && erred) out.push({ source: ERROR_SOURCES[i]!, clean, erred });
+  });
+  return out;
+}
+
+const harmOf = (h: Harm, rankBy: string): number =>
+  rankBy === 'success' ? h.clean.successRate - h.erred.successRate : (h.erred.cep50 ?? NaN) - (h.clean.cep50 ?? NaN);
+
+export const localizationStudy: Study = {
+  id: 'localization',
+  title: 'Localization error',
+  lede: 'The filter trusts the lander’s attitude, odometry and camera model. Which error in them costs the most landings? Each source is turned from zero to the chosen severity while the others keep the scenario’s values.',
+  parameters: [
+    { kind: 'choice', name: 'severity', label: 'Severity of each error', options: [{ value: 'moderate', label: 'moderate' }, { value: 'severe', label: 'severe (twice)' }], default: 'moderate' },
+    { kind: 'number', name: 'trials', label: 'Trials per setting', unit: '', min: 1, max: 40, step: 1, default: 4, integer: true },
+    { kind: 'choice', name: 'rankBy', label: 'Rank by', options: [{ value: 'success', label: 'lost success' }, { value: 'cep50', label: 'added CEP50' }], default: 'success' },
+  ],
+  cells: ERROR_SOURCES.map(sweepCell),
+  figures: [
+    {
+      name: 'ranking',
+      title: 'Which error hurts most',
+      caption: 'Harm of each error source: success lost, or CEP50 added, when it goes from zero to the chosen severity. Longest bar first.',
+      inputs: ['rankBy', ...SWEEP_NAMES],
+      compute: (rankBy: string, ...states: JobState<SweepOutput>[]) =>
+        fromState(combineStates(states), 'trials', (values, partial) => {
+          const list = harms(values).sort((a, b) => (harmOf(b, rankBy) || 0) - (harmOf(a, rankBy) || 0));
+          const rects = list.map((h, i) => {
+            const v = harmOf(h, rankBy);
+            return { x0: Math.min(0, v), x1: Math.max(0, v), y0: list.length - i - 0.8, y1: list.length - i - 0.2, fill: v >= 0 ? SERIES[1] : SERIES[0], title: `${h.source.label}: ${formatNumber(v)}` };
+          });
+          const span = Math.max(0.05, ...list.map((h) => Math.abs(harmOf(h, rankBy)) || 0));
+          const worst = list[0];
+          return {
+            markup: plotSvg({
+              title: 'Harm per error source',
+              ...HALF,
+              x: { label: rankBy === 'success' ? 'success lost (fraction of trials)' : 'CEP50 added (m)', domain: [Math.min(0, -span * 0.1), span * 1.1] },
+              y: { label: '', domain: [0, Math.max(1, list.length)], tickLabels: list.map((h, i) => ({ value: list.length - i - 0.5, label: h.source.label.split(' ')[0]! })) },
+              note: partial ? 'partial results' : undefined,
+              layers: [{ kind: 'rects', rects }, { kind: 'rule', axis: 'x', value: 0, color: SERIES[7], dash: 0 }],
+            }),
+            csv: toCsv(['source', 'path', 'value', 'successClean', 'successErred', 'cep50Clean', 'cep50Erred', 'harm'], list.map((h) => [h.source.key, h.source.path, Number(h.erred.point[h.source.path]), h.clean.successRate, h.erred.successRate, h.clean.cep50, h.erred.cep50, harmOf(h, rankBy)])),
+            numbers: worst ? [keyNumber('worst', 'hurts most', null, worst.source.label), keyNumber('worstHarm', rankBy === 'success' ? 'success lost' : 'CEP50 added (m)', harmOf(worst, rankBy))] : [],
+          };
+        }),
+    },
+    {
+      name: 'successPairs',
+      title: 'Success without and with each error',
+      caption: 'Success rate with Wilson 95 % interval: circle = error at zero, square = at the chosen severity.',
+      inputs: SWEEP_NAMES,
+      compute: (...states: JobState<SweepOutput>[]) =>
+        fromState(combineStates(states), 'trials', (values, partial) => {
+          const list = harms(values);
+          const x0 = list.map((_, i) => i - 0.12);
+          const x1 = list.map((_, i) => i + 0.12);
+          return {
+            markup: plotSvg({
+              title: 'Success without and with each error',
+              ...HALF,
+              x: { label: '', domain: [-0.6, ERROR_SOURCES.length - 0.4], tickLabels: ERROR_SOURCES.map((s, i) => ({ value: i, label: s.label.split(' ')[0]! })) },
+              y: { label: 'landed', domain: [0, 1], format: (v) => `${Math.round(v * 100)} %` },
+              note: partial ? 'partial results' : undefined,
+              layers: [
+                { kind: 'errorbars', x: x0, low: list.map((h) => h.clean.wilsonLow), high: list.map((h) => h.clean.wilsonHigh), color: TRUTH },
+                { kind: 'points', x: x0, y: list.map((h) => h.clean.successRate), color: TRUTH, label: 'error at zero' },
+                { kind: 'errorbars', x: x1, low: list.map((h) => h.erred.wilsonLow), high: list.map((h) => h.erred.wilsonHigh), color: ESTIMATE },
+                { kind: 'points', x: x1, y: list.map((h) => h.erred.successRate), color: ESTIMATE, shape: 'square', label: 'error on' },
+              ],
+            }),
+            csv: toCsv(['source', 'successClean', 'wilsonLowClean', 'wilsonHighClean', 'successErred', 'wilsonLowErred', 'wilsonHighErred'], list.map((h) => [h.source.key, h.clean.successRate, h.clean.wilsonLow, h.clean.wilsonHigh, h.erred.successRate, h.erred.wilsonLow, h.erred.wilsonHigh])),
+            numbers: list[0] ? [keyNumber('successClean0', `success, ${list[0].source.label} at zero`, list[0].clean.successRate, formatPercent(list[0].clean.successRate))] : [],
+          };
+        }),
+    },
+    {
+      name: 'table',
+      title: 'Every setting',
+      caption: 'Outcome counts, miss and consistency per error source and level.',
+      wide: true,
+      inputs: SWEEP_NAMES,
+      compute: (...states: JobState<SweepOutput>[]) =>
+        fromState(combineStates(states), 'trials', (values) => {
+          const rows: string[][] = [];
+          const csv: (string | number | null)[][] = [];
+          for (const h of harms(values)) {
+            for (const p of [h.clean, h.erred]) {
+              const v = Number(p.point[h.source.path]);
+              rows.push([h.source.label, `${v} ${h.source.unit}`, `${p.landed} / ${p.trials}`, formatPercent(p.wilsonLow), formatNumber(p.cep50), formatNumber(p.neesMean), formatNumber(p.positionRmse)]);
+              csv.push([h.source.path, v, p.trials, p.landed, p.wilsonLow, p.wilsonHigh, p.cep50, p.neesMean, p.positionRmse]);
+            }
+          }
+          return {
+            kind: 'table',
+            markup: htmlTable(['source', 'value', 'landed', 'Wilson low', 'CEP50 (m)', 'NEES mean', 'RMSE (m)'], rows),
+            csv: toCsv(['path', 'value', 'trials', 'landed', 'wilsonLow', 'wilsonHigh', 'cep50', 'neesMean', 'positionRmse'], csv),
+          };
+        }),
+    },
+  ],
+  blocks: [
+    { prose: 'Five small sweeps run side by side in background workers. Switching the ranking between lost success and added miss only redraws the ranking; it reruns no trial.' },
+    { figure: 'ranking' },
+    { figure: 'successPairs' },
+    { prose: 'Errors the filter does not model turn into biased estimates: the NEES column rises above its dimension when the filter is over-confident about a wrong camera or attitude.' },
+    { figure: 'table' },
+  ],
+};

@@ -1,0 +1,62 @@
+// `alight report <analysis.json> --out report.html`: renders a study headlessly into one
+// self-contained HTML file with the numbers the notebook page shows for the same analysis.
+import { readFileSync, writeFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { AnalysisError } from '../../notebooks/analysis/Analysis.js';
+import { parseAnalysis } from '../../notebooks/analysis/parseAnalysis.js';
+import { InlineJobRunner } from '../../notebooks/jobs/InlineJobRunner.js';
+import { renderReport } from '../../notebooks/report/renderReport.js';
+import { settleFigures } from '../../notebooks/runtime/mountStudy.js';
+import { studyById } from '../../notebooks/studies/studies.js';
+import { logSourceFromFolder } from '../io/log/logSourceFromFolder.node.js';
+import { CliError } from './CliError.js';
+import type { Command } from './Command.js';
+import { formatHelp, parseArgs, type OptionSpec } from './parseArgs.js';
+
+const OPTIONS: OptionSpec[] = [
+  { name: 'out', kind: 'value', valueName: 'FILE', help: 'HTML file to write (default: the analysis file name with .html)' },
+  { name: 'help', kind: 'flag', help: 'show this help' },
+];
+const USAGE = 'alight report <analysis.json> [--out report.html]';
+const PURPOSE = 'Render a study analysis (saved from the notebook page) into one self-contained HTML report.';
+
+export const reportCommand: Command = {
+  name: 'report',
+  purpose: 'render a study analysis file into a self-contained HTML report',
+  async run(argv, io) {
+    const parsed = parseArgs('report', argv, OPTIONS);
+    if (parsed.flags.has('help')) {
+      io.stdout(formatHelp(USAGE, PURPOSE, OPTIONS));
+      return 0;
+    }
+    if (parsed.positional.length !== 1) throw new CliError(`alight report: expected one analysis file\nusage: ${USAGE}`);
+    const file = resolve(io.cwd, parsed.positional[0]!);
+    const out = resolve(io.cwd, parsed.values.get('out') ?? file.replace(/\.json$/i, '') + '.html');
+    let text: string;
+    try {
+      text = readFileSync(file, 'utf8');
+    } catch (error) {
+      throw new CliError(`alight report: cannot read ${parsed.positional[0]}: ${(error as Error).message}`);
+    }
+    let analysis;
+    try {
+      analysis = parseAnalysis(text, parsed.positional[0]!, (id) => studyById(id).parameters);
+    } catch (error) {
+      if (error instanceof AnalysisError) throw new CliError(error.problems.join('\n'));
+      throw error;
+    }
+    const study = studyById(analysis.study);
+    const runner = new InlineJobRunner({ openLogFolder: (path) => logSourceFromFolder(resolve(io.cwd, path)) });
+    let figures;
+    try {
+      figures = await settleFigures(study, analysis, runner);
+    } catch (error) {
+      throw new CliError(`alight report: ${parsed.positional[0]}: ${(error as Error).message}`, 1);
+    }
+    const failed = study.figures.map((f) => [f.name, figures.get(f.name)?.failure] as const).filter(([, failure]) => failure !== undefined);
+    if (failed.length > 0) throw new CliError(failed.map(([name, failure]) => `alight report: ${parsed.positional[0]}: figure "${name}" failed: ${failure}`).join('\n'), 1);
+    writeFileSync(out, renderReport(study, analysis, figures));
+    io.stdout(`alight report: wrote ${out}\n`);
+    return 0;
+  },
+};

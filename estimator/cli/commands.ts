@@ -1,4 +1,11 @@
 // The command list: one import and one entry per command, in the order --help shows them.
 import type { Command } from './Command.js';
+import { mergeCommand } from './mergeCommand.js';
+import { summarizeCommand } from './summarizeCommand.js';
+import { trialsCommand } from './trialsCommand.js';
 
-export const commands: Command[] = [];
+export const commands: Command[] = [
+  mergeCommand,
+  summarizeCommand,
+  trialsCommand,
+];

@@ -1,0 +1,96 @@
+// `alight require`: the largest impairment at which landing success, by its lower Wilson bound,
+// still meets a target (bisection with adaptive trial counts).
+import { writeFileSync } from 'node:fs';
+import { getPath } from '../io/scenarioPath.js';
+import { successFigure } from '../study/figures/successFigure.js';
+import { findRequirement } from '../study/findRequirement.js';
+import { plausibleRange } from '../study/plausibleRanges.js';
+import { runBatch } from '../study/runBatch.js';
+import { CliError } from './CliError.js';
+import type { Command } from './Command.js';
+import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { createExecutor, loadScenarioOrFail, workerCount } from './studyRunner.js';
+import { asCliError, resolvePath, SAFETY_NOTE, WORKERS_OPTION } from './studyCli.js';
+
+const USAGE = 'alight require <scenario.json> --param PATH --target RATE [--from V] [--to V] [--trials MAX]';
+const PURPOSE = 'Find the largest impairment at which the lower Wilson 95 % bound of landing success stays at or above\nthe target: bisection between --from (good) and --to (bad), each probe adding trials in doubling batches\nuntil the verdict is clear. Assumes success falls steadily from --from to --to.';
+const OPTIONS: OptionSpec[] = [
+  { name: 'param', kind: 'value', valueName: 'PATH', help: 'dotted scenario path of the impairment, e.g. detector.latency (required)' },
+  { name: 'target', kind: 'value', valueName: 'RATE', help: 'required success rate, e.g. 0.95 (required)' },
+  { name: 'from', kind: 'value', valueName: 'V', help: 'good end of the range (default: the plausible good end, else the scenario value)' },
+  { name: 'to', kind: 'value', valueName: 'V', help: 'bad end of the range (default: the plausible bad end of known impairments)' },
+  { name: 'trials', kind: 'value', valueName: 'MAX', help: 'most trials at one probe (default 400)' },
+  { name: 'first-batch', kind: 'value', valueName: 'N', help: 'trials in the first batch of each probe (default 25)' },
+  { name: 'steps', kind: 'value', valueName: 'N', help: 'bisection steps (default 6: resolution = range / 64)' },
+  { name: 'seed', kind: 'value', valueName: 'S', help: 'master seed (default: the scenario\'s seed)' },
+  WORKERS_OPTION,
+  { name: 'svg', kind: 'value', valueName: 'FILE', help: 'figure: success at every probe with Wilson band and the target' },
+  { name: 'json', kind: 'flag', help: 'print JSON' },
+  { name: 'help', kind: 'flag', help: 'show this help' },
+];
+
+export const requireCommand: Command = {
+  name: 'require',
+  purpose: 'largest impairment that still meets a landing-success target (lower Wilson bound)',
+  async run(argv, io) {
+    const parsed = parseArgs('require', argv, OPTIONS);
+    if (parsed.flags.has('help')) {
+      io.stdout(formatHelp(USAGE, PURPOSE, OPTIONS));
+      return 0;
+    }
+    if (parsed.positional.length !== 1) throw new CliError(`alight require: give one scenario file (usage: ${USAGE})`);
+    const scenario = loadScenarioOrFail(parsed.positional[0], 'require', io.cwd);
+    const path = parsed.values.get('param');
+    if (!path) throw new CliError('alight require: --param PATH is required');
+    if (!parsed.values.has('target')) throw new CliError('alight require: --target RATE is required');
+    const target = numberOption('require', parsed, 'target', 0.95, (v) => v > 0 && v < 1, 'a rate between 0 and 1');
+    let current: unknown;
+    try {
+      current = getPath(scenario, path);
+    } catch (error) {
+      return asCliError('require', error);
+    }
+    if (typeof current !== 'number') throw new CliError(`alight require: --param ${path} is not a number in the scenario`);
+    const known = plausibleRange(path);
+    const from = numberOption('require', parsed, 'from', known?.from ?? current);
+    if (!parsed.values.has('to') && !known) throw new CliError(`alight require: give --to V for ${path} (no plausible range is built in)`);
+    const to = numberOption('require', parsed, 'to', known?.to ?? 0);
+    const maxTrials = numberOption('require', parsed, 'trials', 400, (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
+    const firstBatch = numberOption('require', parsed, 'first-batch', 25, (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
+    const steps = numberOption('require', parsed, 'steps', 6, (v) => Number.isInteger(v) && v >= 0 && v <= 30, 'an integer 0..30');
+    const seed = numberOption('require', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
+    const executor = createExecutor(workerCount('require', parsed));
+    const json = parsed.flags.has('json');
+    try {
+      const result = await findRequirement({
+        from, to, target, maxTrials, firstBatch, steps,
+        landedCount: async (value, probe, trialStart, trialEnd) => {
+          // Probe k uses key point k: every probe draws fresh, reproducible streams.
+          const [records] = await runBatch(executor, { scenario, seed, points: [{ [path]: value }], pointOffset: probe, trialStart, trialEnd });
+          return records!.filter((r) => r.outcome === 'landed').length;
+        },
+        onProbe: (p) => {
+          if (!json) io.stderr(`  ${path} = ${p.value}: ${p.landed}/${p.trials} landed, Wilson 95 % ${p.wilsonLow.toFixed(3)}-${p.wilsonHigh.toFixed(3)} -> ${p.pass ? 'meets' : 'misses'} ${target}\n`);
+        },
+      });
+      const svg = parsed.values.get('svg');
+      if (svg) {
+        writeFileSync(resolvePath(io.cwd, svg), successFigure(result.probes.map((p) => ({ x: p.value, rate: p.landed / p.trials, low: p.wilsonLow, high: p.wilsonHigh, trials: p.trials })), { xLabel: path, target, title: `Requirement on ${path}: success >= ${target}` }));
+      }
+      if (json) io.stdout(JSON.stringify({ param: path, target, from, to, ...result }, null, 1) + '\n');
+      else {
+        const answer = result.value === null
+          ? `${path}: even ${from} misses the target ${target} (lower Wilson bound below it).`
+          : result.failsAt === null
+            ? `${path}: the whole range ${from} .. ${to} meets the target ${target}.`
+            : `${path} <= ${result.value} keeps the lower Wilson 95 % bound of success >= ${target} (fails at ${result.failsAt}).`;
+        io.stdout(`${answer}\n${result.probes.reduce((n, p) => n + p.trials, 0)} trials in ${result.probes.length} probes.\n${SAFETY_NOTE}\n`);
+      }
+      return 0;
+    } catch (error) {
+      return asCliError('require', error);
+    } finally {
+      await executor.close();
+    }
+  },
+};

@@ -1,0 +1,77 @@
+// `alight sensitivity`: rank impairments by the landing success they cost over their plausible
+// range, one at a time around the scenario, with 95 % intervals.
+import { getPath } from '../io/scenarioPath.js';
+import { PLAUSIBLE_RANGES, type PlausibleRange } from '../study/plausibleRanges.js';
+import { rankSensitivity } from '../study/rankSensitivity.js';
+import { runBatch } from '../study/runBatch.js';
+import { parseVary } from '../study/sweepDesign.js';
+import { CliError } from './CliError.js';
+import type { Command } from './Command.js';
+import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { createExecutor, loadScenarioOrFail, progressBar, workerCount } from './studyRunner.js';
+import { asCliError, SAFETY_NOTE, WORKERS_OPTION } from './studyCli.js';
+
+const USAGE = 'alight sensitivity <scenario.json> [--vary PATH=GOOD:BAD ...] [--trials N]';
+const PURPOSE = 'One impairment at a time, everything else as in the scenario: run N trials at the good and at the bad end\nof each plausible range and rank the impairments by the landing success lost, with Newcombe 95 % intervals.';
+const OPTIONS: OptionSpec[] = [
+  { name: 'vary', kind: 'list', valueName: 'PATH=GOOD:BAD', help: 'impairment and its plausible range (default: the built-in list)' },
+  { name: 'trials', kind: 'value', valueName: 'N', help: 'trials at each end of each range (default 100)' },
+  { name: 'seed', kind: 'value', valueName: 'S', help: 'master seed (default: the scenario\'s seed)' },
+  WORKERS_OPTION,
+  { name: 'json', kind: 'flag', help: 'print JSON' },
+  { name: 'help', kind: 'flag', help: 'show this help' },
+];
+
+function factorFrom(text: string): PlausibleRange {
+  const m = /^([^=]+)=([^:]+):([^:]+)$/.exec(text);
+  if (!m) {
+    parseVary(text); // throws the shared, precise message for other malformed forms
+    throw new CliError(`alight sensitivity: --vary "${text}": expected PATH=GOOD:BAD`);
+  }
+  const from = Number(m[2]), to = Number(m[3]);
+  if (!Number.isFinite(from) || !Number.isFinite(to) || from === to) throw new CliError(`alight sensitivity: --vary "${text}": GOOD and BAD must be two different numbers`);
+  return { path: m[1]!.trim(), from, to };
+}
+
+export const sensitivityCommand: Command = {
+  name: 'sensitivity',
+  purpose: 'rank impairments by the landing success they cost over their plausible range',
+  async run(argv, io) {
+    const parsed = parseArgs('sensitivity', argv, OPTIONS);
+    if (parsed.flags.has('help')) {
+      io.stdout(formatHelp(USAGE, PURPOSE, OPTIONS) + `\nbuilt-in ranges (good:bad):\n${PLAUSIBLE_RANGES.map((r) => `  ${r.path}=${r.from}:${r.to}`).join('\n')}\n`);
+      return 0;
+    }
+    if (parsed.positional.length !== 1) throw new CliError(`alight sensitivity: give one scenario file (usage: ${USAGE})`);
+    const scenario = loadScenarioOrFail(parsed.positional[0], 'sensitivity', io.cwd);
+    const trials = numberOption('sensitivity', parsed, 'trials', 100, (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
+    const seed = numberOption('sensitivity', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
+    const given = parsed.lists.get('vary');
+    const factors = given ? given.map(factorFrom) : PLAUSIBLE_RANGES.slice();
+    const executor = createExecutor(workerCount('sensitivity', parsed));
+    const progress = progressBar(io, 'sensitivity');
+    try {
+      for (const f of factors) getPath(scenario, f.path); // unknown paths fail before any trial runs
+      const points = factors.flatMap((f) => [{ [f.path]: f.from }, { [f.path]: f.to }]);
+      let done = 0;
+      const total = points.length * trials;
+      const records = await runBatch(executor, { scenario, seed, points, trialStart: 0, trialEnd: trials }, () => progress.update(++done, total));
+      progress.stop();
+      const landed = (i: number): [number, number] => [records[i]!.filter((r) => r.outcome === 'landed').length, records[i]!.length];
+      const rows = rankSensitivity(factors, factors.map((_, i) => ({ good: landed(2 * i), bad: landed(2 * i + 1) })));
+      if (parsed.flags.has('json')) io.stdout(JSON.stringify(rows, null, 1) + '\n');
+      else {
+        const pct = (v: number) => `${(100 * v).toFixed(1)}`;
+        const head = 'impairment (good -> bad)'.padEnd(48) + 'success good -> bad'.padEnd(22) + 'lost (95 % interval)';
+        const body = rows.map((r) => `${`${r.path} ${r.good.value} -> ${r.bad.value}`.padEnd(48)}${`${pct(r.good.rate)} % -> ${pct(r.bad.rate)} %`.padEnd(22)}${pct(r.loss)} pts (${pct(r.lossLow)} .. ${pct(r.lossHigh)})`);
+        io.stdout([head, ...body].join('\n') + `\n${trials} trials at each end; one impairment at a time around ${scenario.name}.\n${SAFETY_NOTE}\n`);
+      }
+      return 0;
+    } catch (error) {
+      progress.stop();
+      return asCliError('sensitivity', error);
+    } finally {
+      await executor.close();
+    }
+  },
+};

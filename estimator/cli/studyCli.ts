@@ -1,0 +1,25 @@
+// Light helpers shared by the study commands: error translation, the flight-safety note,
+// paths relative to the working directory. Imports no simulation code.
+import { ScenarioError } from '../io/ScenarioError.js';
+import { CliError } from './CliError.js';
+import type { OptionSpec } from './parseArgs.js';
+
+export const SAFETY_NOTE = 'Simulation results clear nothing for flight: fly under local aviation rules and licensed practice, with a safety pilot, geofence and kill switch.';
+
+export const WORKERS_OPTION: OptionSpec = { name: 'workers', kind: 'value', valueName: 'K', help: 'worker threads (default: one per core; 1 = run in this thread)' };
+
+const STUDY_ERRORS = new Set(['SweepError', 'TrialError', 'DesignError', 'ShardError', 'ResultsError', 'MergeError', 'SummaryError', 'SearchError', 'RequirementError', 'SensitivityError']);
+
+/** Library errors are bad input or a failed study: message without stack, exit 2. */
+export function asCliError(command: string, error: unknown): never {
+  if (error instanceof CliError) throw error;
+  if (error instanceof ScenarioError) throw new CliError(error.problems.join('\n'));
+  if (error instanceof Error && STUDY_ERRORS.has(error.name)) {
+    throw new CliError(`alight ${command}: ${error.message}`);
+  }
+  throw error;
+}
+
+export function resolvePath(cwd: string, path: string): string {
+  return path.startsWith('/') ? path : `${cwd}/${path}`;
+}

@@ -1,0 +1,81 @@
+// `alight sweep`: run a Monte Carlo sweep over scenario paths into a JSON Lines results file.
+import { runSweep } from '../study/runSweep.node.js';
+import { resolveShard } from '../study/shard.js';
+import { DESIGN_KINDS, parseVary, type DesignKind } from '../study/sweepDesign.js';
+import { CliError } from './CliError.js';
+import type { Command } from './Command.js';
+import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { createExecutor, loadScenarioOrFail, progressBar, workerCount } from './studyRunner.js';
+import { asCliError, resolvePath, WORKERS_OPTION } from './studyCli.js';
+
+const USAGE = 'alight sweep <scenario.json> --vary PATH=FROM:TO:COUNT [--vary ...] --trials N --out results.jsonl [options]';
+const PURPOSE = 'Monte Carlo sweep: run N trials at each point of a grid, random or Latin-hypercube design over scenario paths.';
+const OPTIONS: OptionSpec[] = [
+  { name: 'vary', kind: 'list', valueName: 'PATH=FROM:TO:COUNT', help: 'vary a dotted scenario path over COUNT even steps, or PATH=A,B,C' },
+  { name: 'design', kind: 'value', valueName: 'grid|random|lhs', help: 'grid (all combinations, default), random or lhs (Latin hypercube)' },
+  { name: 'points', kind: 'value', valueName: 'M', help: 'points of a random/lhs design (default: the largest COUNT)' },
+  { name: 'trials', kind: 'value', valueName: 'N', help: 'trials per sweep point (required)' },
+  WORKERS_OPTION,
+  { name: 'seed', kind: 'value', valueName: 'S', help: 'master seed (default: the scenario\'s seed); trial streams derive from (seed, point, trial)' },
+  { name: 'out', kind: 'value', valueName: 'FILE', help: 'results file, JSON Lines (required); {shard} is replaced by the shard number' },
+  { name: 'resume', kind: 'flag', help: 'continue an interrupted results file: trials already written are kept' },
+  { name: 'shard', kind: 'value', valueName: 'I/N', help: 'run only shard I of N (also from SLURM_ARRAY_TASK_ID or JOB_COMPLETION_INDEX)' },
+  { name: 'shard-count', kind: 'value', valueName: 'N', help: 'shard count when the index comes from the batch scheduler' },
+  { name: 'help', kind: 'flag', help: 'show this help' },
+];
+
+const HELP_NOTES = `
+Shards: with --shard I/N (1 <= I <= N) this process runs the trials whose index point*trials+trial
+is I-1 modulo N. Without --shard: SLURM_ARRAY_TASK_ID gives I = ID - SLURM_ARRAY_TASK_MIN + 1 and
+N = --shard-count or SLURM_ARRAY_TASK_COUNT; JOB_COMPLETION_INDEX (Kubernetes indexed job) gives
+I = index + 1 with N = --shard-count. Join the shard files with alight merge.
+`;
+
+export const sweepCommand: Command = {
+  name: 'sweep',
+  purpose: 'run a Monte Carlo sweep over scenario values into a JSON Lines results file',
+  async run(argv, io) {
+    const parsed = parseArgs('sweep', argv, OPTIONS);
+    if (parsed.flags.has('help')) {
+      io.stdout(formatHelp(USAGE, PURPOSE, OPTIONS) + HELP_NOTES);
+      return 0;
+    }
+    if (parsed.positional.length !== 1) throw new CliError(`alight sweep: give exactly one scenario file (usage: ${USAGE})`);
+    const scenario = loadScenarioOrFail(parsed.positional[0], 'sweep', io.cwd);
+    const trialsText = parsed.values.get('trials');
+    if (trialsText === undefined) throw new CliError('alight sweep: --trials N is required');
+    const trials = numberOption('sweep', parsed, 'trials', 0, (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
+    const outText = parsed.values.get('out');
+    if (!outText) throw new CliError('alight sweep: --out FILE is required');
+    const design = (parsed.values.get('design') ?? 'grid') as DesignKind;
+    if (!DESIGN_KINDS.includes(design)) throw new CliError(`alight sweep: --design expects grid, random or lhs, got "${design}"`);
+    const seed = numberOption('sweep', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
+    const points = parsed.values.has('points') ? numberOption('sweep', parsed, 'points', 1, (v) => Number.isInteger(v) && v >= 1, 'a positive integer') : undefined;
+    const shardCount = parsed.values.has('shard-count') ? numberOption('sweep', parsed, 'shard-count', 1, (v) => Number.isInteger(v) && v >= 1, 'a positive integer') : undefined;
+    const workers = workerCount('sweep', parsed);
+    let executor;
+    const progress = progressBar(io, 'sweep');
+    try {
+      const vary = (parsed.lists.get('vary') ?? []).map(parseVary);
+      const shard = resolveShard(parsed.values.get('shard'), shardCount, io.env);
+      const out = resolvePath(io.cwd, shard ? outText.replaceAll('{shard}', String(shard.index)) : outText);
+      executor = createExecutor(workers);
+      const result = await runSweep({
+        scenario, vary, design, points, trials, seed, out, shard, executor,
+        resume: parsed.flags.has('resume'),
+        onProgress: (done, total) => progress.update(done, total),
+        onNote: (note) => io.stderr(`alight sweep: ${note}\n`),
+      });
+      progress.stop();
+      const shardText = shard ? ` (shard ${shard.index}/${shard.count})` : '';
+      io.stdout(`${result.header.points.length} points x ${trials} trials${shardText}: ran ${result.ran}, kept ${result.resumed} already written -> ${out}\n` +
+        `next: alight summarize ${outText.includes('{shard}') ? '<merged file>' : outText}\n`);
+      return 0;
+    } catch (error) {
+      progress.stop();
+      return asCliError('sweep', error);
+    } finally {
+      await executor?.close();
+    }
+  },
+};

@@ -1,0 +1,129 @@
+// `alight tune`: search the filter's Q, R and gate multipliers (log scale, grid then Nelder–Mead)
+// on simulated trials; a directory argument tunes on flight logs instead (REPLAY's tuneLog).
+import { statSync, writeFileSync } from 'node:fs';
+import type { Scenario } from '../sim/Scenario.js';
+import { heatMapFigure } from '../study/figures/heatMapFigure.js';
+import { runBatch } from '../study/runBatch.js';
+import { searchMultipliers, type Multipliers, type SurfaceSample } from '../study/search.js';
+import { summarizeGroup, type PointSummary } from '../study/summarize.js';
+import { tuningCost } from '../study/tuningCost.js';
+import { CliError } from './CliError.js';
+import type { Command } from './Command.js';
+import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { createExecutor, loadScenarioOrFail, workerCount } from './studyRunner.js';
+import { asCliError, resolvePath, SAFETY_NOTE, WORKERS_OPTION } from './studyCli.js';
+
+const USAGE = 'alight tune <scenario.json | log-folder> [--trials N] [--grid G] [--refine E] [--surface FILE] [--svg FILE]';
+const PURPOSE = 'Search the filter multipliers filter.qScale, filter.rScale and filter.gateScale on a log-spaced grid, then\nrefine with Nelder–Mead. Cost = (1 - landing success) + w·|ln(ANEES / n)|, lower is better; every setting\nruns the same trials (same random streams), so differences come from the settings, not from luck.';
+const OPTIONS: OptionSpec[] = [
+  { name: 'trials', kind: 'value', valueName: 'N', help: 'trials per setting (default 16)' },
+  { name: 'grid', kind: 'value', valueName: 'G', help: 'grid points per multiplier (default 4)' },
+  { name: 'refine', kind: 'value', valueName: 'E', help: 'Nelder–Mead evaluations after the grid (default 20; 0 = grid only)' },
+  { name: 'q', kind: 'value', valueName: 'LO:HI', help: 'qScale range (default 0.1:10)' },
+  { name: 'r', kind: 'value', valueName: 'LO:HI', help: 'rScale range (default 0.1:10)' },
+  { name: 'gate', kind: 'value', valueName: 'LO:HI', help: 'gateScale range (default 0.5:4; LO = HI fixes it)' },
+  { name: 'nees-weight', kind: 'value', valueName: 'W', help: 'weight of NEES consistency against landing success (default 0.25)' },
+  { name: 'seed', kind: 'value', valueName: 'S', help: 'master seed (default: the scenario\'s seed)' },
+  WORKERS_OPTION,
+  { name: 'surface', kind: 'value', valueName: 'FILE', help: 'write every evaluated setting (.csv for CSV, else JSON)' },
+  { name: 'svg', kind: 'value', valueName: 'FILE', help: 'heat map of the cost over qScale and rScale at the best grid gate' },
+  { name: 'json', kind: 'flag', help: 'print JSON' },
+  { name: 'help', kind: 'flag', help: 'show this help' },
+];
+
+function range(parsed: ReturnType<typeof parseArgs>, name: string): [number, number] | undefined {
+  const text = parsed.values.get(name);
+  if (text === undefined) return undefined;
+  const [lo, hi] = text.split(':').map(Number);
+  if (!(lo! > 0 && hi! >= lo! && Number.isFinite(hi))) throw new CliError(`alight tune: --${name} expects LO:HI with 0 < LO <= HI, got "${text}"`);
+  return [lo!, hi!];
+}
+
+function isDirectory(path: string): boolean {
+  try {
+    return statSync(path).isDirectory();
+  } catch {
+    return false;
+  }
+}
+
+interface Row extends SurfaceSample {
+  successRate: number;
+  neesMean: number | null;
+}
+
+export const tuneCommand: Command = {
+  name: 'tune',
+  purpose: 'search Q, R and gate multipliers for consistency (NEES) and landing success',
+  async run(argv, io) {
+    const parsed = parseArgs('tune', argv, OPTIONS);
+    if (parsed.flags.has('help')) {
+      io.stdout(formatHelp(USAGE, PURPOSE, OPTIONS));
+      return 0;
+    }
+    if (parsed.positional.length !== 1) throw new CliError(`alight tune: give one scenario file or flight-log folder (usage: ${USAGE})`);
+    const target = parsed.positional[0]!;
+    if (isDirectory(resolvePath(io.cwd, target))) {
+      throw new CliError(`alight tune: ${target} is a folder: tuning on flight logs is not available in this build yet (needs estimator/io/log/tuneLog.ts)`);
+    }
+    const scenario: Scenario = loadScenarioOrFail(target, 'tune', io.cwd);
+    const trials = numberOption('tune', parsed, 'trials', 16, (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
+    const grid = numberOption('tune', parsed, 'grid', 4, (v) => Number.isInteger(v) && v >= 1 && v <= 20, 'an integer 1..20');
+    const refine = numberOption('tune', parsed, 'refine', 20, (v) => Number.isInteger(v) && v >= 0, 'a non-negative integer');
+    const weight = numberOption('tune', parsed, 'nees-weight', 0.25, (v) => v >= 0, 'a non-negative number');
+    const seed = numberOption('tune', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
+    const json = parsed.flags.has('json');
+    const executor = createExecutor(workerCount('tune', parsed));
+    const details = new Map<string, PointSummary>();
+    try {
+      const result = await searchMultipliers(async (m: Multipliers) => {
+        const params = { 'filter.qScale': m.q, 'filter.rScale': m.r, 'filter.gateScale': m.gate };
+        // Key point 0 for every setting: common random numbers across the surface.
+        const [records] = await runBatch(executor, { scenario, seed, points: [params], trialStart: 0, trialEnd: trials });
+        const summary = summarizeGroup(params, records!);
+        details.set(`${m.q},${m.r},${m.gate}`, summary);
+        return tuningCost(summary, weight);
+      }, {
+        q: range(parsed, 'q'), r: range(parsed, 'r'), gate: range(parsed, 'gate'), grid, refine,
+        onSample: (s, n) => {
+          if (!json && io.interactive) io.stderr(`  ${n}: q ${s.q} r ${s.r} gate ${s.gate} -> cost ${s.score.toFixed(4)}\n`);
+        },
+      });
+      const rows: Row[] = result.surface.map((s) => {
+        const d = details.get(`${s.q},${s.r},${s.gate}`)!;
+        return { ...s, successRate: d.successRate, neesMean: d.neesMean };
+      });
+      const best = details.get(`${result.best.q},${result.best.r},${result.best.gate}`)!;
+      const surfaceFile = parsed.values.get('surface');
+      if (surfaceFile) {
+        const text = surfaceFile.endsWith('.csv')
+          ? ['qScale,rScale,gateScale,cost,stage,successRate,neesMean', ...rows.map((r) => [r.q, r.r, r.gate, r.score, r.stage, r.successRate, r.neesMean ?? ''].join(','))].join('\n') + '\n'
+          : JSON.stringify(rows, null, 1) + '\n';
+        writeFileSync(resolvePath(io.cwd, surfaceFile), text);
+      }
+      const svg = parsed.values.get('svg');
+      if (svg) {
+        const gridRows = rows.filter((r) => r.stage === 'grid');
+        const gates = [...new Set(gridRows.map((r) => r.gate))];
+        const gate = gates.reduce((a, b) => (Math.abs(Math.log(b / result.best.gate)) < Math.abs(Math.log(a / result.best.gate)) ? b : a));
+        const cells = gridRows.filter((r) => r.gate === gate).map((r) => ({ x: r.q, y: r.r, value: r.score }));
+        writeFileSync(resolvePath(io.cwd, svg), heatMapFigure(cells, { xLabel: 'filter.qScale', yLabel: 'filter.rScale', valueLabel: 'cost (lower is better)', lowerIsBetter: true, best: { x: result.best.q, y: result.best.r }, title: `Tuning cost at gateScale ${gate}` }));
+      }
+      const recommended = { 'filter.qScale': result.best.q, 'filter.rScale': result.best.r, 'filter.gateScale': result.best.gate };
+      if (json) io.stdout(JSON.stringify({ recommended, cost: result.best.score, successRate: best.successRate, wilsonLow: best.wilsonLow, wilsonHigh: best.wilsonHigh, neesMean: best.neesMean, neesDim: best.neesDim, neesVerdict: best.neesVerdict, evaluations: rows.length, trialsPerSetting: trials }, null, 1) + '\n');
+      else {
+        io.stdout(
+          `recommended: qScale ${result.best.q}  rScale ${result.best.r}  gateScale ${result.best.gate}\n` +
+          `  landing success ${(100 * best.successRate).toFixed(1)} % (Wilson 95 % ${(100 * best.wilsonLow).toFixed(1)}-${(100 * best.wilsonHigh).toFixed(1)} %), ` +
+          `ANEES ${best.neesMean?.toFixed(2) ?? '-'} for n = ${best.neesDim ?? '-'} (${best.neesVerdict ?? 'no NEES'}), cost ${result.best.score.toFixed(4)}\n` +
+          `  ${rows.length} settings x ${trials} trials; put these in the scenario's filter section.\n${SAFETY_NOTE}\n`,
+        );
+      }
+      return 0;
+    } catch (error) {
+      return asCliError('tune', error);
+    } finally {
+      await executor.close();
+    }
+  },
+};

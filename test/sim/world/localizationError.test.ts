@@ -1,0 +1,99 @@
+import { describe, expect, it } from 'vitest';
+import { eulerDegFromQuat } from '../../../estimator/frames/quatFromEulerDeg.js';
+import { quatConjugate, quatMultiply } from '../../../estimator/frames/quaternion.js';
+import { RandomStream } from '../../../estimator/random/RandomStream.js';
+import type { CameraSpec, LocalizationSpec } from '../../../estimator/sim/Scenario.js';
+import { LocalizationError } from '../../../estimator/sim/world/localizationError.js';
+import { expectClose } from '../../helpers/expectClose.js';
+
+const perfect: LocalizationSpec = {
+  attitudeBiasDeg: 0, attitudeNoiseDeg: 0, odometryRate: 10, odometryBias: 0, odometryNoise: 0, odometryDrift: 0,
+  imuRate: 200, accelNoise: 0, accelBias: 0, misalignmentDeg: 0, focalError: 0, targetSizeError: 0, clockOffset: 0,
+};
+const make = (spec: Partial<LocalizationSpec>, seed = 1) => new LocalizationError({ ...perfect, ...spec }, RandomStream.fromKey([seed, 0, 0, 9]));
+const qTrue = Float64Array.of(Math.cos(0.3), 0.1, -0.2, Math.sin(0.3));
+{
+  const n = Math.hypot(...qTrue);
+  for (let i = 0; i < 4; i++) qTrue[i]! /= n;
+}
+
+/** ZYX angles (deg) of conj(q_true) (x) q_est: the body-frame attitude error. */
+function errorDeg(qEst: Float64Array): number[] {
+  return Array.from(eulerDegFromQuat(quatMultiply(quatConjugate(qTrue), qEst)));
+}
+
+describe('LocalizationError', () => {
+  it('attitude() with bias only is q_true rotated by the bias about each body axis', () => {
+    const est = make({ attitudeBiasDeg: 2 }).attitude(qTrue, new Float64Array(4));
+    const e = errorDeg(est);
+    for (let k = 0; k < 3; k++) expectClose(e[k]!, 2, { abs: 1e-9 }, `axis ${k}`); // rounding through two products
+  });
+
+  it('attitude() noise has the configured sd per axis (10 000 seeded samples)', () => {
+    const loc = make({ attitudeNoiseDeg: 0.5 });
+    const out = new Float64Array(4);
+    const N = 10_000;
+    const sum2 = [0, 0, 0];
+    for (let i = 0; i < N; i++) {
+      const e = errorDeg(loc.attitude(qTrue, out));
+      for (let k = 0; k < 3; k++) sum2[k]! += e[k]! ** 2;
+    }
+    // sd of a sample sd sigma/sqrt(2N) = 0.7 %; 4 % covers it and the small-angle ZYX coupling (~1e-4)
+    for (let k = 0; k < 3; k++) expectClose(Math.sqrt(sum2[k]! / N), 0.5, { rel: 0.04 }, `axis ${k}`);
+  });
+
+  it('odometry() adds the bias, whose random walk grows as drift^2 t (increment variance)', () => {
+    const loc = make({ odometryBias: 0.1, odometryDrift: 0.05 });
+    const out = new Float64Array(3);
+    const v = [1, -2, 0.5];
+    loc.odometry(0, v, out);
+    expectClose(out[0]! - v[0]!, 0.1, { abs: 1e-15 }, 'initial bias'); // no time elapsed: no drift yet
+    const N = 40_000, dt = 0.1;
+    let previous = out[1]! - v[1]!;
+    let sum2 = 0;
+    for (let i = 1; i <= N; i++) {
+      loc.odometry(i * dt, v, out);
+      const b = out[1]! - v[1]!;
+      sum2 += (b - previous) ** 2;
+      previous = b;
+    }
+    // increments ~ N(0, drift^2 dt): sample variance within 4 sd (sqrt(2/N) = 0.7 %) -> 3 %
+    expectClose(sum2 / N, 0.05 ** 2 * dt, { rel: 0.03 }, 'increment variance');
+    expect(() => loc.odometry(0, v, out)).toThrow(/time order/);
+  });
+
+  it('specificForce() has mean f + bias and sd accelNoise (20 000 seeded samples)', () => {
+    const loc = make({ accelBias: 0.05, accelNoise: 0.2 });
+    const out = new Float64Array(3);
+    const N = 20_000;
+    let sum = 0, sum2 = 0;
+    for (let i = 0; i < N; i++) {
+      const e = loc.specificForce([0, 0, 9.8], out)[2]! - 9.8;
+      sum += e; sum2 += e * e;
+    }
+    expectClose(sum / N, 0.05, { abs: (4 * 0.2) / Math.sqrt(N) }, 'bias'); // 4 standard errors
+    expectClose(Math.sqrt(sum2 / N - (sum / N) ** 2), 0.2, { rel: 0.03 }, 'noise sd'); // > 4 sd of a sample sd
+  });
+
+  it('believedCamera() scales the focal length and keeps the nominal mount; trueCamera() carries the misalignment', () => {
+    const spec: CameraSpec = {
+      intrinsics: { fx: 600, fy: 610, cx: 320, cy: 240 }, width: 640, height: 480,
+      distortion: { k1: -0.05, k2: 0, k3: 0, p1: 0, p2: 0 },
+      mount: { offset: [0.1, 0, -0.05], rollDeg: 0, pitchDeg: 5, yawDeg: 0 },
+    };
+    const loc = make({ focalError: 0.02, misalignmentDeg: 1.5 });
+    const believed = loc.believedCamera(spec);
+    expectClose(believed.fx, 612, { rel: 1e-15 }, 'fx'); // 600 * 1.02
+    expectClose(believed.fy, 622.2, { rel: 1e-15 }, 'fy');
+    expect(believed.mount).toEqual(spec.mount);
+    const truth = loc.trueCamera(spec);
+    expect(truth.fx).toBe(600);
+    expect(truth.mount).toMatchObject({ rollDeg: 1.5, pitchDeg: 6.5, yawDeg: 1.5, offset: [0.1, 0, -0.05] });
+  });
+
+  it('believedTargetSize() is sqrt(L W)(1 + error) and cameraTimestamp() adds the clock offset', () => {
+    const loc = make({ targetSizeError: -0.1, clockOffset: 0.015 });
+    expectClose(loc.believedTargetSize({ deckLength: 4, deckWidth: 1 }), 1.8, { rel: 1e-15 }, 'size'); // sqrt(4) * 0.9
+    expectClose(loc.cameraTimestamp(2), 2.015, { abs: 1e-15 }, 'stamp');
+  });
+});

@@ -59,7 +59,7 @@ export const requireCommand: Command = {
     const firstBatch = numberOption('require', parsed, 'first-batch', 25, (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
     const steps = numberOption('require', parsed, 'steps', 6, (v) => Number.isInteger(v) && v >= 0 && v <= 30, 'an integer 0..30');
     const seed = numberOption('require', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
-    const executor = createExecutor(workerCount('require', parsed));
+    const executor = createExecutor(workerCount('require', parsed), io.env);
     const json = parsed.flags.has('json');
     try {
       const result = await findRequirement({

@@ -48,7 +48,7 @@ export const sensitivityCommand: Command = {
     const seed = numberOption('sensitivity', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
     const given = parsed.lists.get('vary');
     const factors = given ? given.map(factorFrom) : PLAUSIBLE_RANGES.slice();
-    const executor = createExecutor(workerCount('sensitivity', parsed));
+    const executor = createExecutor(workerCount('sensitivity', parsed), io.env);
     const progress = progressBar(io, 'sensitivity');
     try {
       for (const f of factors) getPath(scenario, f.path); // unknown paths fail before any trial runs

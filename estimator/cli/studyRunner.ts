@@ -26,9 +26,12 @@ export function workerCount(command: string, parsed: ParsedArgs): number {
   return numberOption(command, parsed, 'workers', availableParallelism(), (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
 }
 
-/** One thread: in-process (no bundle needed); more: the worker_threads pool. */
-export function createExecutor(workers: number): TrialExecutor {
-  return workers <= 1 ? inProcessExecutor(simulateTrial, applyParams) : workerPool({ workers });
+/**
+ * One thread: in-process (no bundle needed); more: the worker_threads pool running
+ * dist/sweep-worker.mjs, or the script named by ALIGHT_SWEEP_WORKER (tests, custom builds).
+ */
+export function createExecutor(workers: number, env: Record<string, string | undefined> = {}): TrialExecutor {
+  return workers <= 1 ? inProcessExecutor(simulateTrial, applyParams) : workerPool({ workers, workerPath: env.ALIGHT_SWEEP_WORKER || undefined });
 }
 
 export interface Progress {

@@ -59,7 +59,7 @@ export const sweepCommand: Command = {
       const vary = (parsed.lists.get('vary') ?? []).map(parseVary);
       const shard = resolveShard(parsed.values.get('shard'), shardCount, io.env);
       const out = resolvePath(io.cwd, shard ? outText.replaceAll('{shard}', String(shard.index)) : outText);
-      executor = createExecutor(workers);
+      executor = createExecutor(workers, io.env);
       const result = await runSweep({
         scenario, vary, design, points, trials, seed, out, shard, executor,
         resume: parsed.flags.has('resume'),

@@ -73,7 +73,7 @@ export const tuneCommand: Command = {
     const weight = numberOption('tune', parsed, 'nees-weight', 0.25, (v) => v >= 0, 'a non-negative number');
     const seed = numberOption('tune', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
     const json = parsed.flags.has('json');
-    const executor = createExecutor(workerCount('tune', parsed));
+    const executor = createExecutor(workerCount('tune', parsed), io.env);
     const details = new Map<string, PointSummary>();
     try {
       const result = await searchMultipliers(async (m: Multipliers) => {

@@ -1,0 +1,23 @@
+// Builds the CLI and the sweep worker into a temporary folder for tests that spawn them, so a
+// plain `npx vitest run` needs no prior `npm run build` (and never sees a stale dist/).
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { build } from 'esbuild';
+
+export interface Bundles {
+  dir: string;
+  cli: string;
+  worker: string;
+}
+
+export async function buildBundles(): Promise<Bundles> {
+  const dir = mkdtempSync(join(tmpdir(), 'alight-bundles-'));
+  const common = {
+    bundle: true, platform: 'node' as const, format: 'esm' as const, target: 'node20', logLevel: 'error' as const,
+    banner: { js: "import { createRequire as __alightRequire } from 'node:module'; const require = __alightRequire(import.meta.url);" },
+  };
+  await build({ ...common, entryPoints: ['estimator/cli/node.ts'], outfile: join(dir, 'alight.mjs') });
+  await build({ ...common, entryPoints: ['estimator/study/sweepWorker.node.ts'], outfile: join(dir, 'sweep-worker.mjs') });
+  return { dir, cli: join(dir, 'alight.mjs'), worker: join(dir, 'sweep-worker.mjs') };
+}

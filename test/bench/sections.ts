@@ -1,7 +1,10 @@
 // The benchmark sections, one import and one entry each; the key is the JSON key.
+import { ekf } from './ekf.js';
 export interface BenchSection {
   name: string;
   run(): Promise<Record<string, unknown>>;
 }
 
-export const sections: BenchSection[] = [];
+export const sections: BenchSection[] = [
+  ekf,
+];

@@ -1,0 +1,10 @@
+export { MAX_MEASUREMENT_DIMENSION } from './symbols.js';
+export { cholesky, invertSymmetricPositiveDefinite } from './cholesky.js';
+export { allFinite, checkCovariance } from './checkCovariance.js';
+export type { DivergenceEvent } from './checkCovariance.js';
+export { predictState, predictCovariance } from './predict.js';
+export { UpdateWorkspace } from './UpdateWorkspace.js';
+export { NotPositiveDefiniteError, assertPositiveDefinite, innovationCovariance, normalizedInnovationSquared, gain, updateJoseph } from './update.js';
+export { innovationCovarianceColumnBlock, updateJosephColumnBlock } from './columnBlockUpdate.js';
+export { gateThreshold } from './gate.js';
+export { innovationCovariance3, normalizedInnovationSquared3, updateJoseph3 } from './blockUpdate3.js';

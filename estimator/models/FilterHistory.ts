@@ -1,0 +1,112 @@
+// Ring buffer of recent filter steps for delayed measurements: per IMU step the time, the
+// input (specific force, attitude) used to reach it, the state and covariance after the step
+// and its updates, and the measurements applied in that step (so a re-propagation can
+// re-apply them). Preallocated flat typed arrays; nothing is allocated after construction.
+
+/** Measurement kinds kept in the history. */
+export const EVENT_TIGHT = 1;
+export const EVENT_LOOSE = 2;
+export const EVENT_ODOMETRY = 3;
+
+/** Most measurements one IMU step can hold (boxes and odometry at up to this multiple of the IMU rate). */
+export const EVENTS_PER_STEP = 8;
+
+export class FilterHistory {
+  readonly capacity: number;
+  readonly time: Float64Array;
+  readonly force: Float64Array;
+  readonly attitude: Float64Array;
+  readonly x: Float64Array;
+  readonly P: Float64Array;
+  readonly eventCount: Int32Array;
+  readonly eventKind: Int8Array;
+  readonly eventTime: Float64Array;
+  readonly eventData: Float64Array;
+  private head = -1;
+  private size = 0;
+
+  constructor(readonly n: number, capacity: number) {
+    this.capacity = Math.max(2, capacity);
+    const c = this.capacity;
+    this.time = new Float64Array(c);
+    this.force = new Float64Array(3 * c);
+    this.attitude = new Float64Array(4 * c);
+    this.x = new Float64Array(n * c);
+    this.P = new Float64Array(n * n * c);
+    this.eventCount = new Int32Array(c);
+    this.eventKind = new Int8Array(EVENTS_PER_STEP * c);
+    this.eventTime = new Float64Array(EVENTS_PER_STEP * c);
+    this.eventData = new Float64Array(3 * EVENTS_PER_STEP * c);
+  }
+
+  /** Number of stored steps. */
+  get length(): number {
+    return this.size;
+  }
+
+  clear(): void {
+    this.head = -1;
+    this.size = 0;
+  }
+
+  /** Physical slot of the step `age` steps back from the newest (age 0). */
+  slot(age: number): number {
+    return (this.head - age + this.capacity) % this.capacity;
+  }
+
+  /** Append a step (overwriting the oldest when full); returns its slot. */
+  push(t: number, force: ArrayLike<number>, attitude: ArrayLike<number>, x: ArrayLike<number>, P: ArrayLike<number>): number {
+    this.head = (this.head + 1) % this.capacity;
+    if (this.size < this.capacity) this.size++;
+    const s = this.head;
+    this.time[s] = t;
+    for (let i = 0; i < 3; i++) this.force[3 * s + i] = force[i]!;
+    for (let i = 0; i < 4; i++) this.attitude[4 * s + i] = attitude[i]!;
+    this.eventCount[s] = 0;
+    this.save(s, x, P);
+    return s;
+  }
+
+  save(slot: number, x: ArrayLike<number>, P: ArrayLike<number>): void {
+    const n = this.n;
+    this.x.set(x as ArrayLike<number>, slot * n);
+    this.P.set(P as ArrayLike<number>, slot * n * n);
+  }
+
+  restore(slot: number, x: Float64Array, P: Float64Array): void {
+    const n = this.n;
+    x.set(this.x.subarray(slot * n, slot * n + n));
+    P.set(this.P.subarray(slot * n * n, (slot + 1) * n * n));
+  }
+
+  /** Age of the newest step with time <= t, or -1 when t is older than the oldest step. */
+  ageAtOrBefore(t: number): number {
+    for (let age = 0; age < this.size; age++) if (this.time[this.slot(age)]! <= t) return age;
+    return -1;
+  }
+
+  /** Insert a measurement into a slot, keeping time order. Returns false when the slot is full. */
+  addEvent(slot: number, kind: number, t: number, d0: number, d1: number, d2: number): boolean {
+    const count = this.eventCount[slot]!;
+    if (count >= EVENTS_PER_STEP) return false;
+    const base = slot * EVENTS_PER_STEP;
+    let k = count;
+    while (k > 0 && this.eventTime[base + k - 1]! > t) {
+      this.eventKind[base + k] = this.eventKind[base + k - 1]!;
+      this.eventTime[base + k] = this.eventTime[base + k - 1]!;
+      for (let i = 0; i < 3; i++) this.eventData[3 * (base + k) + i] = this.eventData[3 * (base + k - 1) + i]!;
+      k--;
+    }
+    this.eventKind[base + k] = kind;
+    this.eventTime[base + k] = t;
+    this.eventData[3 * (base + k)] = d0;
+    this.eventData[3 * (base + k) + 1] = d1;
+    this.eventData[3 * (base + k) + 2] = d2;
+    this.eventCount[slot] = count + 1;
+    return true;
+  }
+
+  isFull(slot: number): boolean {
+    return this.eventCount[slot]! >= EVENTS_PER_STEP;
+  }
+}

@@ -1,0 +1,21 @@
+// Layout of the landing-filter state x (ENU world frame, SI units):
+//   x[0..2]   r  = p_carrier - p_lander (m)
+//   x[3..5]   vC = carrier velocity (m/s)
+//   x[6..8]   vL = lander velocity (m/s)
+//   x[9..11]  ba = accelerometer bias, body FLU (m/s²)
+//   x[12..14] aC = carrier acceleration (m/s²), Singer model only
+// P is n x n row-major in the same order.
+
+export const R_INDEX = 0;
+export const VC_INDEX = 3;
+export const VL_INDEX = 6;
+export const BA_INDEX = 9;
+export const AC_INDEX = 12;
+
+/** Standard gravity (m/s²); gravity in ENU is (0, 0, -G). */
+export const STANDARD_GRAVITY = 9.80665;
+
+/** State dimension for a carrier model. */
+export function landingStateDimension(singer: boolean): number {
+  return singer ? 15 : 12;
+}

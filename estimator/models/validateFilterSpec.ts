@@ -1,0 +1,33 @@
+// FilterSpec checks at the boundary of the landing filter: every noise, rate and scale the
+// filter turns into Q, R or a gate must be a finite positive number (R positive definite).
+import type { FilterSpec } from '../sim/Scenario.js';
+
+/** A FilterSpec field the filter cannot use; `field` is the scenario path. */
+export class FilterSpecError extends Error {
+  constructor(readonly field: string, message: string) {
+    super(`${field}: ${message}`);
+    this.name = 'FilterSpecError';
+  }
+}
+
+type NumericKey = { [K in keyof FilterSpec]: FilterSpec[K] extends number ? K : never }[keyof FilterSpec];
+
+const POSITIVE: readonly NumericKey[] = ['rate', 'qScale', 'rScale', 'gateScale'];
+const POSITIVE_R: readonly NumericKey[] = ['pixelNoise', 'sizeNoise', 'odometryNoise'];
+const NON_NEGATIVE: readonly NumericKey[] = ['carrierAccelNoise', 'accelNoise', 'accelBiasWalk', 'historyLength'];
+
+export function validateFilterSpec(spec: FilterSpec): void {
+  for (const key of POSITIVE) {
+    if (!(spec[key] > 0) || !Number.isFinite(spec[key])) throw new FilterSpecError(`filter.${key}`, `must be a positive number, got ${spec[key]}`);
+  }
+  for (const key of POSITIVE_R) {
+    if (!(spec[key] > 0) || !Number.isFinite(spec[key])) throw new FilterSpecError(`filter.${key}`, `must be a positive number (it sets R, which must be positive definite), got ${spec[key]}`);
+  }
+  for (const key of NON_NEGATIVE) {
+    if (!(spec[key] >= 0) || !Number.isFinite(spec[key])) throw new FilterSpecError(`filter.${key}`, `must be a non-negative number, got ${spec[key]}`);
+  }
+  if (!(spec.gateProbability > 0 && spec.gateProbability < 1)) throw new FilterSpecError('filter.gateProbability', `must be in (0, 1), got ${spec.gateProbability}`);
+  if (spec.cameraUpdate !== 'tight' && spec.cameraUpdate !== 'loose') throw new FilterSpecError('filter.cameraUpdate', `must be "tight" or "loose", got ${String(spec.cameraUpdate)}`);
+  if (spec.carrierModel !== 'constant-velocity' && spec.carrierModel !== 'singer') throw new FilterSpecError('filter.carrierModel', `must be "constant-velocity" or "singer", got ${String(spec.carrierModel)}`);
+  if (spec.carrierModel === 'singer' && (!(spec.singerTau > 0) || !Number.isFinite(spec.singerTau))) throw new FilterSpecError('filter.singerTau', `must be a positive number of seconds for the Singer model, got ${spec.singerTau}`);
+}

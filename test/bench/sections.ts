@@ -1,5 +1,6 @@
 // The benchmark sections, one import and one entry each; the key is the JSON key.
 import { ekf } from './ekf.js';
+import { world } from './world.js';
 export interface BenchSection {
   name: string;
   run(): Promise<Record<string, unknown>>;
@@ -7,4 +8,5 @@ export interface BenchSection {
 
 export const sections: BenchSection[] = [
   ekf,
+  world,
 ];

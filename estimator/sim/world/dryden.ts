@@ -48,11 +48,12 @@ export function drydenScales(heightFt: number, w20Kt: number): DrydenScales {
 /** drydenScales writing into an existing object (allocation-free for the step loop). */
 export function drydenScalesInto(heightFt: number, w20Kt: number, out: DrydenScales): DrydenScales {
   const h = Math.min(Math.max(heightFt, DRYDEN_MIN_HEIGHT_FT), DRYDEN_MAX_HEIGHT_FT);
-  const base = 0.177 + 0.000823 * h;
-  out.Lu = out.Lv = h / Math.pow(base, 1.2);
+  // base^-1.2 and base^-0.4 from one logarithm
+  const logBase = Math.log(0.177 + 0.000823 * h);
+  out.Lu = out.Lv = h * Math.exp(-1.2 * logBase);
   out.Lw = h;
   out.sigmaW = 0.1 * w20Kt * KNOT_FT_S;
-  out.sigmaU = out.sigmaV = out.sigmaW / Math.pow(base, 0.4);
+  out.sigmaU = out.sigmaV = out.sigmaW * Math.exp(-0.4 * logBase);
   return out;
 }
 

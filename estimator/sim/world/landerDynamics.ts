@@ -54,12 +54,17 @@ export class LanderDynamics {
   private readonly thrust = new Float64Array(3);
   private readonly specificForceWorld = new Float64Array(3);
   private readonly Rwb = new Float64Array(9);
+  private readonly tanMaxTilt: number;
+  private lastDt = NaN;
+  private lagGain = 0;
+  private rejectionFactor = 0;
 
   constructor(spec: LanderSpec, position: ArrayLike<number>, options: LanderDynamicsOptions = {}) {
     this.spec = spec;
     this.yaw = options.yaw ?? 0;
     this.dragTime = options.dragTimeConstant ?? 4;
     this.rejectionTime = options.windRejectionTime ?? 1.5;
+    this.tanMaxTilt = Math.tan(spec.maxTiltDeg * DEG);
     for (let k = 0; k < 3; k++) this.state.position[k] = position[k]!;
     this.updateAttitude();
   }
@@ -78,35 +83,41 @@ export class LanderDynamics {
     const v = state.velocity;
     // command limits
     let cx = velocityCommand[0]!, cy = velocityCommand[1]!;
-    const ch = Math.hypot(cx, cy);
+    const ch = Math.sqrt(cx * cx + cy * cy);
     if (ch > spec.maxSpeed) {
       cx *= spec.maxSpeed / ch;
       cy *= spec.maxSpeed / ch;
     }
     const cz = Math.min(Math.max(velocityCommand[2]!, -spec.maxVerticalSpeed), spec.maxVerticalSpeed);
-    const gain = -Math.expm1(-dt / spec.velocityTimeConstant) / dt;
+    if (dt !== this.lastDt) {
+      // step factors depend on dt only: recompute when it changes
+      this.lastDt = dt;
+      this.lagGain = -Math.expm1(-dt / spec.velocityTimeConstant) / dt;
+      this.rejectionFactor = -Math.expm1(-dt / this.rejectionTime);
+    }
+    const gain = this.lagGain;
     const inverseDrag = 1 / this.dragTime;
     thrust[0] = (cx - v[0]!) * gain + v[0]! * inverseDrag + compensation[0]!;
     thrust[1] = (cy - v[1]!) * gain + v[1]! * inverseDrag + compensation[1]!;
     thrust[2] = (cz - v[2]!) * gain + v[2]! * inverseDrag + compensation[2]!;
     // vertical then horizontal saturation (tilt limit depends on the vertical thrust)
     thrust[2] = Math.min(Math.max(thrust[2]!, MIN_VERTICAL_ACCEL), spec.maxAccel);
-    const horizontalLimit = Math.min(spec.maxAccel, (GRAVITY + thrust[2]!) * Math.tan(spec.maxTiltDeg * DEG));
-    const th = Math.hypot(thrust[0]!, thrust[1]!);
+    const horizontalLimit = Math.min(spec.maxAccel, (GRAVITY + thrust[2]!) * this.tanMaxTilt);
+    const th = Math.sqrt(thrust[0]! * thrust[0]! + thrust[1]! * thrust[1]!);
     if (th > horizontalLimit) {
       thrust[0] = (thrust[0]! * horizontalLimit) / th;
       thrust[1] = (thrust[1]! * horizontalLimit) / th;
     }
     const a = state.acceleration;
     const p = state.position;
-    const ratio = dt / this.rejectionTime;
+    const relax = this.rejectionFactor;
     for (let k = 0; k < 3; k++) {
       const wind = windVelocity[k]!;
       a[k] = thrust[k]! + (wind - v[k]!) * inverseDrag;
       p[k] = p[k]! + v[k]! * dt + 0.5 * a[k]! * dt * dt;
       v[k] = v[k]! + a[k]! * dt;
       // b relaxes towards -w / tau_d (exact first-order step)
-      compensation[k] = compensation[k]! + (-wind * inverseDrag - compensation[k]!) * -Math.expm1(-ratio);
+      compensation[k] = compensation[k]! + (-wind * inverseDrag - compensation[k]!) * relax;
     }
     this.updateAttitude();
     if (out !== state) copyLanderState(state, out);

@@ -15,7 +15,7 @@ const scratch = new Float64Array(9);
  */
 export function attitudeFromAcceleration(acceleration: ArrayLike<number>, yaw: number, out: Float64Array): number {
   let zx = acceleration[0]!, zy = acceleration[1]!, zz = acceleration[2]! + GRAVITY;
-  let norm = Math.hypot(zx, zy, zz);
+  let norm = Math.sqrt(zx * zx + zy * zy + zz * zz);
   if (norm < 1e-9 || zz <= 0) {
     // free fall or thrust pointing down: a multirotor cannot do that; stay level
     zx = 0; zy = 0; zz = 1; norm = 1;
@@ -24,7 +24,7 @@ export function attitudeFromAcceleration(acceleration: ArrayLike<number>, yaw: n
   const c = Math.cos(yaw), s = Math.sin(yaw);
   // x_b = y_c x z_b / |.| with y_c = (-sin yaw, cos yaw, 0): x_b stays in the vertical plane of the yaw
   let xx = c * zz, xy = s * zz, xz = -s * zy - c * zx;
-  const nx = Math.hypot(xx, xy, xz);
+  const nx = Math.sqrt(xx * xx + xy * xy + xz * xz);
   xx /= nx; xy /= nx; xz /= nx;
   // y_b = z_b x x_b
   const yx = zy * xz - zz * xy, yy = zz * xx - zx * xz, yz = zx * xy - zy * xx;

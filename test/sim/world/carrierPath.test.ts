@@ -127,7 +127,7 @@ describe('createCarrierTrajectory', () => {
     const q = state.qWorldDeck;
     // tilt of deck z axis from vertical: cos(tilt) = 1 - 2 (qx^2 + qy^2)
     const tilt = Math.acos(1 - 2 * (q[1]! ** 2 + q[2]! ** 2));
-    expectClose(tilt, Math.atan((v * v) / (R * GRAVITY)), { abs: 1e-9 }, 'bank angle'); // Newton-refined arc length
+    expectClose(tilt, Math.atan((v * v) / (R * GRAVITY)), { abs: 1e-9 }, "bank angle"); // the circle's curvature is exact from the curve, not the table
   });
 
   it('heave and pitch move the deck height and attitude sinusoidally', () => {

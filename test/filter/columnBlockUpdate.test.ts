@@ -1,0 +1,71 @@
+import { describe, expect, it } from 'vitest';
+import { innovationCovarianceColumnBlock, updateJosephColumnBlock } from '../../estimator/filter/columnBlockUpdate.js';
+import { innovationCovariance3, normalizedInnovationSquared3, updateJoseph3 } from '../../estimator/filter/blockUpdate3.js';
+import { innovationCovariance, normalizedInnovationSquared, updateJoseph } from '../../estimator/filter/update.js';
+import { UpdateWorkspace } from '../../estimator/filter/UpdateWorkspace.js';
+import { RandomStream, streamId } from '../../estimator/random/RandomStream.js';
+import { expectAllClose, expectClose } from '../helpers/expectClose.js';
+
+/** A random SPD n x n matrix A Aᵀ + I from a seeded stream. */
+function randomCovariance(n: number, stream: RandomStream): Float64Array {
+  const A = Array.from({ length: n * n }, () => stream.gaussian());
+  const P = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
+    let s = i === j ? 1 : 0;
+    for (let k = 0; k < n; k++) s += A[i * n + k]! * A[j * n + k]!;
+    P[i * n + j] = s / n;
+  }
+  return P;
+}
+
+describe('block-structured updates agree with the dense textbook Joseph update (two implementations of one thing)', () => {
+  const n = 12, col = 6;
+  const stream = RandomStream.fromKey([12, streamId('column block')]);
+  const P0 = randomCovariance(n, stream);
+  const x0 = Float64Array.from({ length: n }, () => stream.gaussian());
+  const Hb = Float64Array.from({ length: 9 }, () => stream.gaussian());
+  const R = new Float64Array([0.5, 0.1, 0, 0.1, 0.4, 0.05, 0, 0.05, 0.3]);
+  const y = [0.3, -0.2, 0.1];
+  const Hdense = new Float64Array(3 * n);
+  for (let a = 0; a < 3; a++) for (let j = 0; j < 3; j++) Hdense[a * n + col + j] = Hb[3 * a + j]!;
+
+  const xd = x0.slice(), Pd = P0.slice(), wsd = new UpdateWorkspace(n, 3);
+  innovationCovariance(Pd, Hdense, R, n, 3, wsd);
+  wsd.y.set(y);
+  const nisDense = normalizedInnovationSquared(wsd, 3);
+  updateJoseph(xd, Pd, Hdense, R, n, 3, wsd);
+
+  it('general column block (any m, k)', () => {
+    const x = x0.slice(), P = P0.slice(), ws = new UpdateWorkspace(n, 3);
+    expect(innovationCovarianceColumnBlock(P, Hb, col, 3, R, n, 3, ws)).toBe(true);
+    ws.y.set(y);
+    expectClose(normalizedInnovationSquared(ws, 3), nisDense, { rel: 1e-12 }, 'NIS');
+    updateJosephColumnBlock(x, P, n, 3, ws);
+    // 1e-12: same algebra, different operation order (P entries are O(1)).
+    expectAllClose(x, xd, { abs: 1e-12 }, 'x');
+    expectAllClose(P, Pd, { abs: 1e-12 }, 'P');
+  });
+
+  it('unrolled 3 x 3 block, with exact symmetry', () => {
+    const x = x0.slice(), P = P0.slice(), ws = new UpdateWorkspace(n, 3);
+    expect(innovationCovariance3(P, Hb, col, R, n, ws)).toBe(true);
+    ws.y.set(y);
+    expectClose(normalizedInnovationSquared3(ws), nisDense, { rel: 1e-12 }, 'NIS');
+    expect(updateJoseph3(x, P, n, ws)).toBe(true);
+    expectAllClose(x, xd, { abs: 1e-12 }, 'x');
+    expectAllClose(P, Pd, { abs: 1e-12 }, 'P');
+    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) expect(P[i * n + j]).toBe(P[j * n + i]);
+  });
+
+  it('innovationCovariance3 refuses an indefinite S (Sylvester criterion)', () => {
+    const ws = new UpdateWorkspace(n, 3);
+    expect(innovationCovariance3(P0, Hb, col, new Float64Array([-100, 0, 0, 0, 1, 0, 0, 0, 1]), n, ws)).toBe(false);
+  });
+
+  it('updateJoseph3 reports a non-finite result', () => {
+    const x = x0.slice(), P = P0.slice(), ws = new UpdateWorkspace(n, 3);
+    innovationCovariance3(P, Hb, col, R, n, ws);
+    ws.y.set([Number.NaN, 0, 0]);
+    expect(updateJoseph3(x, P, n, ws)).toBe(false);
+  });
+});

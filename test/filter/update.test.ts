@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import kalmanFilterPackage from 'kalman-filter';
+import { createRequire } from 'node:module';
 import { predictCovariance, predictState } from '../../estimator/filter/predict.js';
 import { assertPositiveDefinite, innovationCovariance, normalizedInnovationSquared, NotPositiveDefiniteError, updateJoseph } from '../../estimator/filter/update.js';
 import { UpdateWorkspace } from '../../estimator/filter/UpdateWorkspace.js';
@@ -9,7 +9,8 @@ import { RandomStream, streamId } from '../../estimator/random/RandomStream.js';
 import { expectAllClose, expectClose } from '../helpers/expectClose.js';
 import { constantVelocity } from './linearModels.js';
 
-const { KalmanFilter } = kalmanFilterPackage as unknown as { KalmanFilter: new (options: object) => { predict(o: object): KfState; correct(o: object): KfState } };
+// kalman-filter is CommonJS without types: load it through require and type the two calls we use.
+const { KalmanFilter } = createRequire(import.meta.url)('kalman-filter') as { KalmanFilter: new (options: object) => { predict(o: object): KfState; correct(o: object): KfState } };
 interface KfState { mean: number[][]; covariance: number[][] }
 
 describe('updateJoseph', () => {

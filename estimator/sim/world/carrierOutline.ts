@@ -6,10 +6,11 @@
 // Allocation-free: the class owns its scratch arrays.
 import type { Box } from '../../camera/Box.js';
 import type { PinholeCamera } from '../../camera/PinholeCamera.js';
+import { UndistortionError } from '../../camera/distortion.js';
 import { normalizedFromPixel, project } from '../../camera/project.js';
 import { cameraFromBody, cameraPointFromWorldVector } from '../../frames/cameraFromBody.js';
 import { rotationMatrixFromQuat } from '../../frames/rotationMatrixFromQuat.js';
-import type { CameraMount } from '../Scenario.js';
+import type { CameraMount, Distortion } from '../Scenario.js';
 import type { CarrierState } from './carrierPath.js';
 
 /** Outline dimensions (m), as in CarrierSpec. */
@@ -55,13 +56,21 @@ export class CarrierOutline {
     this.dims = dims;
     this.Rcb = cameraFromBody(camera.mount);
     this.offset = Float64Array.from(camera.mount.offset);
-    // normalized radius of the farthest image corner (undistorted)
+    // Usable field: 1.5x the normalized radius of the farthest image corner, and never past the
+    // radius where the radial polynomial folds back (d/dr [r (1 + k1 r^2 + k2 r^4 + k3 r^6)] = 0).
+    const fold = foldRadius(camera.distortion);
     let r2 = 0;
     for (const [u, v] of [[0, 0], [camera.width, 0], [0, camera.height], [camera.width, camera.height]] as const) {
-      const n = normalizedFromPixel(camera, u, v);
-      r2 = Math.max(r2, n[0]! * n[0]! + n[1]! * n[1]!);
+      try {
+        const n = normalizedFromPixel(camera, u, v);
+        r2 = Math.max(r2, n[0]! * n[0]! + n[1]! * n[1]!);
+      } catch (error) {
+        if (!(error instanceof UndistortionError)) throw error;
+        r2 = Infinity; // the image corner lies beyond the fold
+      }
     }
-    this.maxRadius2 = r2 * FIELD_MARGIN * FIELD_MARGIN;
+    const field = Math.min(Math.sqrt(r2) * FIELD_MARGIN, fold);
+    this.maxRadius2 = field * field;
   }
 
   /**
@@ -99,4 +108,13 @@ export class CarrierOutline {
     }
     return problem;
   }
+}
+
+/** Smallest normalized radius (<= 10) where 1 + 3 k1 r^2 + 5 k2 r^4 + 7 k3 r^6 reaches 0; Infinity if none. */
+export function foldRadius(d: Distortion): number {
+  for (let r = 0; r <= 10; r += 0.001) {
+    const r2 = r * r;
+    if (1 + r2 * (3 * d.k1 + r2 * (5 * d.k2 + r2 * 7 * d.k3)) <= 0) return r;
+  }
+  return Infinity;
 }

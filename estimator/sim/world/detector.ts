@@ -1,7 +1,7 @@
 // The detector, truth side: per camera frame, the box of the carrier's true outline, then
 // every impairment a real detector adds — centre and size noise, i.i.d. and bursty loss,
 // edge loss, Poisson false boxes, latency with jitter. observe() allocates nothing: frames
-// come from a preallocated ring and stay valid for the next FRAME_RING - 1 detections.
+// come from a preallocated ring sized so each stays valid well past its arrival (frameRingSize).
 import type { Box } from '../../camera/Box.js';
 import { RandomStream } from '../../random/RandomStream.js';
 import type { DetectorSpec } from '../Scenario.js';
@@ -34,8 +34,8 @@ export interface DetectorFrame {
   truth: DetectorTruth;
 }
 
-/** Frames held in the ring: a returned frame is overwritten after this many more detections. */
-export const FRAME_RING = 256;
+/** Smallest ring of frames; it grows with rate x (latency + 6 jitter + 1 s) x (1 + false boxes per frame). */
+export const MIN_FRAME_RING = 256;
 /** False boxes: side uniform in [FALSE_BOX_MIN_SIDE px, 0.25 min(width, height)], aspect in [1/2, 2]. */
 export const FALSE_BOX_MIN_SIDE = 8;
 const MIN_SIZE_FACTOR = 0.05; // size noise never shrinks a box below 5 % (nor flips it)
@@ -80,6 +80,11 @@ export class Detector {
 
   private readonly outline: CarrierOutline;
   private readonly ring: DetectorFrame[] = [];
+  /**
+   * Frames in the ring: a returned frame is overwritten only after this many more detections,
+   * which covers at least latency + 6 jitter + 1 s of captures with twice the mean false boxes.
+   */
+  readonly frameRingSize: number;
   private ringIndex = 0;
   private lastArrival = -Infinity;
   private readonly noise: RandomStream;
@@ -106,7 +111,10 @@ export class Detector {
     this.clutter = child();
     const burstStream = child();
     this.burst = spec.burst ? new GilbertElliott(spec.burst.enter, spec.burst.exit, burstStream) : null;
-    for (let i = 0; i < FRAME_RING; i++) this.ring.push(createFrame());
+    const perFrame = 1 + 2 * spec.falseBoxRate * this.frameInterval + 1;
+    const window = spec.rate * (spec.latency + 6 * spec.latencyJitter + 1);
+    this.frameRingSize = Math.max(MIN_FRAME_RING, Math.ceil(window * perFrame) + 64);
+    for (let i = 0; i < this.frameRingSize; i++) this.ring.push(createFrame());
   }
 
   /** Capture time of frame k (s): k / rate. */
@@ -116,7 +124,7 @@ export class Detector {
 
   private nextFrame(): DetectorFrame {
     const frame = this.ring[this.ringIndex]!;
-    this.ringIndex = (this.ringIndex + 1) % FRAME_RING;
+    this.ringIndex = (this.ringIndex + 1) % this.frameRingSize;
     return frame;
   }
 

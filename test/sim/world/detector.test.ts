@@ -164,4 +164,14 @@ describe('Detector', () => {
     expect(run(3)).toEqual(run(3));
     expect(run(3)).not.toEqual(run(4));
   });
+
+  it('frameRingSize keeps frames alive through long latency at a high frame rate', () => {
+    const d = detector({ rate: 1000, latency: 2, latencyJitter: 0.01, falseBoxRate: 100 });
+    // 1000 Hz x (2 + 0.06 + 1) s x (1 + 2 * 0.1 + 1) frames per capture
+    expect(d.frameRingSize).toBeGreaterThanOrEqual(Math.ceil(1000 * 3.06 * 2.2));
+    const first = d.observe(0, lander, carrierAtCameraPoint(0, 0, 2))!;
+    const kept = { ...first.box };
+    for (let i = 1; i < 2100; i++) d.observe(i / 1000, lander, carrierAtCameraPoint(0.1, 0, 2));
+    expect(first.box).toEqual(kept); // not yet overwritten after 2.1 s of captures
+  });
 });

@@ -3,9 +3,11 @@ import type { Command } from './Command.js';
 import { mergeCommand } from './mergeCommand.js';
 import { summarizeCommand } from './summarizeCommand.js';
 import { trialsCommand } from './trialsCommand.js';
+import { reportCommand } from './reportCommand.js';
 
 export const commands: Command[] = [
   mergeCommand,
   summarizeCommand,
   trialsCommand,
+  reportCommand,
 ];

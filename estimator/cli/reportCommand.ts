@@ -1,7 +1,8 @@
 // `alight report <analysis.json> --out report.html`: renders a study headlessly into one
 // self-contained HTML file with the numbers the notebook page shows for the same analysis.
-import { readFileSync, writeFileSync } from 'node:fs';
-import { resolve } from 'node:path';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { dirname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { AnalysisError } from '../../notebooks/analysis/Analysis.js';
 import { parseAnalysis } from '../../notebooks/analysis/parseAnalysis.js';
 import { InlineJobRunner } from '../../notebooks/jobs/InlineJobRunner.js';
@@ -19,6 +20,19 @@ const OPTIONS: OptionSpec[] = [
 ];
 const USAGE = 'alight report <analysis.json> [--out report.html]';
 const PURPOSE = 'Render a study analysis (saved from the notebook page) into one self-contained HTML report.';
+
+/** The demo data folder of this installation: the nearest data-demo/ above this file (source or bundle). */
+function demoDataFolder(): string {
+  let dir = dirname(fileURLToPath(import.meta.url));
+  for (let i = 0; i < 5; i++, dir = dirname(dir)) if (existsSync(join(dir, 'data-demo'))) return join(dir, 'data-demo');
+  throw new CliError('alight report: cannot find the data-demo folder of this installation');
+}
+
+/** A demo log by the name the replay study uses (e.g. "logs/truck-with-truth"). */
+function demoLog(name: string) {
+  if (name.split('/').some((part) => part === '..' || part === '')) throw new CliError(`alight report: bad demo log name "${name}"`);
+  return logSourceFromFolder(join(demoDataFolder(), name));
+}
 
 export const reportCommand: Command = {
   name: 'report',
@@ -46,7 +60,7 @@ export const reportCommand: Command = {
       throw error;
     }
     const study = studyById(analysis.study);
-    const runner = new InlineJobRunner({ openLogFolder: (path) => logSourceFromFolder(resolve(io.cwd, path)) });
+    const runner = new InlineJobRunner({ openLogFolder: demoLog });
     let figures;
     try {
       figures = await settleFigures(study, analysis, runner);

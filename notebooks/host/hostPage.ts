@@ -12,6 +12,7 @@ export function hostPageHtml(): string {
 <meta charset="utf-8">
 <meta name="viewport" content="width=device-width, initial-scale=1">
 <title>alight studies</title>
+<link rel="icon" href="data:,">
 <style>${PAGE_CSS}</style>
 </head>
 <body data-state="loading">

@@ -1,14 +1,18 @@
 // Every job a study can run, by name. The worker and the in-process runner both call these,
 // so page and report compute with the same functions. Each job takes (input, progress, context).
 import { sweepJob } from './sweepJob.js';
+import { tuningJob } from './tuningJob.js';
+import { replayJob } from './replayJob.js';
 
-/** What only some hosts can give a job (Node: reading a log folder from disk). */
+/** What only some hosts can give a job (Node: reading a demo log folder from disk, by name). */
 export interface JobContext {
-  openLogFolder?: (path: string) => unknown;
+  openLogFolder?: (name: string) => unknown;
 }
 
 export const jobTable = {
   sweep: sweepJob,
+  tuning: tuningJob,
+  replay: replayJob,
 };
 
 type Table = typeof jobTable;

@@ -124,7 +124,7 @@ export const detectionStudy: Study = {
               title: `Touchdown miss versus ${imp.label}`,
               ...HALF,
               x: { label: `${imp.label} (${imp.unit})`, domain: extent(x, 0.06) },
-              y: { label: 'miss (m)', domain: [0, Math.max(0.1, ...c95.filter(Number.isFinite)) * 1.1] },
+              y: { label: 'miss (m)', domain: [0, Math.max(value.header.scenario.envelope.padRadius, ...c95.filter(Number.isFinite)) * 1.15] },
               note: partial ? 'partial results' : undefined,
               layers: [
                 { kind: 'rule', axis: 'y', value: value.header.scenario.envelope.padRadius, color: SERIES[7], label: 'pad radius' },

@@ -3,9 +3,11 @@ import type { StudyId } from '../analysis/Analysis.js';
 import { carrierStudy } from './carrierStudy.js';
 import { detectionStudy } from './detectionStudy.js';
 import { localizationStudy } from './localizationStudy.js';
+import { replayStudy } from './replayStudy.js';
 import type { Study } from './Study.js';
+import { tuningStudy } from './tuningStudy.js';
 
-export const STUDIES: readonly Study[] = [detectionStudy, localizationStudy, carrierStudy];
+export const STUDIES: readonly Study[] = [detectionStudy, localizationStudy, tuningStudy, carrierStudy, replayStudy];
 
 export function studyById(id: StudyId): Study {
   const study = STUDIES.find((s) => s.id === id);

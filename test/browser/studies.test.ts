@@ -1,0 +1,158 @@
+// Each study in Debian's chromium: opened from an analysis permalink, a control changed by
+// keyboard or selection, only the dependent figures redrawn (the independent ones keep their
+// redraw count and the expensive job is not rerun), and a number on the page equal to the
+// library's own result for the same analysis. For the detection study the same analysis also
+// goes through `alight report` and `alight sweep` + `alight summarize`: all three agree exactly.
+import { execFileSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { defaultScenario } from '../../estimator/io/defaultScenario.js';
+import type { Scenario } from '../../estimator/sim/Scenario.js';
+import { applyParams } from '../../estimator/study/applyParams.js';
+import { simulateTrial } from '../../estimator/study/simulateTrial.js';
+import { summarizeGroup, type PointSummary } from '../../estimator/study/summarize.js';
+import type { Params } from '../../estimator/study/sweepDesign.js';
+import { main } from '../../estimator/cli/main.js';
+import { reportCommand } from '../../estimator/cli/reportCommand.js';
+import { VERSION } from '../../estimator/version.js';
+import { analysisToText, type Analysis, type StudyId } from '../../notebooks/analysis/Analysis.js';
+import { startStaticServer, type RunningServer } from '../../notebooks/server/staticServer.node.js';
+import { launchChromium, runBrowserTests, type Browser } from '../../notebooks/scripts/launchChromium.node.js';
+import { changeControl, computeCounts, openAnalysis, reportValue, shownValue } from './studyPage.js';
+
+const repo = fileURLToPath(new URL('../..', import.meta.url));
+
+function analysis(study: StudyId, parameters: Analysis['parameters'], seed = 5): Analysis {
+  return { study, scenario: defaultScenario(), parameters, seed, toolVersion: VERSION };
+}
+
+/** The library's summary of one sweep point, composed directly from its trial and summary functions. */
+function librarySummary(scenario: Scenario, seed: number, params: Params, point: number, trials: number): PointSummary {
+  const s = applyParams(scenario, params);
+  const records = Array.from({ length: trials }, (_, trial) => ({ v: 1 as const, point, trial, params, ...simulateTrial(s, { seed, point, trial }) }));
+  return summarizeGroup(params, records);
+}
+
+async function cli(argv: string[], cwd: string): Promise<string> {
+  let out = '';
+  let err = '';
+  const code = await main(argv, { stdout: (t) => (out += t), stderr: (t) => (err += t), interactive: false, cwd, env: {} });
+  if (code !== 0) throw new Error(`alight ${argv.join(' ')} exited ${code}: ${err}`);
+  return out;
+}
+
+describe.skipIf(!runBrowserTests)('studies in chromium', () => {
+  let server: RunningServer;
+  let browser: Browser;
+  let page: Page;
+  let work: string;
+
+  beforeAll(async () => {
+    if (!existsSync(join(repo, 'dist', 'notebooks', 'app.js')) || !existsSync(join(repo, 'dist', 'notebooks', 'worker.js'))) {
+      execFileSync('node', ['build.mjs'], { cwd: repo, stdio: 'inherit' });
+    }
+    work = mkdtempSync(join(tmpdir(), 'alight-browser-'));
+    server = await startStaticServer({ pageDir: join(repo, 'dist', 'notebooks'), demoDir: join(repo, 'data-demo'), port: 0 });
+    browser = await launchChromium();
+    page = await browser.context.newPage();
+    page.on('pageerror', (error) => process.stderr.write(`page error: ${error.message}\n`));
+  });
+
+  afterAll(async () => {
+    await browser?.close();
+    await server?.close();
+    if (work) rmSync(work, { recursive: true, force: true });
+  });
+
+  it('detection: the confidence level redraws only the success figure; page, report and summarize agree', async () => {
+    const a = analysis('detection', { impairment: 'pixelNoise', trials: 2, confidence: '0.95' });
+    await openAnalysis(page, server.url, a);
+    const expected = librarySummary(a.scenario, a.seed, { 'detector.pixelNoise': 0.5 }, 0, 2);
+    expect(await shownValue(page, 'success', 'successRate0')).toBe(expected.successRate);
+    expect(await shownValue(page, 'success', 'wilsonLow0')).toBe(expected.wilsonLow);
+    expect(await shownValue(page, 'success', 'wilsonHigh0')).toBe(expected.wilsonHigh);
+    expect(await shownValue(page, 'miss', 'cep50_0')).toBe(expected.cep50 ?? NaN);
+
+    const jobsBefore = await computeCounts(page);
+    const { before, after } = await changeControl(page, () => page.selectOption('#control-confidence', '0.99').then(() => undefined), 'success');
+    expect(after.success).toBeGreaterThan(before.success!);
+    expect(after.miss).toBe(before.miss);
+    expect(after.outcomes).toBe(before.outcomes);
+    expect((await computeCounts(page)).sweep).toBe(jobsBefore.sweep);
+    // A wider band at 99 %: the lower bound moved down, the rate did not.
+    expect(await shownValue(page, 'success', 'successRate0')).toBe(expected.successRate);
+    expect(await shownValue(page, 'success', 'wilsonLow0')).toBeLessThanOrEqual(expected.wilsonLow);
+
+    // The same analysis headless, and through the sweep and summarize commands.
+    const file = join(work, 'detection.json');
+    writeFileSync(file, analysisToText(a));
+    writeFileSync(join(work, 'scenario.json'), JSON.stringify(a.scenario));
+    let said = '';
+    const io = { stdout: (t: string) => (said += t), stderr: (t: string) => (said += t), interactive: false, cwd: work, env: {} };
+    expect(await reportCommand.run([file, '--out', 'report.html'], io), said).toBe(0);
+    const html = readFileSync(join(work, 'report.html'), 'utf8');
+    expect(reportValue(html, 'successRate0')).toBe(expected.successRate);
+    expect(reportValue(html, 'wilsonLow0')).toBe(expected.wilsonLow);
+    expect(reportValue(html, 'wilsonHigh0')).toBe(expected.wilsonHigh);
+    expect(html).toContain('Simulation results clear nothing for flight');
+    await cli(['sweep', 'scenario.json', '--vary', 'detector.pixelNoise=0.5,2,4,8', '--trials', '2', '--seed', '5', '--workers', '1', '--out', 'results.jsonl'], work);
+    const summaries = JSON.parse(await cli(['summarize', 'results.jsonl', '--json'], work)) as PointSummary[];
+    expect(summaries[0]!.successRate).toBe(expected.successRate);
+    expect(summaries[0]!.wilsonLow).toBe(expected.wilsonLow);
+    expect(summaries[0]!.wilsonHigh).toBe(expected.wilsonHigh);
+  });
+
+  it('localization: ranking by added miss redraws only the ranking', async () => {
+    const a = analysis('localization', { severity: 'moderate', trials: 1, rankBy: 'success' });
+    await openAnalysis(page, server.url, a);
+    const expected = librarySummary(a.scenario, a.seed, { 'localization.attitudeBiasDeg': 0 }, 0, 1);
+    expect(await shownValue(page, 'successPairs', 'successClean0')).toBe(expected.successRate);
+    const jobsBefore = await computeCounts(page);
+    const { before, after } = await changeControl(page, () => page.selectOption('#control-rankBy', 'cep50').then(() => undefined), 'ranking');
+    expect(after.ranking).toBeGreaterThan(before.ranking!);
+    expect(after.successPairs).toBe(before.successPairs);
+    expect(after.table).toBe(before.table);
+    expect((await computeCounts(page)).sweep_attitude).toBe(jobsBefore.sweep_attitude);
+  });
+
+  it('carrier: moving the success target by keyboard redraws only the envelope', async () => {
+    const a = analysis('carrier', { maxSpeed: 8, trials: 1, target: 0.8, envelopeRule: 'rate' });
+    await openAnalysis(page, server.url, a);
+    const expected = librarySummary(a.scenario, a.seed, { 'carrier.path.shape': 'straight', 'carrier.speed': 2 }, 0, 1);
+    expect(await shownValue(page, 'success', 'straightSlowest')).toBe(expected.successRate);
+    const jobsBefore = await computeCounts(page);
+    const { before, after } = await changeControl(page, async () => {
+      await page.focus('#control-target');
+      await page.keyboard.press('ArrowLeft');
+    }, 'envelope');
+    expect(after.envelope).toBeGreaterThan(before.envelope!);
+    expect(after.success).toBe(before.success);
+    expect(after.paths).toBe(before.paths);
+    expect((await computeCounts(page)).sweep).toBe(jobsBefore.sweep);
+    expect(await page.inputValue('#control-target')).toBe('0.75');
+  });
+
+  it('tuning: the acceptance level redraws only the consistency surface; the point equals alight tune', async () => {
+    const a = analysis('tuning', { grid: 2, trials: 1, refine: 0, neesWeight: '0.25', level: '0.95' });
+    await openAnalysis(page, server.url, a);
+    writeFileSync(join(work, 'scenario.json'), JSON.stringify(a.scenario));
+    const tuned = JSON.parse(await cli(['tune', 'scenario.json', '--trials', '1', '--grid', '2', '--refine', '0', '--gate', '1:1', '--seed', '5', '--workers', '1', '--json'], work)) as {
+      recommended: Record<string, number>;
+      cost: number;
+      successRate: number;
+    };
+    expect(await shownValue(page, 'landing', 'bestQ')).toBe(tuned.recommended['filter.qScale']);
+    expect(await shownValue(page, 'landing', 'bestR')).toBe(tuned.recommended['filter.rScale']);
+    expect(await shownValue(page, 'landing', 'bestCost')).toBe(tuned.cost);
+    const jobsBefore = await computeCounts(page);
+    const { before, after } = await changeControl(page, () => page.selectOption('#control-level', '0.99').then(() => undefined), 'consistency');
+    expect(after.consistency).toBeGreaterThan(before.consistency!);
+    expect(after.landing).toBe(before.landing);
+    expect(after.settings).toBe(before.settings);
+    expect((await computeCounts(page)).search).toBe(jobsBefore.search);
+  });
+});

@@ -8,6 +8,7 @@ import type { DetectorSpec } from '../Scenario.js';
 import type { CarrierState } from './carrierPath.js';
 import { CarrierOutline, type CarrierDimensions, type LanderPose, type MountedCamera } from './carrierOutline.js';
 import { GilbertElliott } from './gilbertElliott.js';
+import { poissonCount } from './poissonCount.js';
 
 /** Why the carrier gave no box in a frame. */
 export type DetectionLoss = 'behind-camera' | 'outside-image' | 'edge' | 'dropout' | 'burst' | null;
@@ -50,19 +51,6 @@ function createFrame(): DetectorFrame {
 
 function copyBox(from: Box, to: Box): void {
   to.xMin = from.xMin; to.yMin = from.yMin; to.xMax = from.xMax; to.yMax = from.yMax;
-}
-
-/** Poisson count with mean mu (Knuth's product of uniforms; fine for the small means per frame). */
-export function poissonCount(stream: RandomStream, mu: number): number {
-  if (!(mu > 0)) return 0;
-  const limit = Math.exp(-mu);
-  let k = 0;
-  let p = stream.uniform();
-  while (p > limit) {
-    k++;
-    p *= stream.uniform();
-  }
-  return k;
 }
 
 export class Detector {

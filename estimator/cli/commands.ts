@@ -3,11 +3,15 @@ import type { Command } from './Command.js';
 import { mergeCommand } from './mergeCommand.js';
 import { summarizeCommand } from './summarizeCommand.js';
 import { trialsCommand } from './trialsCommand.js';
+import { replayCommand } from './replayCommand.js';
+import { recordCommand } from './recordCommand.js';
 import { reportCommand } from './reportCommand.js';
 
 export const commands: Command[] = [
   mergeCommand,
   summarizeCommand,
   trialsCommand,
+  replayCommand,
+  recordCommand,
   reportCommand,
 ];

@@ -36,12 +36,22 @@ export class LogStreamReader {
   private readonly previous: Float64Array;
   private sameTimeRows = 0;
   private done = false;
+  /** Chunked input: text split into lines here (the last partial line carried over). */
+  private readonly chunked: boolean;
+  private buffer: string[] = [];
+  private bufferIndex = 0;
+  private carry = '';
 
-  constructor(spec: StreamSpec, lines: AsyncIterable<string>, problems: ProblemLog, offset = 0) {
+  /**
+   * @param input text lines without line ends, or (chunked = true) text chunks that may split lines anywhere
+   * @param offset seconds added to this stream's times (camera.json timeOffsets)
+   */
+  constructor(spec: StreamSpec, input: AsyncIterable<string>, problems: ProblemLog, offset = 0, chunked = false) {
     this.spec = spec;
+    this.chunked = chunked;
     this.offset = offset;
     this.problems = problems;
-    this.iterator = lines[Symbol.asyncIterator]();
+    this.iterator = input[Symbol.asyncIterator]();
     const slots = 1 + spec.layouts[0]!.length + spec.optional.length;
     this.values = new Float64Array(slots);
     this.previous = new Float64Array(slots * SAME_TIME_MEMORY);
@@ -78,38 +88,84 @@ export class LogStreamReader {
     if (this.orderSlot < 0) this.orderSlot = 0;
     this.timeSlots = this.columnNames.flatMap((c, s) => (c === 'time' || c === 'arrival' ? [s] : []));
     this.fieldCount = names.length;
-    this.ignoredColumns = names.filter((n) => !this.columnNames.includes(n));
+    const known = this.spec.knownPrefix;
+    this.ignoredColumns = names.filter((n) => !this.columnNames.includes(n) && !(known !== undefined && n.startsWith(known)));
   }
 
   /** Advance to the next valid row; false at the end of the stream. */
   async advance(): Promise<boolean> {
     for (;;) {
-      const text = await this.nextLine();
-      if (text === null) {
-        this.key = Infinity;
-        return false;
-      }
+      const state = this.step();
+      if (state >= 0) return state === 1;
+      await this.fill();
+    }
+  }
+
+  /**
+   * Synchronous part of advance(): 1 = a valid row is in `values`, 0 = end of stream,
+   * -1 = the buffered text is used up: await fill(), then step() again. Lets a merge
+   * pay for a promise per chunk instead of per row.
+   */
+  step(): number {
+    for (;;) {
+      const text = this.nextBufferedLine();
+      if (text === undefined) return this.done ? this.finish() : -1;
       this.read++;
-      if (this.parse(text)) return true;
+      if (this.parse(text)) return 1;
       this.skipped++;
     }
   }
 
-  private async nextLine(): Promise<string | null> {
-    while (!this.done) {
-      const next = await this.iterator.next();
-      if (next.done) {
-        this.done = true;
-        break;
+  /** Pull the next line (line input) or chunk (chunked input) from the source. */
+  async fill(): Promise<void> {
+    if (this.done) return;
+    const next = await this.iterator.next();
+    if (next.done) {
+      this.done = true;
+      if (this.carry.length > 0) this.buffer.push(this.carry);
+      this.carry = '';
+      return;
+    }
+    if (!this.chunked) {
+      this.buffer.push(next.value);
+      return;
+    }
+    const parts = (this.carry + next.value).split('\n');
+    this.carry = parts.pop()!;
+    this.buffer = this.bufferIndex < this.buffer.length ? this.buffer.slice(this.bufferIndex).concat(parts) : parts;
+    this.bufferIndex = 0;
+  }
+
+  private finish(): number {
+    this.key = Infinity;
+    return 0;
+  }
+
+  /** Next non-blank, non-comment line from the buffer (line counter advanced), or undefined. */
+  private nextBufferedLine(): string | undefined {
+    while (this.bufferIndex < this.buffer.length) {
+      const text = this.buffer[this.bufferIndex++]!;
+      if (this.bufferIndex === this.buffer.length) {
+        this.buffer.length = 0;
+        this.bufferIndex = 0;
       }
       this.line++;
-      const text = next.value;
-      const end = text.endsWith('\r') ? text.length - 1 : text.length;
+      const end = text.charCodeAt(text.length - 1) === 13 /* \r */ ? text.length - 1 : text.length;
       if (end === 0 || text.charCodeAt(0) === 35 /* # */) continue;
-      if (end === text.length ? text.trim() === '' : text.slice(0, end).trim() === '') continue;
+      const first = text.charCodeAt(0);
+      if ((first === 32 || first === 9 || first === 13) && text.trim() === '') continue;
       return end === text.length ? text : text.slice(0, end);
     }
-    return null;
+    return undefined;
+  }
+
+  private async nextLine(): Promise<string | null> {
+    for (;;) {
+      const text = this.nextBufferedLine();
+      if (text !== undefined) return text;
+      if (this.done) return null;
+      await this.fill();
+    }
   }
 
   /** Parse and check one data row into `values`; on a problem, report it and return false. */

@@ -1,5 +1,6 @@
 // Node-only adapter: a LogSource over a log folder on disk. CSV files stream line by line
-// through readline (bounded memory whatever the file size); the JSON files are read whole.
+// through readline, or (openChunks, what replayLog uses) in 1 MB text chunks that the reader
+// splits itself: bounded memory whatever the file size. The JSON files are read whole.
 import { createReadStream, existsSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { createInterface } from 'node:readline';
@@ -25,6 +26,11 @@ export function logSourceFromFolder(folder: string): LogSource {
       const path = join(folder, STREAM_SPECS[stream].file);
       if (!existsSync(path)) return null;
       return createInterface({ input: createReadStream(path, { encoding: 'utf8', highWaterMark: CHUNK_BYTES }), crlfDelay: Infinity });
+    },
+    openChunks(stream) {
+      const path = join(folder, STREAM_SPECS[stream].file);
+      if (!existsSync(path)) return null;
+      return createReadStream(path, { encoding: 'utf8', highWaterMark: CHUNK_BYTES }) as AsyncIterable<string>;
     },
     fileName: (stream) => STREAM_SPECS[stream].file,
   };

@@ -25,6 +25,8 @@ export interface StreamSpec {
   strict: boolean;
   /** The column whose value orders the stream and the merge (default "time"). */
   orderColumn: string;
+  /** Columns with this prefix are known but unused (not listed as ignored), e.g. onboard.csv's P_ columns. */
+  knownPrefix?: string;
 }
 
 const box: StreamSpec = {
@@ -63,6 +65,7 @@ export const STREAM_SPECS: Readonly<Record<LogStreamName, StreamSpec>> = {
     optional: [],
     strict: true,
     orderColumn: 'time',
+    knownPrefix: 'P_',
   },
 };
 

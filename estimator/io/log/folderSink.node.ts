@@ -1,0 +1,24 @@
+// Node-only adapter: a LogTextSink that writes each file of a log into a folder (created if
+// missing), appending chunks with synchronous writes (runTrial is synchronous).
+import { closeSync, mkdirSync, openSync, writeSync } from 'node:fs';
+import { join } from 'node:path';
+import type { LogTextSink } from './LogRecorder.js';
+
+export function folderSink(folder: string): LogTextSink {
+  mkdirSync(folder, { recursive: true });
+  const fds = new Map<string, number>();
+  return {
+    write(file, text) {
+      let fd = fds.get(file);
+      if (fd === undefined) {
+        fd = openSync(join(folder, file), 'w');
+        fds.set(file, fd);
+      }
+      writeSync(fd, text);
+    },
+    close() {
+      for (const fd of fds.values()) closeSync(fd);
+      fds.clear();
+    },
+  };
+}

@@ -88,6 +88,24 @@ describe('DrydenGust', () => {
     }
   });
 
+  it('step() keeps the standard correlation at a coarse step (xi = 2 L_u per step: the discretisation is exact)', () => {
+    const coarse = new DrydenGust('moderate', RandomStream.fromKey([2026, 0, 0, 8]));
+    const M = 200_000;
+    const cu = new Float64Array(M), cw = new Float64Array(M);
+    const stepLength = 2 * Lu; // m of frozen field per step
+    for (let i = 0; i < M; i++) {
+      coarse.step(stepLength / airspeed, heightM, airspeed, out);
+      cu[i] = out[0]!; cw[i] = out[2]!;
+    }
+    // lag-1 correlation sd ~ sqrt((1 - rho^2)^2 / M) < 0.0023; 0.01 is > 4 sd
+    expectClose(autocorrelation(cu, 1), Math.exp(-2), { abs: 0.01 }, 'rho_u(2 L_u)');
+    const xi = stepLength / Lw;
+    expectClose(autocorrelation(cw, 1), Math.exp(-xi) * (1 - xi / 2), { abs: 0.01 }, 'rho_w');
+    // moderate: W20 = 30 kt, so sigma_w = 0.1 W20 doubles light's
+    const variance = cw.reduce((sum, value) => sum + value * value, 0) / M;
+    expectClose(variance, (2 * scales.sigmaW * FT) ** 2, { rel: 0.02 }, 'var w'); // nearly independent samples: sd 0.3 %
+  });
+
   it('step() with level none writes zeros; the same seed gives the same gusts', () => {
     const none = new DrydenGust('none', RandomStream.fromKey([1]));
     expect(Array.from(none.step(0.01, 5, 3, new Float64Array(3)))).toEqual([0, 0, 0]);

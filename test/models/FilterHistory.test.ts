@@ -1,0 +1,29 @@
+import { describe, expect, it } from 'vitest';
+import { EVENTS_PER_STEP, FilterHistory } from '../../estimator/models/FilterHistory.js';
+
+describe('FilterHistory', () => {
+  it('keeps the newest steps of a ring and finds the step at or before a time', () => {
+    const h = new FilterHistory(2, 4);
+    for (let k = 0; k < 6; k++) h.push(k * 0.1, [k, 0, 0], [1, 0, 0, 0], [k, -k], [k, 0, 0, k]);
+    expect(h.length).toBe(4);
+    expect(h.time[h.slot(0)]).toBeCloseTo(0.5, 15);
+    expect(h.time[h.slot(3)]).toBeCloseTo(0.2, 15);
+    expect(h.ageAtOrBefore(0.35)).toBe(2);
+    expect(h.ageAtOrBefore(0.1)).toBe(-1);
+    const x = new Float64Array(2), P = new Float64Array(4);
+    h.restore(h.slot(1), x, P);
+    expect(Array.from(x)).toEqual([4, -4]);
+  });
+
+  it('keeps events of a step in time order and refuses more than EVENTS_PER_STEP', () => {
+    const h = new FilterHistory(1, 2);
+    const slot = h.push(1, [0, 0, 0], [1, 0, 0, 0], [0], [1]);
+    expect(h.addEvent(slot, 1, 0.98, 1, 2, 3)).toBe(true);
+    expect(h.addEvent(slot, 3, 0.95, 4, 5, 6)).toBe(true);
+    expect(Array.from(h.eventTime.slice(slot * EVENTS_PER_STEP, slot * EVENTS_PER_STEP + 2))).toEqual([0.95, 0.98]);
+    expect(h.eventData[3 * slot * EVENTS_PER_STEP]).toBe(4);
+    for (let k = 2; k < EVENTS_PER_STEP; k++) expect(h.addEvent(slot, 1, 0.99, 0, 0, 0)).toBe(true);
+    expect(h.isFull(slot)).toBe(true);
+    expect(h.addEvent(slot, 1, 0.99, 0, 0, 0)).toBe(false);
+  });
+});

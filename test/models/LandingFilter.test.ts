@@ -1,0 +1,214 @@
+import { describe, expect, it } from 'vitest';
+import { LandingFilter, FilterSpecError } from '../../estimator/models/LandingFilter.js';
+import { boxFromRelativePosition } from '../../estimator/camera/boxGeometry.js';
+import { quatFromEulerDeg } from '../../estimator/frames/quatFromEulerDeg.js';
+import { cameraFromBody, cameraPointFromWorldVector } from '../../estimator/frames/cameraFromBody.js';
+import { rotationMatrixFromQuat } from '../../estimator/frames/rotationMatrixFromQuat.js';
+import { averagedChiSquareInterval } from '../../estimator/stats/chiSquare.js';
+import { CameraError } from '../../estimator/camera/PinholeCamera.js';
+import { expectAllClose, expectClose } from '../helpers/expectClose.js';
+import { camera, filterSpec, hoverForce, targetSize } from './landingFixture.js';
+import { simulateTracking } from './trackingSimulation.js';
+
+const sigma = { position: 0.5, velocity: 0.3, accelBias: 0.05 };
+const level = [1, 0, 0, 0];
+const r0 = [0.4, -0.2, -9];
+
+function started(overrides = {}): LandingFilter {
+  const filter = new LandingFilter(filterSpec(overrides), camera, targetSize);
+  filter.initialize(0, r0, [1, 0, 0], [1, 0, 0], sigma);
+  return filter;
+}
+
+/** The box the filter's own model predicts for relative position r under attitude q. */
+function boxFor(r: number[], q: ArrayLike<number> = level) {
+  const p = cameraPointFromWorldVector(rotationMatrixFromQuat(q), cameraFromBody(camera.mount), camera.mount.offset, r);
+  return boxFromRelativePosition(camera, p, targetSize);
+}
+
+describe('LandingFilter: construction and bad input', () => {
+  it('has 12 states, 15 with the Singer carrier model (DESIGN reference formulation)', () => {
+    expect(new LandingFilter(filterSpec(), camera, targetSize).n).toBe(12);
+    expect(new LandingFilter(filterSpec({ carrierModel: 'singer' }), camera, targetSize).n).toBe(15);
+  });
+
+  it('refuses a spec whose R would not be positive definite, naming the field', () => {
+    expect(() => new LandingFilter(filterSpec({ pixelNoise: 0 }), camera, targetSize)).toThrow(FilterSpecError);
+    expect(() => new LandingFilter(filterSpec({ sizeNoise: -1 }), camera, targetSize)).toThrow(/filter\.sizeNoise: .*positive definite/);
+    expect(() => new LandingFilter(filterSpec({ odometryNoise: Number.NaN }), camera, targetSize)).toThrow(/filter\.odometryNoise/);
+    expect(() => new LandingFilter(filterSpec({ gateProbability: 1 }), camera, targetSize)).toThrow(/filter\.gateProbability/);
+  });
+
+  it('refuses a bad camera or target size with a typed error', () => {
+    expect(() => new LandingFilter(filterSpec(), { ...camera, fx: 0 }, targetSize)).toThrow(CameraError);
+    expect(() => new LandingFilter(filterSpec(), camera, 0)).toThrow(/targetSize/);
+  });
+
+  it('rejects NaN, zero-area and off-image boxes with a named reason and leaves the state alone', () => {
+    const filter = started();
+    filter.propagate(0.005, hoverForce, level);
+    const before = filter.x.slice();
+    expect(filter.updateBox(0.005, { xMin: Number.NaN, yMin: 0, xMax: 10, yMax: 10 })).toEqual({ status: 'rejected', nis: Number.NaN, dim: 3, reason: 'box-not-finite' });
+    expect(filter.updateBox(0.005, { xMin: 100, yMin: 100, xMax: 100, yMax: 150 }).reason).toBe('box-empty');
+    expect(filter.updateBox(0.005, { xMin: 900, yMin: 100, xMax: 950, yMax: 150 }).reason).toBe('box-outside-image');
+    expect(filter.updateOdometry(0.005, [Number.NaN, 0, 0]).reason).toBe('odometry-not-finite');
+    expect(filter.propagate(0.01, [Number.NaN, 0, 9.8], level)?.reason).toBe('imu-not-finite');
+    expect(filter.propagate(0.01, hoverForce, [0, 0, 0, 0])?.reason).toBe('attitude-not-finite');
+    expect(filter.propagate(0.001, hoverForce, level)?.reason).toBe('time-not-increasing');
+    expect(filter.updateBox(1, boxFor(r0)).reason).toBe('measurement-after-filter-time');
+    expectAllClose(filter.x, before, { abs: 0 }, 'state untouched');
+  });
+
+  it('rejects measurements before initialization and boxes older than the history', () => {
+    const fresh = new LandingFilter(filterSpec(), camera, targetSize);
+    expect(fresh.updateBox(0, boxFor(r0)).reason).toBe('not-initialized');
+    expect(fresh.propagate(0.01, hoverForce, level)?.reason).toBe('not-initialized');
+    const filter = started({ historyLength: 0.05 });
+    for (let k = 1; k <= 100; k++) filter.propagate(k * 0.005, hoverForce, level);
+    expect(filter.updateBox(0.1, boxFor(r0)).reason).toBe('older-than-history');
+  });
+
+  it('a box needs a known attitude: right after initialize() (no attitude yet) it is rejected', () => {
+    const filter = started();
+    expect(filter.updateBox(0, boxFor(r0)).reason).toBe('attitude-unknown');
+  });
+});
+
+describe('LandingFilter: divergence is a named event, never NaN downstream', () => {
+  it('an exploding IMU input turns into "state-not-finite"; x and P keep their last good values', () => {
+    const filter = started();
+    filter.propagate(0.005, hoverForce, level);
+    const goodX = filter.x.slice(), goodP = filter.P.slice();
+    const result = filter.propagate(1e10, [1e300, 1e300, 1e300], level);
+    expect(result).toEqual({ status: 'diverged', nis: Number.NaN, dim: 0, reason: 'state-not-finite' });
+    expect(filter.diverged).toBe('state-not-finite');
+    expectAllClose(filter.x, goodX, { abs: 0 }, 'x restored');
+    expectAllClose(filter.P, goodP, { abs: 0 }, 'P restored');
+    expect(filter.updateOdometry(0.005, [1, 0, 0]).status).toBe('diverged');
+    expect(filter.propagate(0.02, hoverForce, level)?.status).toBe('diverged');
+    filter.initialize(1, r0, [1, 0, 0], [1, 0, 0], sigma);
+    expect(filter.diverged).toBe(null);
+  });
+
+  it('an absurd time step overflows P: "covariance-not-finite"', () => {
+    const filter = started();
+    // dt = 1e110 s: dt³ in Q overflows (1e330) while dt² stays finite and the hover keeps x finite.
+    expect(filter.propagate(1e110, hoverForce, level)?.reason).toBe('covariance-not-finite');
+    for (const v of filter.P) expect(Number.isFinite(v)).toBe(true);
+  });
+
+  it('a covariance driven non-positive-definite is caught as "covariance-not-positive-definite"', () => {
+    const filter = started();
+    filter.propagate(0.005, hoverForce, level);
+    // Corrupt P from outside (as a numerical accident would): an indefinite vL block.
+    const n = filter.n;
+    filter.P[6 * n + 7] = 5;
+    filter.P[7 * n + 6] = 5;
+    const result = filter.updateOdometry(0.005, [1, 0, 0]);
+    expect(result.status).toBe('diverged');
+    expect(result.reason).toBe('covariance-not-positive-definite');
+    for (const v of filter.P) expect(Number.isFinite(v)).toBe(true);
+  });
+});
+
+describe('LandingFilter: updates', () => {
+  it('initializeFromBox back-projects the first box to r with the loose covariance', () => {
+    const q = quatFromEulerDeg(3, -2, 40);
+    const r = [1.2, -0.7, -8.5];
+    const filter = new LandingFilter(filterSpec(), camera, targetSize);
+    const result = filter.initializeFromBox(2, boxFor(r, q), q, [0.5, 0, 0], { velocity: 1, accelBias: 0.1 });
+    expect(result.status).toBe('accepted');
+    // 1e-9 m: back-projection of a noise-free box of the same model.
+    expectAllClose(filter.x.slice(0, 3), r, { abs: 1e-9 }, 'r');
+    expect(filter.time).toBe(2);
+    const n = filter.n;
+    // Depth from size is the least certain direction: world z variance dominates at nadir.
+    expect(filter.P[2 * n + 2]!).toBeGreaterThan(filter.P[0]!);
+  });
+
+  it('a box far from the prediction is gated with its NIS above the chi-square threshold (gateProbability 0.997)', () => {
+    const filter = started();
+    filter.propagate(0.005, hoverForce, level);
+    const result = filter.updateBox(0.005, boxFor([r0[0]! + 2.5, r0[1]!, r0[2]!]));
+    expect(result.status).toBe('gated');
+    expect(result.reason).toBe('outside-gate');
+    expect(result.nis).toBeGreaterThan(14.16); // chi2_3(0.997) = 14.16 [computed by chiSquareQuantile]
+  });
+
+  it('a delayed box applied at its capture time equals applying it on time (replay of IMU and odometry)', () => {
+    const q = quatFromEulerDeg(2, -1, 25);
+    const dt = 0.005;
+    const late = started(), onTime = started();
+    const force = (k: number) => [0.2 * Math.sin(k / 9), -0.1, 9.81 + 0.05 * Math.cos(k / 5)];
+    const capture = 20 * dt + 0.4 * dt; // between two IMU samples
+    const box = boxFor([0.35, -0.15, -8.7], q);
+    for (let k = 1; k <= 40; k++) {
+      const t = k * dt;
+      late.propagate(t, force(k), q);
+      if (k === 21) {
+        onTime.propagate(capture, force(k), q); // split the IMU step at the capture time
+        expect(onTime.updateBox(capture, box).status).toBe('accepted');
+      }
+      onTime.propagate(t, force(k), q);
+      if (k % 4 === 0) {
+        late.updateOdometry(t, [1 + 0.01 * k, 0.02, 0]);
+        onTime.updateOdometry(t, [1 + 0.01 * k, 0.02, 0]);
+      }
+    }
+    const result = late.updateBox(capture, box);
+    expect(result.status).toBe('accepted');
+    // 1e-12: identical operations in identical order; only the bookkeeping differs.
+    expectAllClose(late.x, onTime.x, { abs: 1e-12 }, 'x');
+    expectAllClose(late.P, onTime.P, { abs: 1e-12 }, 'P');
+    expect(late.time).toBe(onTime.time);
+  });
+
+  it('keeps P exactly symmetric over 20 000 predict/update pairs (upper triangle computed and mirrored)', () => {
+    const filter = started();
+    const q = quatFromEulerDeg(1, 2, 70);
+    for (let k = 1; k <= 20_000; k++) {
+      const t = k * 0.005;
+      filter.propagate(t, hoverForce, q);
+      if (k % 2 === 0) filter.updateBox(t, boxFor([0.3 * Math.sin(k / 50), 0.2, -9 + 0.3 * Math.cos(k / 70)], q));
+    }
+    const n = filter.n;
+    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) expect(filter.P[i * n + j]).toBe(filter.P[j * n + i]);
+    expect(filter.diverged).toBe(null);
+  });
+});
+
+describe('LandingFilter tracks a constant-velocity carrier from noisy, late boxes (seeded Monte Carlo)', () => {
+  const runs = 25;
+  const [lo, hi] = averagedChiSquareInterval(runs, 12, 0.95);
+
+  it('NEES of the 12-state error averaged over 25 runs is inside the 95 % chi-square interval at about 95 % of checks (Bar-Shalom, Li, Kirubarajan 2001, section 5.4)', () => {
+    const result = simulateTracking({ runs, duration: 8, latencySteps: 3 });
+    const means = result.nees.map((c) => c.reduce((a, b) => a + b, 0) / c.length);
+    const inside = means.filter((m) => m >= lo && m <= hi).length / means.length;
+    // 80 correlated checks, each a 95 % test: at least 85 % inside is the pass mark.
+    expect(inside).toBeGreaterThanOrEqual(0.85);
+    // Almost every box accepted (gate 0.997), none rejected, and the estimate is close.
+    expect(result.gated / result.accepted).toBeLessThan(0.01);
+    expect(result.rejected).toBe(0);
+    expect(result.finalPositionRms).toBeLessThan(0.15);
+  });
+
+  it('the same check fails when the filter assumes 2 px but the detector delivers 8 px', () => {
+    const result = simulateTracking({ runs, duration: 8, latencySteps: 3, truePixelNoise: 8 });
+    const means = result.nees.map((c) => c.reduce((a, b) => a + b, 0) / c.length);
+    expect(means.filter((m) => m >= lo && m <= hi).length / means.length).toBeLessThan(0.1);
+  });
+});
+
+describe('LandingFilter: NIS', () => {
+  it('reports NIS = yᵀ S⁻¹ y for an accepted box (0 for the predicted box itself)', () => {
+    const q = quatFromEulerDeg(0, 0, 10);
+    const filter = started();
+    filter.propagate(0.005, hoverForce, q);
+    const predicted = boxFor(Array.from(filter.x.slice(0, 3)), q);
+    const result = filter.updateBox(0.005, predicted);
+    expect(result.status).toBe('accepted');
+    // 1e-12: the innovation is round-off only.
+    expectClose(result.nis, 0, { abs: 1e-12 }, 'NIS');
+  });
+});

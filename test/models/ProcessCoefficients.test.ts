@@ -1,0 +1,41 @@
+import { describe, it } from 'vitest';
+import { emptyProcessCoefficients, processCoefficients } from '../../estimator/models/ProcessCoefficients.js';
+import { expectClose } from '../helpers/expectClose.js';
+
+describe('processCoefficients', () => {
+  it('constant velocity: the continuous white-noise integrals q dt³/3, q dt²/2, q dt (Bar-Shalom et al. 2001, continuous white-noise acceleration model)', () => {
+    const c = processCoefficients(0.02, { carrierAccelNoise: 0.5, singerTau: 1, accelNoise: 0.1, accelBiasWalk: 0.01, qScale: 2 }, emptyProcessCoefficients(false));
+    const qc = 0.25 * 2, qa = 0.01 * 2, qb = 1e-4 * 2, dt = 0.02;
+    // 1e-15 relative: closed forms evaluated directly.
+    expectClose(c.Qrr, ((qc + qa) * dt ** 3) / 3, { rel: 1e-14 }, 'Q_rr');
+    expectClose(c.QrVc, (qc * dt ** 2) / 2, { rel: 1e-14 }, 'Q_rvC');
+    expectClose(c.QrVl, (-qa * dt ** 2) / 2, { rel: 1e-14 }, 'Q_rvL');
+    expectClose(c.QVcVc, qc * dt, { rel: 1e-14 }, 'Q_vCvC');
+    expectClose(c.QBaBa, qb * dt, { rel: 1e-14 }, 'Q_baba');
+  });
+
+  it('Singer: quadrature equals the closed-form acceleration and velocity-acceleration terms (Singer 1970, IEEE Trans. AES-6)', () => {
+    const tau = 1.5, sigma = 0.4, dt = 0.05;
+    const c = processCoefficients(dt, { carrierAccelNoise: sigma, singerTau: tau, accelNoise: 0, accelBiasWalk: 0, qScale: 1 }, emptyProcessCoefficients(true));
+    const qw = (sigma * sigma) / (tau * tau);
+    const e1 = Math.exp(-dt / tau), e2 = Math.exp((-2 * dt) / tau);
+    // ∫₀^dt e^(-2s/τ) ds and ∫₀^dt τ(1 - e^(-s/τ)) e^(-s/τ) ds, worked by hand.
+    const aa = (qw * tau * (1 - e2)) / 2;
+    const va = qw * tau * (tau * (1 - e1) - (tau * (1 - e2)) / 2);
+    // 1e-13 relative: 8-point Gauss–Legendre on a smooth integrand is exact to round-off here.
+    expectClose(c.QAcAc, aa, { rel: 1e-13 }, 'Q_aa');
+    expectClose(c.QVcAc, va, { rel: 1e-12 }, 'Q_va');
+    expectClose(c.e, e1, { rel: 1e-15 }, 'e');
+    expectClose(c.beta, tau * (1 - e1), { rel: 1e-14 }, 'beta');
+  });
+
+  it('Singer tends to the white-noise model as tau -> 0 (same low-frequency density)', () => {
+    const dt = 0.01, sigma = 0.3;
+    const singer = processCoefficients(dt, { carrierAccelNoise: sigma, singerTau: 1e-5, accelNoise: 0, accelBiasWalk: 0, qScale: 1 }, emptyProcessCoefficients(true));
+    const cv = processCoefficients(dt, { carrierAccelNoise: sigma, singerTau: 1, accelNoise: 0, accelBiasWalk: 0, qScale: 1 }, emptyProcessCoefficients(false));
+    // 1e-2 relative: corrections are O(tau / dt) = 1e-3.
+    expectClose(singer.QVcVc, cv.QVcVc, { rel: 1e-2 }, 'Q_vCvC');
+    expectClose(singer.Qrr, cv.Qrr, { rel: 1e-2 }, 'Q_rr');
+    expectClose(singer.QrVc, cv.QrVc, { rel: 1e-2 }, 'Q_rvC');
+  });
+});

@@ -1,0 +1,93 @@
+import { describe, expect, it } from 'vitest';
+import { predictLanding } from '../../estimator/models/predictLanding.js';
+import { emptyProcessCoefficients, processCoefficients } from '../../estimator/models/ProcessCoefficients.js';
+import { rotationMatrixFromQuat } from '../../estimator/frames/rotationMatrixFromQuat.js';
+import { quatFromEulerDeg } from '../../estimator/frames/quatFromEulerDeg.js';
+import { RandomStream, streamId } from '../../estimator/random/RandomStream.js';
+import { expectAllClose, expectClose } from '../helpers/expectClose.js';
+
+const noise = { carrierAccelNoise: 0.4, singerTau: 1.5, accelNoise: 0.06, accelBiasWalk: 0.003, qScale: 1.7 };
+const Rwb = rotationMatrixFromQuat(quatFromEulerDeg(8, -5, 130));
+const f = [0.7, -0.4, 9.6];
+
+function randomSpd(n: number, stream: RandomStream): Float64Array {
+  const A = Array.from({ length: n * n }, () => stream.gaussian());
+  const P = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
+    let s = i === j ? 0.5 : 0;
+    for (let k = 0; k < n; k++) s += A[i * n + k]! * A[j * n + k]!;
+    P[i * n + j] = s / n;
+  }
+  return P;
+}
+
+for (const singer of [false, true]) {
+  const n = singer ? 15 : 12;
+  describe(`predictLanding (${singer ? 'Singer, 15 states' : 'constant velocity, 12 states'})`, () => {
+    const stream = RandomStream.fromKey([99, singer ? 1 : 0, streamId('predict')]);
+    const x0 = Float64Array.from({ length: n }, () => stream.gaussian());
+    const P0 = randomSpd(n, stream);
+    const dt = 0.01;
+    const c = processCoefficients(dt, noise, emptyProcessCoefficients(singer));
+
+    /** The state map x -> x⁺ alone (P untouched in a scratch copy). */
+    function step(x: ArrayLike<number>): Float64Array {
+      const out = Float64Array.from(x);
+      predictLanding(out, new Float64Array(n * n), n, f, Rwb, c);
+      return out;
+    }
+
+    it('propagates P as J P Jᵀ + Q with J the central-difference Jacobian of the state map', () => {
+      const J = new Float64Array(n * n);
+      const h = 1e-5;
+      for (let k = 0; k < n; k++) {
+        const plus = x0.slice(), minus = x0.slice();
+        plus[k]! += h;
+        minus[k]! -= h;
+        const a = step(plus), b = step(minus);
+        for (let i = 0; i < n; i++) J[i * n + k] = (a[i]! - b[i]!) / (2 * h);
+      }
+      const x = x0.slice(), P = P0.slice();
+      expect(predictLanding(x, P, n, f, Rwb, c)).toBe(true);
+      const Qfree = P.slice();
+      // Expected J P0 Jᵀ; subtract from P to recover Q, which must match the coefficients.
+      const expected = new Float64Array(n * n);
+      for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) {
+        let s = 0;
+        for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) s += J[i * n + a]! * P0[a * n + b]! * J[j * n + b]!;
+        expected[i * n + j] = s;
+      }
+      for (let i = 0; i < n * n; i++) Qfree[i] = P[i]! - expected[i]!;
+      // 1e-9: the state map is affine in x, so central differences are exact up to round-off / h.
+      for (let a = 0; a < 3; a++) {
+        expectClose(Qfree[a * n + a]!, c.Qrr, { abs: 1e-9 }, 'Q_rr');
+        expectClose(Qfree[(3 + a) * n + 3 + a]!, c.QVcVc, { abs: 1e-9 }, 'Q_vCvC');
+        expectClose(Qfree[(6 + a) * n + 6 + a]!, c.QVlVl, { abs: 1e-9 }, 'Q_vLvL');
+        expectClose(Qfree[a * n + 6 + a]!, c.QrVl, { abs: 1e-9 }, 'Q_rvL');
+      }
+      const off = Qfree.slice();
+      for (let a = 0; a < 3; a++) for (const [i, j] of [[a, a], [a, 3 + a], [3 + a, a], [a, 6 + a], [6 + a, a], [3 + a, 3 + a], [6 + a, 6 + a], [9 + a, 9 + a], [a, 12 + a], [12 + a, a], [3 + a, 12 + a], [12 + a, 3 + a], [12 + a, 12 + a]]) {
+        if (i! < n && j! < n) off[i! * n + j!] = 0;
+      }
+      expectAllClose(off, new Float64Array(n * n), { abs: 1e-9 }, 'no other Q entries');
+    });
+
+    it('keeps P exactly symmetric', () => {
+      const x = x0.slice(), P = P0.slice();
+      predictLanding(x, P, n, f, Rwb, c);
+      for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) expect(P[i * n + j]).toBe(P[j * n + i]);
+    });
+
+    it('integrates a constant acceleration exactly: r and vL after one step (kinematics, common practice)', () => {
+      const x = x0.slice();
+      predictLanding(x, new Float64Array(n * n), n, f, Rwb, c);
+      const fb = [f[0]! - x0[9]!, f[1]! - x0[10]!, f[2]! - x0[11]!];
+      for (let i = 0; i < 3; i++) {
+        const a = Rwb[3 * i]! * fb[0]! + Rwb[3 * i + 1]! * fb[1]! + Rwb[3 * i + 2]! * fb[2]! - (i === 2 ? 9.80665 : 0);
+        const carrier = singer ? c.alpha * x0[12 + i]! : 0;
+        expectClose(x[6 + i]!, x0[6 + i]! + a * dt, { abs: 1e-14 }, `vL[${i}]`);
+        expectClose(x[i]!, x0[i]! + dt * (x0[3 + i]! - x0[6 + i]!) - 0.5 * a * dt * dt + carrier, { abs: 1e-14 }, `r[${i}]`);
+      }
+    });
+  });
+}

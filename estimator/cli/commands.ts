@@ -1,5 +1,7 @@
 // The command list: one import and one entry per command, in the order --help shows them.
 import type { Command } from './Command.js';
+import { simulateCommand } from './simulateCommand.js';
+import { cameraCommand } from './cameraCommand.js';
 import { mergeCommand } from './mergeCommand.js';
 import { summarizeCommand } from './summarizeCommand.js';
 import { trialsCommand } from './trialsCommand.js';
@@ -8,6 +10,8 @@ import { recordCommand } from './recordCommand.js';
 import { reportCommand } from './reportCommand.js';
 
 export const commands: Command[] = [
+  simulateCommand,
+  cameraCommand,
   mergeCommand,
   summarizeCommand,
   trialsCommand,

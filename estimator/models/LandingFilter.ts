@@ -9,47 +9,21 @@
 // updates, a NaN never leaves the filter (x and P are restored to the last good step).
 import type { FilterSpec } from '../sim/Scenario.js';
 import { type Box, boxProblem } from '../camera/Box.js';
-import { BoxMeasurementModel, type FilterCamera } from './FilterCamera.js';
+import type { FilterCamera } from './FilterCamera.js';
 import { FilterHistory, EVENT_LOOSE, EVENT_ODOMETRY, EVENT_TIGHT, EVENTS_PER_STEP } from './FilterHistory.js';
-import { emptyProcessCoefficients, processCoefficients, type ProcessCoefficients, type ProcessNoise } from './ProcessCoefficients.js';
-import { predictLanding } from './predictLanding.js';
-import { landingStateDimension, VL_INDEX } from './landingState.js';
+import { LandingCore } from './LandingCore.js';
+import { rejected, type InitialSigma, type UpdateResult, type UpdateStatus } from './UpdateResult.js';
 import { validateFilterSpec } from './validateFilterSpec.js';
-import { UpdateWorkspace } from '../filter/UpdateWorkspace.js';
-import { innovationCovariance3, normalizedInnovationSquared3, updateJoseph3 } from '../filter/blockUpdate3.js';
 import { allFinite, checkCovariance } from '../filter/checkCovariance.js';
 import { cholesky } from '../filter/cholesky.js';
-import { gateThreshold } from '../filter/gate.js';
-import { rotationMatrixFromQuat } from '../frames/rotationMatrixFromQuat.js';
 
 export type { FilterCamera } from './FilterCamera.js';
 export type { Box } from '../camera/Box.js';
+export type { UpdateStatus, UpdateResult, InitialSigma } from './UpdateResult.js';
 export { FilterSpecError } from './validateFilterSpec.js';
-
-export type UpdateStatus = 'accepted' | 'gated' | 'rejected' | 'diverged';
-
-/** Outcome of one measurement. nis is NaN unless status is 'accepted' or 'gated'. */
-export interface UpdateResult {
-  status: UpdateStatus;
-  nis: number;
-  dim: number;
-  reason: string | null;
-}
-
-/** Initial 1-sigma uncertainties (m, m/s, m/s²). */
-export interface InitialSigma {
-  position: number;
-  velocity: number;
-  accelBias: number;
-}
 
 const TIME_EPSILON = 1e-9; // s: capture times this close to the filter clock count as "now"
 const PD_CHECK_INTERVAL = 8; // updates between full Cholesky tests of P
-const IDENTITY3 = new Float64Array([1, 0, 0, 0, 1, 0, 0, 0, 1]);
-
-function rejected(reason: string, dim = 0): UpdateResult {
-  return { status: 'rejected', nis: Number.NaN, dim, reason };
-}
 
 export class LandingFilter {
   /** State dimension: 12, or 15 with the Singer carrier model. */
@@ -60,30 +34,14 @@ export class LandingFilter {
   private clock = Number.NaN;
   private divergence: string | null = null;
   private initialized = false;
-  private readonly model: BoxMeasurementModel;
-  private readonly noise: ProcessNoise;
-  private readonly coefficients: ProcessCoefficients;
+  private updatesSinceCheck = 0;
+  private readonly core: LandingCore;
   private readonly history: FilterHistory;
-  private readonly ws: UpdateWorkspace;
-  private readonly gate: number;
   private readonly loose: boolean;
-  private readonly varPixel: number;
-  private readonly varSize: number;
-  private readonly Rbox: Float64Array;
-  private readonly Rodometry: Float64Array;
-  private readonly Rfix = new Float64Array(9);
-  private readonly fix = new Float64Array(3);
-  private readonly h = new Float64Array(3);
-  private readonly Hb = new Float64Array(9);
-  private readonly Rwb = new Float64Array(9);
   private readonly attitude = new Float64Array(4);
   private readonly force = new Float64Array(3);
   private readonly replayForce = new Float64Array(3);
   private readonly replayAttitude = new Float64Array(4);
-  private readonly check: Float64Array;
-  private updatesSinceCheck = 0;
-  private lastNis = Number.NaN;
-  private lastReason: string | null = null;
 
   /**
    * @param spec filter settings (validated here: FilterSpecError names the bad field)
@@ -92,24 +50,12 @@ export class LandingFilter {
    */
   constructor(readonly spec: FilterSpec, camera: FilterCamera, targetSize: number) {
     validateFilterSpec(spec);
-    const singer = spec.carrierModel === 'singer';
-    this.n = landingStateDimension(singer);
-    const n = this.n;
-    this.x = new Float64Array(n);
-    this.P = new Float64Array(n * n);
-    this.model = new BoxMeasurementModel(camera, targetSize);
-    this.noise = { carrierAccelNoise: spec.carrierAccelNoise, singerTau: spec.singerTau, accelNoise: spec.accelNoise, accelBiasWalk: spec.accelBiasWalk, qScale: spec.qScale };
-    this.coefficients = emptyProcessCoefficients(singer);
-    this.history = new FilterHistory(n, Math.ceil(spec.historyLength * spec.rate * 1.5) + 4);
-    this.ws = new UpdateWorkspace(n, 3);
-    this.gate = gateThreshold(spec.gateProbability, 3, spec.gateScale);
+    this.core = new LandingCore(spec, camera, targetSize);
+    this.n = this.core.n;
+    this.x = this.core.x;
+    this.P = this.core.P;
+    this.history = new FilterHistory(this.n, Math.ceil(spec.historyLength * spec.rate * 1.5) + 4);
     this.loose = spec.cameraUpdate === 'loose';
-    this.varPixel = spec.pixelNoise * spec.pixelNoise * spec.rScale;
-    this.varSize = spec.sizeNoise * spec.sizeNoise * spec.rScale;
-    this.Rbox = new Float64Array([this.varPixel, 0, 0, 0, this.varPixel, 0, 0, 0, this.varSize]);
-    const varOdometry = spec.odometryNoise * spec.odometryNoise * spec.rScale;
-    this.Rodometry = new Float64Array([varOdometry, 0, 0, 0, varOdometry, 0, 0, 0, varOdometry]);
-    this.check = new Float64Array(n * n);
   }
 
   /** Filter clock (s) = IMU clock; NaN before initialization. */
@@ -148,18 +94,19 @@ export class LandingFilter {
    * nis is NaN (there is no prior to compare with).
    */
   initializeFromBox(t: number, box: Box, qWorldBody: ArrayLike<number>, vL: ArrayLike<number>, sigma: { velocity: number; accelBias: number }): UpdateResult {
-    const problem = boxProblem(box, this.model.camera.width, this.model.camera.height);
+    const problem = boxProblem(box, this.core.model.camera.width, this.core.model.camera.height);
     if (problem) return rejected(problem, 3);
     if (!Number.isFinite(t) || !this.normalizeAttitude(qWorldBody)) return rejected('attitude-not-finite', 3);
     if (![vL[0]!, vL[1]!, vL[2]!].every(Number.isFinite)) return rejected('velocity-not-finite', 3);
-    this.model.setAttitude(this.attitude);
+    const core = this.core;
+    core.model.setAttitude(this.attitude);
     const u = (box.xMin + box.xMax) / 2, v = (box.yMin + box.yMax) / 2, s = Math.sqrt((box.xMax - box.xMin) * (box.yMax - box.yMin));
-    const modelProblem = this.model.loose(u, v, s, this.varPixel, this.varPixel, this.varSize, this.fix, this.Rfix);
+    const modelProblem = core.model.loose(u, v, s, core.varPixel, core.varPixel, core.varSize, core.fix, core.Rfix);
     if (modelProblem) return rejected(modelProblem, 3);
-    if (!cholesky(this.Rfix, 3, this.check)) return rejected('fix-covariance-not-positive-definite', 3);
-    this.initialize(t, this.fix, [0, 0, 0], vL, { position: 1, velocity: sigma.velocity, accelBias: sigma.accelBias });
+    if (!cholesky(this.core.Rfix, 3, this.core.check)) return rejected('fix-covariance-not-positive-definite', 3);
+    this.initialize(t, core.fix, [0, 0, 0], vL, { position: 1, velocity: sigma.velocity, accelBias: sigma.accelBias });
     const n = this.n;
-    for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) this.P[i * n + j] = this.Rfix[3 * i + j]!;
+    for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) this.P[i * n + j] = core.Rfix[3 * i + j]!;
     this.history.clear();
     this.history.push(t, this.force, this.attitude, this.x, this.P);
     return { status: 'accepted', nis: Number.NaN, dim: 3, reason: null };
@@ -179,7 +126,7 @@ export class LandingFilter {
     this.force[0] = f0;
     this.force[1] = f1;
     this.force[2] = f2;
-    if (!this.step(dt, this.force, this.attitude)) return this.diverge(this.nonFiniteEvent(), this.history.slot(0));
+    if (!this.core.step(dt, this.force, this.attitude)) return this.diverge(this.core.nonFiniteEvent(), this.history.slot(0));
     this.clock = t;
     this.history.push(t, this.force, this.attitude, this.x, this.P);
     return null;
@@ -187,7 +134,7 @@ export class LandingFilter {
 
   /** Box captured at captureTime (may be in the past: applied then and re-propagated to now). */
   updateBox(captureTime: number, box: Box): UpdateResult {
-    const problem = boxProblem(box, this.model.camera.width, this.model.camera.height);
+    const problem = boxProblem(box, this.core.model.camera.width, this.core.model.camera.height);
     if (problem) return rejected(problem, 3);
     const u = (box.xMin + box.xMax) / 2, v = (box.yMin + box.yMax) / 2, s = Math.sqrt((box.xMax - box.xMin) * (box.yMax - box.yMin));
     return this.measure(this.loose ? EVENT_LOOSE : EVENT_TIGHT, captureTime, u, v, s);
@@ -210,11 +157,11 @@ export class LandingFilter {
     if (t >= this.clock - TIME_EPSILON) {
       if (history.isFull(head)) return rejected('too-many-updates-per-step', 3);
       const status = this.apply(kind, head, d0, d1, d2, true);
-      if (status === 'diverged') return this.diverge(this.lastReason ?? 'covariance-not-positive-definite', head);
+      if (status === 'diverged') return this.diverge(this.core.lastReason ?? 'covariance-not-positive-definite', head);
       if (status !== 'accepted') return this.result(status);
       if (++this.updatesSinceCheck >= PD_CHECK_INTERVAL) {
         this.updatesSinceCheck = 0;
-        const event = checkCovariance(this.x, this.P, this.n, this.check);
+        const event = checkCovariance(this.x, this.P, this.n, this.core.check);
         if (event) return this.diverge(event, head);
       }
       history.addEvent(head, kind, this.clock, d0, d1, d2);
@@ -240,7 +187,7 @@ export class LandingFilter {
     this.stepWithSlotInput(t - tau, to);
     tau = t;
     const status = this.apply(kind, to, d0, d1, d2, true);
-    const nis = this.lastNis, reason = this.lastReason;
+    const nis = this.core.lastNis, reason = this.core.lastReason;
     if (status === 'diverged') return this.diverge(reason ?? 'covariance-not-positive-definite', history.slot(0));
     if (status !== 'accepted') {
       history.restore(history.slot(0), this.x, this.P);
@@ -249,7 +196,7 @@ export class LandingFilter {
     history.addEvent(to, kind, t, d0, d1, d2);
     for (k = k + 1; k < count + 1; k++) tau = this.replayEvent(to, base + k, tau);
     this.stepWithSlotInput(history.time[to]! - tau, to);
-    let event = checkCovariance(this.x, this.P, this.n, this.check);
+    let event = checkCovariance(this.x, this.P, this.n, this.core.check);
     if (event) return this.diverge(event, history.slot(0));
     history.save(to, this.x, this.P);
     for (let a = age - 2; a >= 0; a--) {
@@ -258,13 +205,13 @@ export class LandingFilter {
       const slotBase = slot * EVENTS_PER_STEP;
       for (let e = 0; e < history.eventCount[slot]!; e++) tau = this.replayEvent(slot, slotBase + e, tau);
       this.stepWithSlotInput(history.time[slot]! - tau, slot);
-      if (!allFinite(this.x, this.n) || !allFinite(this.P, this.n * this.n)) return this.diverge(this.nonFiniteEvent(), history.slot(0));
+      if (!allFinite(this.x, this.n) || !allFinite(this.P, this.n * this.n)) return this.diverge(this.core.nonFiniteEvent(), history.slot(0));
       history.save(slot, this.x, this.P);
     }
-    event = checkCovariance(this.x, this.P, this.n, this.check);
+    event = checkCovariance(this.x, this.P, this.n, this.core.check);
     if (event) return this.diverge(event, history.slot(0));
-    this.lastNis = nis;
-    this.lastReason = reason;
+    this.core.lastNis = nis;
+    this.core.lastReason = reason;
     return this.result('accepted');
   }
 
@@ -282,84 +229,18 @@ export class LandingFilter {
     const h = this.history, f = this.replayForce, q = this.replayAttitude;
     for (let i = 0; i < 3; i++) f[i] = h.force[3 * slot + i]!;
     for (let i = 0; i < 4; i++) q[i] = h.attitude[4 * slot + i]!;
-    this.step(dt, f, q);
+    this.core.step(dt, f, q);
   }
 
-  /** One predict step; false when x or P became non-finite. */
-  private step(dt: number, force: ArrayLike<number>, attitude: ArrayLike<number>): boolean {
-    rotationMatrixFromQuat(attitude, this.Rwb);
-    processCoefficients(dt, this.noise, this.coefficients);
-    return predictLanding(this.x, this.P, this.n, force, this.Rwb, this.coefficients);
-  }
-
-  private nonFiniteEvent(): string {
-    return allFinite(this.x, this.n) ? 'covariance-not-finite' : 'state-not-finite';
-  }
-
-  /** One measurement update with the attitude stored in `slot`; sets lastNis / lastReason. */
+  /** One measurement update with the attitude stored in `slot`. */
   private apply(kind: number, slot: number, d0: number, d1: number, d2: number, useGate: boolean): UpdateStatus {
-    const ws = this.ws, x = this.x, y = ws.y;
-    this.lastNis = Number.NaN;
-    this.lastReason = null;
-    let col = 0;
-    let R: Float64Array = this.Rbox;
-    let Hb: Float64Array = this.Hb;
-    if (kind === EVENT_ODOMETRY) {
-      col = VL_INDEX;
-      R = this.Rodometry;
-      Hb = IDENTITY3;
-      y[0] = d0 - x[6]!;
-      y[1] = d1 - x[7]!;
-      y[2] = d2 - x[8]!;
-    } else {
-      const q = this.replayAttitude;
-      for (let i = 0; i < 4; i++) q[i] = this.history.attitude[4 * slot + i]!;
-      if (!Number.isFinite(q[0]!)) return this.fail('attitude-unknown');
-      this.model.setAttitude(q);
-      if (kind === EVENT_TIGHT) {
-        const problem = this.model.tight(x, this.h, this.Hb);
-        if (problem) return this.fail(problem);
-        y[0] = d0 - this.h[0]!;
-        y[1] = d1 - this.h[1]!;
-        y[2] = d2 - this.h[2]!;
-      } else {
-        const problem = this.model.loose(d0, d1, d2, this.varPixel, this.varPixel, this.varSize, this.fix, this.Rfix);
-        if (problem) return this.fail(problem);
-        R = this.Rfix;
-        Hb = IDENTITY3;
-        y[0] = this.fix[0]! - x[0]!;
-        y[1] = this.fix[1]! - x[1]!;
-        y[2] = this.fix[2]! - x[2]!;
-      }
-    }
-    if (!innovationCovariance3(this.P, Hb, col, R, this.n, ws)) {
-      // R is positive definite (spec) or semi-definite (loose fix), so S fails only when P does.
-      const event = checkCovariance(this.x, this.P, this.n, this.check);
-      if (event) {
-        this.lastReason = event;
-        return 'diverged';
-      }
-      return this.fail('innovation-covariance-not-positive-definite');
-    }
-    this.lastNis = normalizedInnovationSquared3(ws);
-    if (useGate && this.lastNis > this.gate) {
-      this.lastReason = 'outside-gate';
-      return 'gated';
-    }
-    if (!updateJoseph3(this.x, this.P, this.n, ws)) {
-      this.lastReason = this.nonFiniteEvent();
-      return 'diverged';
-    }
-    return 'accepted';
-  }
-
-  private fail(reason: string): UpdateStatus {
-    this.lastReason = reason;
-    return 'rejected';
+    const q = this.replayAttitude;
+    for (let i = 0; i < 4; i++) q[i] = this.history.attitude[4 * slot + i]!;
+    return this.core.apply(kind, q, d0, d1, d2, useGate);
   }
 
   private result(status: UpdateStatus): UpdateResult {
-    return { status, nis: status === 'accepted' || status === 'gated' ? this.lastNis : Number.NaN, dim: 3, reason: this.lastReason };
+    return { status, nis: status === 'accepted' || status === 'gated' ? this.core.lastNis : Number.NaN, dim: 3, reason: this.core.lastReason };
   }
 
   private diverge(event: string, goodSlot: number): UpdateResult {
@@ -383,10 +264,11 @@ export class LandingFilter {
     this.x.fill(0);
     this.P.fill(0);
     this.divergence = null;
-    this.coefficients.dt = Number.NaN;
+    const { coefficients, noise } = this.core;
+    coefficients.dt = Number.NaN;
     if (this.n === 15) {
-      const tau = this.noise.singerTau, sigma = this.noise.carrierAccelNoise;
-      this.setDiagonal(12, Math.max((sigma * sigma * this.noise.qScale) / (2 * tau), 1e-12));
+      const tau = noise.singerTau, sigma = noise.carrierAccelNoise;
+      this.setDiagonal(12, Math.max((sigma * sigma * noise.qScale) / (2 * tau), 1e-12));
     }
   }
 

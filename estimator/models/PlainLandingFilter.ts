@@ -12,7 +12,7 @@ import { landingStateDimension, STANDARD_GRAVITY } from './landingState.js';
 import { validateFilterSpec } from './validateFilterSpec.js';
 import { gateThreshold } from '../filter/gate.js';
 import { rotationMatrixFromQuat } from '../frames/rotationMatrixFromQuat.js';
-import type { InitialSigma, UpdateResult } from './LandingFilter.js';
+import type { InitialSigma, UpdateResult } from './UpdateResult.js';
 
 function block(M: Matrix, row: number, col: number, B: Matrix | number): void {
   for (let i = 0; i < 3; i++) {

@@ -1,0 +1,141 @@
+// One predict step and one measurement update of the landing EKF, on preallocated typed
+// arrays (allocation-free). LandingFilter adds the clock, the history for delayed boxes and
+// divergence bookkeeping on top. Measurements (all 3-dimensional, H non-zero in one 3-column
+// block; see FilterCamera.ts for the camera models):
+//   tight    z = [u, v, s] (px),          H = [∂h/∂r 0 0 0],   R = diag(σp², σp², σs²) · rScale
+//   loose    z = back-projected r (m),     H = [I 0 0 0],       R = propagated box noise
+//   odometry z = vL (m/s, world),          H = [0 0 I 0],       R = σo² I · rScale
+import type { FilterSpec } from '../sim/Scenario.js';
+import { BoxMeasurementModel, type FilterCamera } from './FilterCamera.js';
+import { EVENT_ODOMETRY, EVENT_TIGHT } from './FilterHistory.js';
+import { emptyProcessCoefficients, processCoefficients, type ProcessCoefficients, type ProcessNoise } from './ProcessCoefficients.js';
+import { predictLanding } from './predictLanding.js';
+import { landingStateDimension, VL_INDEX } from './landingState.js';
+import type { UpdateStatus } from './UpdateResult.js';
+import { UpdateWorkspace } from '../filter/UpdateWorkspace.js';
+import { innovationCovariance3, normalizedInnovationSquared3, updateJoseph3 } from '../filter/blockUpdate3.js';
+import { allFinite, checkCovariance } from '../filter/checkCovariance.js';
+import { gateThreshold } from '../filter/gate.js';
+import { rotationMatrixFromQuat } from '../frames/rotationMatrixFromQuat.js';
+
+const IDENTITY3 = new Float64Array([1, 0, 0, 0, 1, 0, 0, 0, 1]);
+
+export class LandingCore {
+  readonly n: number;
+  readonly x: Float64Array;
+  readonly P: Float64Array;
+  readonly model: BoxMeasurementModel;
+  readonly noise: ProcessNoise;
+  readonly coefficients: ProcessCoefficients;
+  /** Box centre and size variances (px², rScale applied). */
+  readonly varPixel: number;
+  readonly varSize: number;
+  /** NIS and reason of the last apply(). */
+  lastNis = Number.NaN;
+  lastReason: string | null = null;
+  /** Scratch for the loose fix and its covariance (also used by initializeFromBox). */
+  readonly fix = new Float64Array(3);
+  readonly Rfix = new Float64Array(9);
+  readonly check: Float64Array;
+  private readonly ws: UpdateWorkspace;
+  private readonly gate: number;
+  private readonly Rbox: Float64Array;
+  private readonly Rodometry: Float64Array;
+  private readonly h = new Float64Array(3);
+  private readonly Hb = new Float64Array(9);
+  private readonly Rwb = new Float64Array(9);
+
+  constructor(spec: FilterSpec, camera: FilterCamera, targetSize: number) {
+    const singer = spec.carrierModel === 'singer';
+    this.n = landingStateDimension(singer);
+    this.x = new Float64Array(this.n);
+    this.P = new Float64Array(this.n * this.n);
+    this.check = new Float64Array(this.n * this.n);
+    this.model = new BoxMeasurementModel(camera, targetSize);
+    this.noise = { carrierAccelNoise: spec.carrierAccelNoise, singerTau: spec.singerTau, accelNoise: spec.accelNoise, accelBiasWalk: spec.accelBiasWalk, qScale: spec.qScale };
+    this.coefficients = emptyProcessCoefficients(singer);
+    this.ws = new UpdateWorkspace(this.n, 3);
+    this.gate = gateThreshold(spec.gateProbability, 3, spec.gateScale);
+    this.varPixel = spec.pixelNoise * spec.pixelNoise * spec.rScale;
+    this.varSize = spec.sizeNoise * spec.sizeNoise * spec.rScale;
+    this.Rbox = new Float64Array([this.varPixel, 0, 0, 0, this.varPixel, 0, 0, 0, this.varSize]);
+    const varOdometry = spec.odometryNoise * spec.odometryNoise * spec.rScale;
+    this.Rodometry = new Float64Array([varOdometry, 0, 0, 0, varOdometry, 0, 0, 0, varOdometry]);
+  }
+
+  /** One predict step of dt (s) with specific force f (body, m/s²) and unit q_wb; false when x or P became non-finite. */
+  step(dt: number, force: ArrayLike<number>, attitude: ArrayLike<number>): boolean {
+    rotationMatrixFromQuat(attitude, this.Rwb);
+    processCoefficients(dt, this.noise, this.coefficients);
+    return predictLanding(this.x, this.P, this.n, force, this.Rwb, this.coefficients);
+  }
+
+  /** The divergence event for a non-finite x or P. */
+  nonFiniteEvent(): string {
+    return allFinite(this.x, this.n) ? 'covariance-not-finite' : 'state-not-finite';
+  }
+
+  /**
+   * One measurement update (kind from FilterHistory) with attitude q (unused for odometry).
+   * Returns 'diverged' with lastReason = the event when P turns out broken; x and P are then
+   * left for the caller to restore.
+   */
+  apply(kind: number, q: Float64Array, d0: number, d1: number, d2: number, useGate: boolean): UpdateStatus {
+    const ws = this.ws, x = this.x, y = ws.y;
+    this.lastNis = Number.NaN;
+    this.lastReason = null;
+    let col = 0;
+    let R: Float64Array = this.Rbox;
+    let Hb: Float64Array = this.Hb;
+    if (kind === EVENT_ODOMETRY) {
+      col = VL_INDEX;
+      R = this.Rodometry;
+      Hb = IDENTITY3;
+      y[0] = d0 - x[6]!;
+      y[1] = d1 - x[7]!;
+      y[2] = d2 - x[8]!;
+    } else {
+      if (!Number.isFinite(q[0]!)) return this.fail('attitude-unknown');
+      this.model.setAttitude(q);
+      if (kind === EVENT_TIGHT) {
+        const problem = this.model.tight(x, this.h, this.Hb);
+        if (problem) return this.fail(problem);
+        y[0] = d0 - this.h[0]!;
+        y[1] = d1 - this.h[1]!;
+        y[2] = d2 - this.h[2]!;
+      } else {
+        const problem = this.model.loose(d0, d1, d2, this.varPixel, this.varPixel, this.varSize, this.fix, this.Rfix);
+        if (problem) return this.fail(problem);
+        R = this.Rfix;
+        Hb = IDENTITY3;
+        y[0] = this.fix[0]! - x[0]!;
+        y[1] = this.fix[1]! - x[1]!;
+        y[2] = this.fix[2]! - x[2]!;
+      }
+    }
+    if (!innovationCovariance3(this.P, Hb, col, R, this.n, ws)) {
+      // R is positive definite (spec) or semi-definite (loose fix), so S fails only when P does.
+      const event = checkCovariance(this.x, this.P, this.n, this.check);
+      if (event) {
+        this.lastReason = event;
+        return 'diverged';
+      }
+      return this.fail('innovation-covariance-not-positive-definite');
+    }
+    this.lastNis = normalizedInnovationSquared3(ws);
+    if (useGate && this.lastNis > this.gate) {
+      this.lastReason = 'outside-gate';
+      return 'gated';
+    }
+    if (!updateJoseph3(this.x, this.P, this.n, ws)) {
+      this.lastReason = this.nonFiniteEvent();
+      return 'diverged';
+    }
+    return 'accepted';
+  }
+
+  private fail(reason: string): UpdateStatus {
+    this.lastReason = reason;
+    return 'rejected';
+  }
+}

@@ -1,0 +1,13 @@
+export { LandingFilter, FilterSpecError } from './LandingFilter.js';
+export type { FilterCamera, Box, UpdateStatus, UpdateResult, InitialSigma } from './LandingFilter.js';
+export { PlainLandingFilter } from './PlainLandingFilter.js';
+export { LandingCore } from './LandingCore.js';
+export { BoxMeasurementModel } from './FilterCamera.js';
+export type { CameraModelProblem } from './FilterCamera.js';
+export { FilterHistory, EVENT_TIGHT, EVENT_LOOSE, EVENT_ODOMETRY, EVENTS_PER_STEP } from './FilterHistory.js';
+export { processCoefficients, emptyProcessCoefficients } from './ProcessCoefficients.js';
+export type { ProcessCoefficients, ProcessNoise } from './ProcessCoefficients.js';
+export { predictLanding } from './predictLanding.js';
+export { R_INDEX, VC_INDEX, VL_INDEX, BA_INDEX, AC_INDEX, STANDARD_GRAVITY, landingStateDimension } from './landingState.js';
+export { validateFilterSpec } from './validateFilterSpec.js';
+export { rejected } from './UpdateResult.js';

@@ -38,7 +38,7 @@ export function defaultScenario(): Scenario {
       wind: { speed: 0, directionDeg: 0, turbulence: 'none' },
     },
     camera: {
-      intrinsics: { fx: 500, fy: 500, cx: 320, cy: 240 },
+      intrinsics: { fx: 320, fy: 320, cx: 320, cy: 240 },
       width: 640,
       height: 480,
       distortion: { k1: 0, k2: 0, k3: 0, p1: 0, p2: 0 },

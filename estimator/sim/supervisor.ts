@@ -1,15 +1,18 @@
 // Landing supervisor: the phase logic around guidance. Allocation-free per step.
 //   acquire -> trail -> align -> descend -> touchdown, with abort back to acquire.
-// acquire:   no usable estimate, or re-acquiring after an abort: hold horizontally on the
-//            (propagated) estimate if any, climb back towards the trailing height.
+// acquire:   before the first box or after an abort until a box newer than the abort is
+//            accepted: keep the last horizontal command (dead reckoning), climb back towards
+//            the trailing height while the estimate is fresh (seen < 2 lostTimeout ago), else hold.
 // trail:     track the carrier at guidance.trailHeight above the deck.
 // align:     inside alignRadius; after alignTime continuously inside -> descend.
 // descend:   descend at descentRate only while the horizontal error e is inside the funnel
 //              e < funnelBase + funnelSlope * h            (h = height above deck, m)
 //            hold height while e < 2 funnel, climb beyond; below flareHeight -> touchdown.
 // touchdown: committed: keep tracking horizontally, descend until contact; no abort.
-// Abort (trail/align/descend): target unseen longer than lostTimeout, or the filter
-// diverged. Vertical commands feed forward the carrier's estimated vertical velocity
+// Below the blind height (target overflowing the image) descents run 1.5x faster and
+// without heave feed-forward.
+// Abort (trail/align/descend): target unseen longer than lostTimeout (except in a descent
+// below the blind height, where the target overflows the image), or the filter diverged. Vertical commands feed forward the carrier's estimated vertical velocity
 // (heave) and are limited to the lander's maxVerticalSpeed.
 import type { Phase } from './TrialResult.js';
 import type { GuidanceSpec, LanderSpec } from './Scenario.js';
@@ -31,8 +34,13 @@ export interface SupervisorInput extends HorizontalEstimate {
   diverged: boolean;
 }
 
-/** Vertical gain holding the trailing height (1/s). */
-const HEIGHT_GAIN = 0.8;
+/** Vertical gain holding the trailing height (1/s) and its rate limit (m/s): gentle, because a
+ * fast height change unloads the rotors and any horizontal correction then tilts the camera far. */
+const HEIGHT_GAIN = 0.5;
+const HEIGHT_RATE = 1;
+/** Below the blind height the descent speeds up by this factor: no new boxes come, so the
+ * estimate only drifts from here on; less time blind means less drift. */
+const BLIND_DESCENT_FACTOR = 1.5;
 
 export class LandingSupervisor {
   phase: Phase = 'acquire';
@@ -42,13 +50,20 @@ export class LandingSupervisor {
   private readonly spec: GuidanceSpec;
   private readonly lander: LanderSpec;
   private readonly guidance: HorizontalGuidance;
+  private readonly blindHeight: number;
   private alignSince = 0;
   private abortedAt = -Infinity;
 
-  constructor(spec: GuidanceSpec, lander: LanderSpec, guidance: HorizontalGuidance) {
+  /**
+   * @param blindHeight height above the deck (m) below which the target is expected to
+   *   overflow the image (the detector then loses it at the edge): a descent below it does
+   *   not abort for a lost target, it carries on on the estimate. Default 0.
+   */
+  constructor(spec: GuidanceSpec, lander: LanderSpec, guidance: HorizontalGuidance, blindHeight = 0) {
     this.spec = spec;
     this.lander = lander;
     this.guidance = guidance;
+    this.blindHeight = blindHeight;
   }
 
   private abort(t: number, reason: string): void {
@@ -60,9 +75,17 @@ export class LandingSupervisor {
   }
 
   private climbTowards(target: number, height: number, vcz: number): number {
-    const v = vcz + HEIGHT_GAIN * (target - height);
+    let v = HEIGHT_GAIN * (target - height);
+    v = v > HEIGHT_RATE ? HEIGHT_RATE : v < -HEIGHT_RATE ? -HEIGHT_RATE : v;
+    v += vcz;
     const m = this.lander.maxVerticalSpeed;
     return v > m ? m : v < -m ? -m : v;
+  }
+
+  /** Descent command: heave fed forward while boxes come; blind, a plain faster descent (an
+   * extrapolated heave velocity is worse than none). */
+  private descent(height: number, vcz: number): number {
+    return height < this.blindHeight ? -BLIND_DESCENT_FACTOR * this.spec.descentRate : vcz - this.spec.descentRate;
   }
 
   /**
@@ -73,21 +96,17 @@ export class LandingSupervisor {
     const g = this.spec;
     if (this.phase === 'trail' || this.phase === 'align' || this.phase === 'descend') {
       if (s.diverged || !s.valid) this.abort(t, 'diverged');
-      else if (s.unseenFor > g.lostTimeout) this.abort(t, 'target-lost');
+      else if (s.unseenFor > g.lostTimeout && !(this.phase === 'descend' && s.height < this.blindHeight)) this.abort(t, 'target-lost');
     }
     if (this.phase === 'acquire') {
-      if (!s.valid) {
-        out[0] = 0;
-        out[1] = 0;
-        out[2] = 0;
+      if (s.valid && s.lastSeen > this.abortedAt && s.unseenFor < g.lostTimeout) this.phase = 'trail';
+      else {
+        // keep the last horizontal command (dead reckoning on the carrier's last velocity);
+        // climb back towards the trailing height while the estimate is still fresh, else hold
+        const fresh = s.valid && s.unseenFor < 2 * g.lostTimeout;
+        out[2] = fresh && s.height < g.trailHeight ? this.climbTowards(g.trailHeight, s.height, s.vcz) : 0;
         return this.phase;
       }
-      if (s.lastSeen > this.abortedAt && s.unseenFor < g.lostTimeout) this.phase = 'trail';
-    }
-    if (this.phase === 'acquire') {
-      this.guidance.command(s, dt, out);
-      out[2] = this.climbTowards(g.trailHeight, s.height, s.vcz);
-      return this.phase;
     }
     this.guidance.command(s, dt, out);
     const error = Math.hypot(s.rx, s.ry);
@@ -108,13 +127,13 @@ export class LandingSupervisor {
       case 'descend': {
         const funnel = g.funnelBase + g.funnelSlope * Math.max(h, 0);
         if (h < g.flareHeight) this.phase = 'touchdown';
-        if (error < funnel || this.phase === 'touchdown') out[2] = s.vcz - g.descentRate;
+        if (error < funnel || this.phase === 'touchdown') out[2] = this.descent(h, s.vcz);
         else if (error < 2 * funnel) out[2] = s.vcz;
         else out[2] = h < g.trailHeight ? s.vcz + g.descentRate : s.vcz;
         break;
       }
       case 'touchdown':
-        out[2] = s.vcz - g.descentRate;
+        out[2] = this.descent(h, s.vcz);
         break;
     }
     const m = this.lander.maxVerticalSpeed;

@@ -21,9 +21,9 @@ function input(over: Partial<SupervisorInput>): SupervisorInput {
 describe('LandingSupervisor', () => {
   it('walks acquire -> trail -> align -> descend -> touchdown on a steady estimate', () => {
     const sup = new LandingSupervisor(guidanceSpec, s.lander, new Still());
-    const out = new Float64Array(3);
+    const out = Float64Array.of(3, 1, 0.5);
     expect(sup.step(0, 0.01, input({ valid: false }), out)).toBe('acquire');
-    expect(Array.from(out)).toEqual([0, 0, 0]);
+    expect(Array.from(out)).toEqual([3, 1, 0]); // no estimate: last horizontal command kept, height held
     expect(sup.step(0.01, 0.01, input({ rx: 1 }), out)).toBe('trail');
     expect(sup.step(0.02, 0.01, input({ rx: 0.1 }), out)).toBe('align');
     expect(sup.step(0.5, 0.01, input({ rx: 0.1 }), out)).toBe('align');
@@ -35,13 +35,17 @@ describe('LandingSupervisor', () => {
     expectClose(out[2]!, 0.3 - 0.5, { abs: 1e-12 }, 'heave fed forward (exact)');
   });
 
-  it('holds trail height with a proportional climb, limited by maxVerticalSpeed', () => {
-    const sup = new LandingSupervisor(guidanceSpec, { ...s.lander, maxVerticalSpeed: 1 }, new Still());
+  it('holds trail height with a proportional climb at most 1 m/s, plus heave, within maxVerticalSpeed', () => {
+    const sup = new LandingSupervisor(guidanceSpec, { ...s.lander, maxVerticalSpeed: 1.2 }, new Still());
     const out = new Float64Array(3);
     sup.step(0, 0.01, input({ rx: 2, height: 5.5 }), out);
-    expectClose(out[2]!, 0.8 * 0.5, { abs: 1e-12 }, 'gain 0.8/s (exact)');
+    expectClose(out[2]!, 0.5 * 0.5, { abs: 1e-12 }, 'gain 0.5/s (exact)');
     sup.step(0.01, 0.01, input({ rx: 2, height: 1 }), out);
-    expectClose(out[2]!, 1, { abs: 1e-12 }, 'limited (exact)');
+    expectClose(out[2]!, 1, { abs: 1e-12 }, 'height rate limit (exact)');
+    sup.step(0.02, 0.01, input({ rx: 2, height: 1, vcz: 0.5 }), out);
+    expectClose(out[2]!, 1.2, { abs: 1e-12 }, 'maxVerticalSpeed (exact)');
+    sup.step(0.03, 0.01, input({ rx: 2, height: 9, vcz: 0.3 }), out);
+    expectClose(out[2]!, 0.3 - 1, { abs: 1e-12 }, 'down at the rate limit, heave fed forward (exact)');
   });
 
   it('descends only inside the funnel, holds just outside and climbs far outside', () => {
@@ -79,6 +83,18 @@ describe('LandingSupervisor', () => {
     expect(sup.step(2.3, 0.01, input({ rx: 2, diverged: true }), out)).toBe('acquire');
     expect(sup.lastAbort).toBe('diverged');
     expect(sup.aborts).toBe(2);
+  });
+
+  it('keeps descending on the estimate below the blind height when the target overflows the image', () => {
+    const sup = new LandingSupervisor(guidanceSpec, s.lander, new Still(), 2);
+    const out = new Float64Array(3);
+    sup.step(0, 0.01, input({}), out);
+    sup.step(0.01, 0.01, input({}), out);
+    sup.step(1.2, 0.01, input({}), out);
+    expect(sup.step(3, 0.01, input({ height: 1.5, unseenFor: 1.8 }), out)).toBe('descend');
+    expectClose(out[2]!, -0.5, { abs: 1e-12 }, 'still descending (exact)');
+    expect(sup.step(3.1, 0.01, input({ height: 2.5, unseenFor: 1.9 }), out)).toBe('acquire');
+    expect(sup.aborts).toBe(1);
   });
 
   it('never aborts once committed to touchdown', () => {

@@ -1,0 +1,89 @@
+// `alight simulate <scenario.json> [--seed N] [--trace FILE.csv] [--json]`: one closed-loop
+// landing trial. Prints a short summary (or one JSON object); --trace writes a CSV row per step.
+import { writeFileSync } from 'node:fs';
+import { isAbsolute, join } from 'node:path';
+import { loadScenario } from '../io/loadScenario.js';
+import { ScenarioError } from '../io/ScenarioError.js';
+import { runTrial } from '../sim/runTrial.js';
+import { TRACE_COLUMNS, traceCsvLine } from '../sim/trace.js';
+import type { Scenario } from '../sim/Scenario.js';
+import type { TrialResult } from '../sim/TrialResult.js';
+import { PHASES } from '../sim/TrialResult.js';
+import { CliError } from './CliError.js';
+import type { Command } from './Command.js';
+import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { cameraSummary } from './cameraCommand.js';
+
+const OPTIONS: OptionSpec[] = [
+  { name: 'seed', kind: 'value', valueName: 'N', help: "master seed of the trial's random streams (default: the scenario's seed)" },
+  { name: 'trace', kind: 'value', valueName: 'FILE.csv', help: 'write one CSV row per step: t, phase, truth, estimate, sigma, box, command' },
+  { name: 'json', kind: 'flag', help: 'print one JSON object with every result field instead of the summary' },
+  { name: 'help', kind: 'flag', help: 'show this help' },
+];
+
+const USAGE = 'alight simulate <scenario.json> [--seed N] [--trace FILE.csv] [--json]';
+const PURPOSE = 'fly one closed-loop landing trial of a scenario and judge the touchdown';
+export const FLIGHT_CAUTION = 'Caution: simulation clears nothing for flight. Fly under local aviation rules and licensed practice, with a safety pilot, geofence and kill switch.';
+
+export function loadScenarioForCli(command: string, path: string | undefined, cwd: string): Scenario {
+  if (!path) throw new CliError(`alight ${command}: give a scenario file (${command === 'simulate' ? USAGE : `alight ${command} --help`})`);
+  try {
+    return loadScenario(isAbsolute(path) ? path : join(cwd, path));
+  } catch (error) {
+    if (error instanceof ScenarioError) throw new CliError(error.problems.join('\n'));
+    throw error;
+  }
+}
+
+const f = (v: number | null, digits = 2): string => (v === null || !Number.isFinite(v) ? '-' : v.toFixed(digits));
+
+/** The human summary: outcome, miss, speeds, estimate quality, phase times, caution. */
+export function formatSummary(scenario: Scenario, seed: number, r: TrialResult): string {
+  const env = scenario.envelope;
+  const lines = [`alight simulate: ${scenario.name} (seed ${seed})`];
+  const when = r.touchdownTime !== null ? ` at ${f(r.touchdownTime)} s` : ` after ${f(scenario.duration, 0)} s`;
+  lines.push(`  outcome    ${r.outcome}${when}${r.divergence ? ` (filter: ${r.divergence})` : ''}`);
+  if (r.missDistance !== null) {
+    lines.push(`  miss       ${f(r.missDistance)} m from the pad centre (along ${f(r.missX)} m, left ${f(r.missY)} m); pad radius ${env.padRadius} m`);
+    lines.push(`  contact    closing ${f(r.closingSpeed)} m/s, lateral ${f(r.lateralSpeed)} m/s, tilt ${f(r.tiltDeg, 1)} deg (limits ${env.maxClosingSpeed} m/s, ${env.maxLateralSpeed} m/s, ${env.maxTiltDeg} deg)`);
+  }
+  lines.push(`  estimate   position RMSE ${f(r.positionRmse, 3)} m, velocity RMSE ${f(r.velocityRmse, 3)} m/s, NEES ${f(r.neesMean)} (dim ${r.neesDim}), NIS ${f(r.nisMean)} (dim ${r.nisDim}, ${r.nisCount} updates)`);
+  lines.push(`  phases     ${PHASES.map((p) => `${p} ${f(r.phaseTimes[p], 1)} s`).join(', ')}`);
+  lines.push(`  sensing    ${r.boxes} boxes, ${r.dropped} dropped, ${r.falseBoxes} false, ${r.gateRejections} gated; ${r.aborts} abort${r.aborts === 1 ? '' : 's'}`);
+  lines.push(`  camera     ${cameraSummary(scenario, scenario.guidance.trailHeight)}`);
+  lines.push(FLIGHT_CAUTION);
+  return lines.join('\n') + '\n';
+}
+
+export const simulateCommand: Command = {
+  name: 'simulate',
+  purpose: PURPOSE,
+  async run(argv, io) {
+    const parsed = parseArgs('simulate', argv, OPTIONS);
+    if (parsed.flags.has('help')) {
+      io.stdout(formatHelp(USAGE, `${PURPOSE}.\nThe summary names the outcome (landed, off-pad, hard-contact, aborted, timed-out, diverged), the\nmiss from the pad centre, contact speeds and tilt, estimate quality and time per phase.\n${FLIGHT_CAUTION}`, OPTIONS));
+      return 0;
+    }
+    if (parsed.positional.length > 1) throw new CliError(`alight simulate: one scenario file please, got ${parsed.positional.length} (${USAGE})`);
+    const scenario = loadScenarioForCli('simulate', parsed.positional[0], io.cwd);
+    const seed = numberOption('simulate', parsed, 'seed', scenario.seed, (v) => Number.isSafeInteger(v) && v >= 0, 'a non-negative integer');
+    const tracePath = parsed.values.get('trace');
+    const traceLines: string[] = [];
+    if (tracePath !== undefined) traceLines.push(TRACE_COLUMNS.join(','));
+    const result = runTrial(scenario, {
+      key: { seed, point: 0, trial: 0 },
+      onStep: tracePath !== undefined ? (row) => void traceLines.push(traceCsvLine(row)) : undefined,
+    });
+    if (tracePath !== undefined) {
+      const target = isAbsolute(tracePath) ? tracePath : join(io.cwd, tracePath);
+      try {
+        writeFileSync(target, traceLines.join('\n') + '\n');
+      } catch (error) {
+        throw new CliError(`alight simulate: cannot write --trace ${tracePath} (${(error as { code?: string }).code ?? String(error)})`);
+      }
+    }
+    if (parsed.flags.has('json')) io.stdout(JSON.stringify({ scenario: scenario.name, seed, ...result }) + '\n');
+    else io.stdout(formatSummary(scenario, seed, result));
+    return 0;
+  },
+};

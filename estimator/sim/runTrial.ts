@@ -1,0 +1,225 @@
+// One closed-loop landing trial: carrier + wind + lander (truth), detector and localization
+// errors (what the lander senses), the landing filter, supervisor + guidance on the ESTIMATE,
+// and the touchdown judgement. Synchronous and deterministic: random streams derive only
+// from (key.seed, key.point, key.trial) and a stream name, one per subsystem.
+// The inner loop allocates nothing of its own (preallocated typed arrays); the filter returns
+// a small result object per measurement, and onStep rows are built only when asked for.
+import { LandingFilter } from '../models/LandingFilter.js';
+import { RandomStream, streamId } from '../random/RandomStream.js';
+import type { TrialRecorder } from '../io/log/TrialRecorder.js';
+import type { Scenario } from './Scenario.js';
+import type { Phase, TrialResult } from './TrialResult.js';
+import { createGuidance } from './guidance.js';
+import { LandingSupervisor, type SupervisorInput } from './supervisor.js';
+import { judgeTouchdown } from './touchdown.js';
+import { relativeNees } from './relativeNees.js';
+import { TrialState } from './trialState.js';
+import type { TraceRow } from './trace.js';
+import { createCarrierState, createCarrierTrajectory } from './world/carrierPath.js';
+import { createDeckContact, deckContact } from './world/deckContact.js';
+import { Detector, type DetectorFrame } from './world/detector.js';
+import { DrydenGust } from './world/dryden.js';
+import { LanderDynamics } from './world/landerDynamics.js';
+import { LocalizationError } from './world/localizationError.js';
+
+export type { TraceRow } from './trace.js';
+
+/** Streams of a trial derive from these alone. */
+export interface TrialKey {
+  seed: number;
+  point: number;
+  trial: number;
+}
+
+export interface TrialOptions {
+  /** Default { seed: scenario.seed, point: 0, trial: 0 }. */
+  key?: TrialKey;
+  /** Called after every step with a fresh row (slows the trial; for traces and plots). */
+  onStep?: (row: TraceRow) => void;
+  /** Receives every input the filter saw, plus truth and estimates (for `alight record`). */
+  recorder?: TrialRecorder;
+}
+
+const DEG = Math.PI / 180;
+/** Filter start-up uncertainty: velocities (m/s) and accelerometer bias (m/s^2), 1 sigma. */
+const INITIAL_SIGMA = { velocity: 1, accelBias: 0.2 };
+/** Pending detector frames held between capture and arrival (latency <= 2 s at <= 1 kHz fits). */
+const PENDING = 4096;
+/** How far below the deck plane a first contact may be found (m): > one step's closing travel. */
+const CONTACT_DEPTH = 0.25;
+
+/** Margin on the deck's longest side for perspective, tilt and the body below the deck. */
+const OUTLINE_FACTOR = 1.2;
+
+/**
+ * Height above the deck (m) below which the deck is expected to overflow the image, from the
+ * camera as the filter believes it and the deck's longest side Lmax (known to the operator;
+ * yaw is held while the carrier turns, so it may lie along either image axis):
+ *   h = 1.2 Lmax max(fx, fy) / (min(W, H) - 2 edgeMargin)
+ */
+export function blindHeight(camera: { fx: number; fy: number; width: number; height: number }, deckLength: number, deckWidth: number, edgeMargin: number): number {
+  const pixels = Math.max(Math.min(camera.width, camera.height) - 2 * edgeMargin, 1);
+  return (OUTLINE_FACTOR * Math.max(deckLength, deckWidth) * Math.max(camera.fx, camera.fy)) / pixels;
+}
+
+/**
+ * Fly one trial. Fixed step dt = 1 / filter.rate; IMU samples every step whose time reaches
+ * the next 1 / imuRate tick (likewise odometry and camera captures); boxes reach the filter
+ * at their arrival time with their (camera-clock) capture stamp.
+ * The lander starts at carrier position + startOffset, moving with the carrier (handed over
+ * from a GNSS-following phase) and yawed along the carrier's initial heading.
+ */
+export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialResult {
+  const key = options.key ?? { seed: scenario.seed, point: 0, trial: 0 };
+  const stream = (name: string) => RandomStream.fromKey([key.seed, key.point, key.trial, streamId(name)]);
+  const { carrier: carrierSpec, lander: landerSpec, filter: filterSpec, localization, detector: detectorSpec } = scenario;
+  const onStep = options.onStep;
+  const recorder = options.recorder;
+
+  const carrier = createCarrierTrajectory(carrierSpec, carrierSpec.path.points);
+  const cs = createCarrierState();
+  carrier.stateAt(0, cs);
+  const start = new Float64Array(3);
+  for (let k = 0; k < 3; k++) start[k] = cs.position[k]! + landerSpec.startOffset[k]!;
+  const lander = new LanderDynamics(landerSpec, start, { yaw: cs.heading });
+  const ls = lander.state;
+  ls.velocity.set(cs.velocity);
+  const windDirection = landerSpec.wind.directionDeg * DEG;
+  const gust = new DrydenGust(landerSpec.wind.turbulence, stream('wind'), windDirection);
+  const meanWind = Float64Array.of(landerSpec.wind.speed * Math.cos(windDirection), landerSpec.wind.speed * Math.sin(windDirection), 0);
+  const errors = new LocalizationError(localization, stream('localization'));
+  const dims = { deckLength: carrierSpec.deckLength, deckWidth: carrierSpec.deckWidth, bodyHeight: carrierSpec.bodyHeight };
+  const detector = new Detector(errors.trueCamera(scenario.camera), detectorSpec, dims, stream('detector'));
+  const dt = 1 / filterSpec.rate;
+  const guidance = createGuidance(scenario.guidance, landerSpec, dt);
+  const believed = errors.believedCamera(scenario.camera);
+  const targetSize = errors.believedTargetSize(carrierSpec);
+  const filter = new LandingFilter(filterSpec, believed, targetSize);
+  const supervisor = new LandingSupervisor(scenario.guidance, landerSpec, guidance, blindHeight(believed, carrierSpec.deckLength, carrierSpec.deckWidth, detectorSpec.edgeMargin));
+  const st = new TrialState(filter.n);
+  st.command.set(cs.velocity);
+  const contact = createDeckContact();
+  const pending: DetectorFrame[] = new Array<DetectorFrame>(PENDING);
+  let pendingHead = 0, pendingCount = 0;
+  const input: SupervisorInput = { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, valid: false, height: 0, vcz: 0, unseenFor: Infinity, lastSeen: -Infinity, diverged: false };
+
+  const steps = Math.round(scenario.duration * filterSpec.rate);
+  const imuPeriod = 1 / localization.imuRate, odometryPeriod = 1 / localization.odometryRate;
+  const capturePeriod = 1 / detectorSpec.rate;
+  let nextImu = 0, nextOdometry = 0, nextCapture = 0;
+  let initialized = false, lastSeen = -Infinity, touchdown: ReturnType<typeof judgeTouchdown> | null = null, touchdownTime: number | null = null;
+  let phase: Phase = 'acquire';
+  const eps = 1e-9 * dt;
+
+  for (let step = 1; step <= steps; step++) {
+    const t = step * dt;
+    // truth: wind, lander, carrier
+    const airspeed = Math.hypot(ls.velocity[0]! - meanWind[0]!, ls.velocity[1]! - meanWind[1]!);
+    gust.step(dt, Math.max(ls.position[2]!, 1), airspeed, st.wind);
+    for (let k = 0; k < 3; k++) st.wind[k] = st.wind[k]! + meanWind[k]!;
+    lander.step(dt, st.command, st.wind, ls);
+    carrier.stateAt(t, cs);
+    deckContact(ls, cs, carrierSpec.deckLength, carrierSpec.deckWidth, contact);
+    // contact with the deck: on its outline and at most one step's travel below its plane
+    // A lander that sinks past the deck plane beside the deck has missed it: judged there
+    // (off-pad), as is touching the ground.
+    const onDeckContact = contact.inContact && contact.onDeck && contact.height > -CONTACT_DEPTH;
+    if (onDeckContact || contact.height <= -CONTACT_DEPTH || contact.groundHeight <= 0) {
+      if (!onDeckContact) contact.onDeck = false;
+      touchdown = judgeTouchdown(scenario.envelope, contact);
+      touchdownTime = t;
+      st.phaseTimes[phase] += dt;
+      break;
+    }
+    for (let k = 0; k < 3; k++) {
+      st.rTrue[k] = cs.position[k]! - ls.position[k]!;
+      st.vCTrue[k] = cs.velocity[k]!;
+    }
+    // IMU -> filter propagation
+    if (t >= nextImu - eps) {
+      nextImu += imuPeriod;
+      errors.attitude(ls.qWorldBody, st.qEstimate);
+      errors.specificForce(ls.specificForceBody, st.force);
+      if (initialized) {
+        const r = filter.propagate(t, st.force, st.qEstimate);
+        if (r && r.status === 'diverged') st.noteDivergence(filter.diverged);
+      }
+      recorder?.imu(t, st.force, st.qEstimate);
+    }
+    // odometry
+    if (t >= nextOdometry - eps) {
+      nextOdometry += odometryPeriod;
+      errors.odometry(t, ls.velocity, st.odometry);
+      st.haveOdometry = true;
+      if (initialized) {
+        const r = filter.updateOdometry(filter.time, st.odometry);
+        if (r.status === 'diverged') st.noteDivergence(filter.diverged);
+      }
+      recorder?.odometry(t, st.odometry);
+    }
+    // camera capture at the first step on or after each frame tick (the truth is known only at
+    // steps, so the capture time is the step time: frame spacing jitters by up to one step)
+    if (t >= nextCapture - eps) {
+      nextCapture += capturePeriod;
+      const frame = detector.observe(t, ls, cs);
+      if (frame) st.boxes++;
+      else if (detector.lastTruth.visible) st.dropped++;
+      if (frame && pendingCount < PENDING) pending[(pendingHead + pendingCount++) % PENDING] = frame;
+      for (let i = 0; i < detector.falseFrameCount && pendingCount < PENDING; i++) pending[(pendingHead + pendingCount++) % PENDING] = detector.falseFrames[i]!;
+    }
+    st.lastBox = null;
+    while (pendingCount > 0 && pending[pendingHead]!.arrivalTime <= t + eps) {
+      const frame = pending[pendingHead]!;
+      pendingHead = (pendingHead + 1) % PENDING;
+      pendingCount--;
+      const stamp = errors.cameraTimestamp(frame.captureTime);
+      recorder?.box(t, stamp, frame.box, 1);
+      st.lastBox = frame.box;
+      if (!initialized || filter.diverged) {
+        if (!st.haveOdometry) continue;
+        const r = filter.initializeFromBox(t, frame.box, st.qEstimate, st.odometry, INITIAL_SIGMA);
+        if (r.status !== 'accepted') continue;
+        // the lander trails the carrier: its own velocity is the better prior for vC than 0
+        for (let k = 0; k < 3; k++) filter.x[3 + k] = filter.x[6 + k]!;
+        initialized = true;
+        guidance.reset();
+        lastSeen = t;
+        continue;
+      }
+      const r = filter.updateBox(Math.min(stamp, filter.time), frame.box);
+      if (r.status === 'accepted') {
+        lastSeen = t;
+        st.addNis(r.nis);
+      } else if (r.status === 'gated') st.gateRejections++;
+      else if (r.status === 'diverged') st.noteDivergence(filter.diverged);
+    }
+    // estimate -> supervisor -> command for the next step
+    const x = filter.x;
+    input.valid = initialized && filter.diverged === null;
+    input.diverged = filter.diverged !== null;
+    input.rx = x[0]!; input.ry = x[1]!; input.height = -x[2]!;
+    input.vcx = x[3]!; input.vcy = x[4]!; input.vcz = x[5]!;
+    input.vlx = x[6]!; input.vly = x[7]!;
+    input.lastSeen = lastSeen;
+    input.unseenFor = t - lastSeen;
+    phase = supervisor.step(t, dt, input, st.command);
+    st.phaseTimes[phase] += dt;
+    for (let k = 0; k < 3; k++) st.vLTrue[k] = ls.velocity[k]!;
+    if (input.valid && Math.abs(filter.time - t) < eps + 1e-12) {
+      st.addError(x, st.rTrue, st.vCTrue, st.vLTrue, relativeNees(x, filter.P, filter.n, st.rTrue, st.vCTrue, st.vLTrue));
+    }
+    if (recorder) {
+      recorder.truth(t, st.rTrue, st.vCTrue, st.vLTrue);
+      if (initialized) recorder.estimate(t, x, st.diagonal(filter.P));
+    }
+    if (onStep) onStep(st.row(t, phase, input.valid ? x : null, input.valid ? filter.P : null));
+  }
+
+  return st.result({
+    touchdown,
+    touchdownTime,
+    aborts: supervisor.aborts,
+    lastAbort: supervisor.lastAbort,
+    falseBoxes: detector.falseBoxTotal,
+  });
+}

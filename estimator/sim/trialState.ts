@@ -1,0 +1,141 @@
+// The working arrays and running sums of one trial (runTrial's bookkeeping), preallocated so
+// the step loop allocates nothing; row() builds a TraceRow only when a caller wants one.
+//   positionRmse = sqrt(mean |r̂ - r|²)            over steps with a valid estimate (m)
+//   velocityRmse = sqrt(mean |(v̂C - v̂L) - (vC - vL)|²)                            (m/s)
+//   neesMean     = mean relative pos+vel NEES (dim 6), nisMean = mean NIS of accepted boxes (dim 3)
+// Means over no samples are NaN (JSON null).
+import type { Box } from '../camera/Box.js';
+import type { Outcome, Phase, TrialResult } from './TrialResult.js';
+import type { TouchdownJudgement } from './touchdown.js';
+import type { RelativeTriple, TraceRow } from './trace.js';
+
+export interface TrialEnd {
+  touchdown: TouchdownJudgement | null;
+  touchdownTime: number | null;
+  aborts: number;
+  lastAbort: string | null;
+  falseBoxes: number;
+}
+
+const vec = (a: ArrayLike<number>, o: number): [number, number, number] => [a[o]!, a[o + 1]!, a[o + 2]!];
+
+export class TrialState {
+  readonly wind = new Float64Array(3);
+  /** Lander velocity command (m/s, world), applied in the next step. */
+  readonly command = new Float64Array(3);
+  readonly rTrue = new Float64Array(3);
+  readonly vCTrue = new Float64Array(3);
+  readonly vLTrue = new Float64Array(3);
+  /** Estimated attitude q_wb, measured specific force (body), measured velocity (world). */
+  readonly qEstimate = Float64Array.of(1, 0, 0, 0);
+  readonly force = new Float64Array(3);
+  readonly odometry = new Float64Array(3);
+  haveOdometry = false;
+  boxes = 0;
+  dropped = 0;
+  gateRejections = 0;
+  lastBox: Box | null = null;
+  readonly phaseTimes: Record<Phase, number> = { acquire: 0, trail: 0, align: 0, descend: 0, touchdown: 0 };
+  private divergence: string | null = null;
+  private nisSum = 0;
+  private nisCount = 0;
+  private neesSum = 0;
+  private neesCount = 0;
+  private positionSquares = 0;
+  private velocitySquares = 0;
+  private errorCount = 0;
+  private readonly pDiagonal: Float64Array;
+
+  constructor(readonly n: number) {
+    this.pDiagonal = new Float64Array(n);
+  }
+
+  /** Keep the first named divergence event. */
+  noteDivergence(event: string | null): void {
+    if (this.divergence === null && event !== null) this.divergence = event;
+  }
+
+  addNis(nis: number): void {
+    if (!Number.isFinite(nis)) return;
+    this.nisSum += nis;
+    this.nisCount++;
+  }
+
+  /** Accumulate estimate errors at one step (x: filter state; truth vectors at the filter's time). */
+  addError(x: ArrayLike<number>, r: ArrayLike<number>, vC: ArrayLike<number>, vL: ArrayLike<number>, nees: number): void {
+    let p = 0, v = 0;
+    for (let k = 0; k < 3; k++) {
+      const dp = x[k]! - r[k]!;
+      const dv = x[3 + k]! - x[6 + k]! - (vC[k]! - vL[k]!);
+      p += dp * dp;
+      v += dv * dv;
+    }
+    this.positionSquares += p;
+    this.velocitySquares += v;
+    this.errorCount++;
+    if (Number.isFinite(nees)) {
+      this.neesSum += nees;
+      this.neesCount++;
+    }
+  }
+
+  /** Diagonal of P (n x n) into a reused array. */
+  diagonal(P: ArrayLike<number>): Float64Array {
+    for (let i = 0; i < this.n; i++) this.pDiagonal[i] = P[i * this.n + i]!;
+    return this.pDiagonal;
+  }
+
+  /** A fresh trace row for time t. */
+  row(t: number, phase: Phase, x: ArrayLike<number> | null, P: ArrayLike<number> | null): TraceRow {
+    const triple = (a: ArrayLike<number>): RelativeTriple => ({ r: vec(a, 0), vC: vec(a, 3), vL: vec(a, 6) });
+    const sd = P ? Array.from({ length: 9 }, (_, i) => Math.sqrt(P[i * this.n + i]!)) : null;
+    const truth = new Float64Array(9);
+    truth.set(this.rTrue, 0);
+    truth.set(this.vCTrue, 3);
+    truth.set(this.vLTrue, 6);
+    return {
+      t,
+      phase,
+      truth: triple(truth),
+      estimate: x ? triple(x) : null,
+      sigma: sd ? triple(sd) : null,
+      box: this.lastBox ? { ...this.lastBox } : null,
+      command: vec(this.command, 0),
+    };
+  }
+
+  /** The trial's result; outcome without contact: diverged if the filter diverged, aborted after an abort, else timed-out. */
+  result(end: TrialEnd): TrialResult {
+    const t = end.touchdown;
+    let outcome: Outcome;
+    if (t) outcome = t.outcome;
+    else if (this.divergence !== null && end.lastAbort === 'diverged') outcome = 'diverged';
+    else if (end.aborts > 0) outcome = 'aborted';
+    else outcome = 'timed-out';
+    const mean = (sum: number, count: number) => (count > 0 ? sum / count : Number.NaN);
+    return {
+      outcome,
+      missDistance: t ? t.missDistance : null,
+      missX: t ? t.missX : null,
+      missY: t ? t.missY : null,
+      closingSpeed: t ? t.closingSpeed : null,
+      lateralSpeed: t ? t.lateralSpeed : null,
+      tiltDeg: t ? t.tiltDeg : null,
+      touchdownTime: end.touchdownTime,
+      positionRmse: Math.sqrt(mean(this.positionSquares, this.errorCount)),
+      velocityRmse: Math.sqrt(mean(this.velocitySquares, this.errorCount)),
+      neesMean: mean(this.neesSum, this.neesCount),
+      neesDim: 6,
+      nisMean: mean(this.nisSum, this.nisCount),
+      nisDim: 3,
+      nisCount: this.nisCount,
+      phaseTimes: { ...this.phaseTimes },
+      boxes: this.boxes,
+      dropped: this.dropped,
+      falseBoxes: end.falseBoxes,
+      gateRejections: this.gateRejections,
+      aborts: end.aborts,
+      divergence: this.divergence,
+    };
+  }
+}

@@ -5,6 +5,10 @@ import { cameraCommand } from './cameraCommand.js';
 import { mergeCommand } from './mergeCommand.js';
 import { summarizeCommand } from './summarizeCommand.js';
 import { trialsCommand } from './trialsCommand.js';
+import { sweepCommand } from './sweepCommand.js';
+import { requireCommand } from './requireCommand.js';
+import { sensitivityCommand } from './sensitivityCommand.js';
+import { tuneCommand } from './tuneCommand.js';
 import { replayCommand } from './replayCommand.js';
 import { recordCommand } from './recordCommand.js';
 import { reportCommand } from './reportCommand.js';
@@ -14,7 +18,11 @@ export const commands: Command[] = [
   cameraCommand,
   mergeCommand,
   summarizeCommand,
+  sweepCommand,
   trialsCommand,
+  requireCommand,
+  sensitivityCommand,
+  tuneCommand,
   replayCommand,
   recordCommand,
   reportCommand,

@@ -1,6 +1,7 @@
 // The benchmark sections, one import and one entry each; the key is the JSON key.
 import { ekf } from './ekf.js';
 import { world } from './world.js';
+import { sweepBench } from './sweep.js';
 export interface BenchSection {
   name: string;
   run(): Promise<Record<string, unknown>>;
@@ -9,4 +10,5 @@ export interface BenchSection {
 export const sections: BenchSection[] = [
   ekf,
   world,
+  sweepBench,
 ];

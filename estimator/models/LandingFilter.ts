@@ -90,7 +90,9 @@ export class LandingFilter {
 
   /**
    * Start from the first box: r by back-projection (loose model) with its propagated
-   * covariance, vC = 0 ± sigma.velocity, vL as given ± sigma.velocity, bias 0 ± sigma.accelBias.
+   * covariance, vC = vL ± sigma.velocity (a lander that sees the carrier is usually moving with it),
+   * vL as given ± sigma.velocity, bias 0 ± sigma.accelBias. Edit x only through the filter's
+   * methods: the history for delayed boxes keeps its own copy.
    * nis is NaN (there is no prior to compare with).
    */
   initializeFromBox(t: number, box: Box, qWorldBody: ArrayLike<number>, vL: ArrayLike<number>, sigma: { velocity: number; accelBias: number }): UpdateResult {
@@ -104,7 +106,7 @@ export class LandingFilter {
     const modelProblem = core.model.loose(u, v, s, core.varPixel, core.varPixel, core.varSize, core.fix, core.Rfix);
     if (modelProblem) return rejected(modelProblem, 3);
     if (!cholesky(this.core.Rfix, 3, this.core.check)) return rejected('fix-covariance-not-positive-definite', 3);
-    this.initialize(t, core.fix, [0, 0, 0], vL, { position: 1, velocity: sigma.velocity, accelBias: sigma.accelBias });
+    this.initialize(t, core.fix, vL, vL, { position: 1, velocity: sigma.velocity, accelBias: sigma.accelBias });
     const n = this.n;
     for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) this.P[i * n + j] = core.Rfix[3 * i + j]!;
     this.history.clear();

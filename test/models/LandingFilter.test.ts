@@ -120,6 +120,7 @@ describe('LandingFilter: updates', () => {
     expect(result.status).toBe('accepted');
     // 1e-9 m: back-projection of a noise-free box of the same model.
     expectAllClose(filter.x.slice(0, 3), r, { abs: 1e-9 }, 'r');
+    expectAllClose(filter.x.slice(3, 9), [0.5, 0, 0, 0.5, 0, 0], { abs: 0 }, 'vC = vL prior, vL as given');
     expect(filter.time).toBe(2);
     const n = filter.n;
     // Depth from size is the least certain direction: world z variance dominates at nadir.

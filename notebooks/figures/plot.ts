@@ -38,9 +38,11 @@ export interface PlotSpec {
   yDown?: boolean;
   /** A note in the top-left corner (e.g. "partial: 12 of 40 trials"). */
   note?: string;
+  /** Left margin (px) for long category labels; default 58. */
+  marginLeft?: number;
 }
 
-const MARGIN = { top: 14, right: 14, bottom: 42, left: 58 };
+const BASE_MARGIN = { top: 14, right: 14, bottom: 42, left: 58 };
 
 function makeScale(axis: Axis, range: [number, number]): ScaleContinuousNumeric<number, number> {
   const [a, b] = axis.domain;
@@ -54,6 +56,7 @@ function widen(domain: [number, number], span: number): [number, number] {
 }
 
 export function plotSvg(spec: PlotSpec): string {
+  const MARGIN = { ...BASE_MARGIN, left: spec.marginLeft ?? BASE_MARGIN.left };
   const innerW = spec.width - MARGIN.left - MARGIN.right;
   const innerH = spec.height - MARGIN.top - MARGIN.bottom;
   let xAxis = spec.x;

@@ -1,5 +1,6 @@
 // Every job a study can run, by name. The worker and the in-process runner both call these,
 // so page and report compute with the same functions. Each job takes (input, progress, context).
+import { landingJob } from './landingJob.js';
 import { sweepJob } from './sweepJob.js';
 import { tuningJob } from './tuningJob.js';
 import { replayJob } from './replayJob.js';
@@ -10,6 +11,7 @@ export interface JobContext {
 }
 
 export const jobTable = {
+  landing: landingJob,
   sweep: sweepJob,
   tuning: tuningJob,
   replay: replayJob,

@@ -129,6 +129,7 @@ export const carrierStudy: Study = {
               ...HALF,
               x: { label: 'highest speed meeting the target (m/s)', domain: [0, maxSwept * 1.05] },
               y: { label: '', domain: [0, SHAPES.length], tickLabels: SHAPES.map((s, i) => ({ value: SHAPES.length - i - 0.5, label: s })) },
+              marginLeft: 92,
               note: partial ? 'partial results' : `target ${Math.round(target * 100)} % (${rule === 'lower' ? 'Wilson lower bound' : 'success rate'})`,
               layers: [{ kind: 'rects', rects: envelope.map((v, i) => ({ x0: 0, x1: v ?? 0, y0: SHAPES.length - i - 0.8, y1: SHAPES.length - i - 0.2, fill: SERIES[i]!, title: `${SHAPES[i]}: ${v === null ? 'none' : v + ' m/s'}` })) }],
             }),

@@ -16,6 +16,8 @@ import type { Study, StudyCell } from './Study.js';
 interface ErrorSource {
   key: string;
   label: string;
+  /** Axis label. */
+  short: string;
   path: string;
   unit: string;
   /** The value at "moderate" severity; "severe" doubles it. */
@@ -23,11 +25,11 @@ interface ErrorSource {
 }
 
 export const ERROR_SOURCES: readonly ErrorSource[] = [
-  { key: 'attitude', label: 'attitude bias', path: 'localization.attitudeBiasDeg', unit: 'deg', moderate: 1.5 },
-  { key: 'odometry', label: 'odometry drift', path: 'localization.odometryDrift', unit: 'm/s/√s', moderate: 0.08 },
-  { key: 'misalignment', label: 'camera misalignment', path: 'localization.misalignmentDeg', unit: 'deg', moderate: 1.5 },
-  { key: 'focal', label: 'focal-length error', path: 'localization.focalError', unit: 'fraction', moderate: 0.05 },
-  { key: 'targetSize', label: 'target-size error', path: 'localization.targetSizeError', unit: 'fraction', moderate: 0.2 },
+  { key: 'attitude', short: 'attitude', label: 'attitude bias', path: 'localization.attitudeBiasDeg', unit: 'deg', moderate: 1.5 },
+  { key: 'odometry', short: 'odometry', label: 'odometry drift', path: 'localization.odometryDrift', unit: 'm/s/√s', moderate: 0.08 },
+  { key: 'misalignment', short: 'misalignment', label: 'camera misalignment', path: 'localization.misalignmentDeg', unit: 'deg', moderate: 1.5 },
+  { key: 'focal', short: 'focal length', label: 'focal-length error', path: 'localization.focalError', unit: 'fraction', moderate: 0.05 },
+  { key: 'targetSize', short: 'target size', label: 'target-size error', path: 'localization.targetSizeError', unit: 'fraction', moderate: 0.2 },
 ];
 
 const SEVERITY: Record<string, number> = { moderate: 1, severe: 2 };
@@ -92,7 +94,8 @@ export const localizationStudy: Study = {
               title: 'Harm per error source',
               ...HALF,
               x: { label: rankBy === 'success' ? 'success lost (fraction of trials)' : 'CEP50 added (m)', domain: [Math.min(0, -span * 0.1), span * 1.1] },
-              y: { label: '', domain: [0, Math.max(1, list.length)], tickLabels: list.map((h, i) => ({ value: list.length - i - 0.5, label: h.source.label.split(' ')[0]! })) },
+              y: { label: '', domain: [0, Math.max(1, list.length)], tickLabels: list.map((h, i) => ({ value: list.length - i - 0.5, label: h.source.short })) },
+              marginLeft: 92,
               note: partial ? 'partial results' : undefined,
               layers: [{ kind: 'rects', rects }, { kind: 'rule', axis: 'x', value: 0, color: SERIES[7], dash: 0 }],
             }),
@@ -115,7 +118,7 @@ export const localizationStudy: Study = {
             markup: plotSvg({
               title: 'Success without and with each error',
               ...HALF,
-              x: { label: '', domain: [-0.6, ERROR_SOURCES.length - 0.4], tickLabels: ERROR_SOURCES.map((s, i) => ({ value: i, label: s.label.split(' ')[0]! })) },
+              x: { label: '', domain: [-0.6, ERROR_SOURCES.length - 0.4], tickLabels: ERROR_SOURCES.map((s, i) => ({ value: i, label: s.short })) },
               y: { label: 'landed', domain: [0, 1], format: (v) => `${Math.round(v * 100)} %` },
               note: partial ? 'partial results' : undefined,
               layers: [

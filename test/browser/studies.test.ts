@@ -11,6 +11,8 @@ import { fileURLToPath } from 'node:url';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { defaultScenario } from '../../estimator/io/defaultScenario.js';
+import { setPath } from '../../estimator/io/scenarioPath.js';
+import { runTrial } from '../../estimator/sim/runTrial.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
 import { applyParams } from '../../estimator/study/applyParams.js';
 import { simulateTrial } from '../../estimator/study/simulateTrial.js';
@@ -22,7 +24,17 @@ import { VERSION } from '../../estimator/version.js';
 import { analysisToText, type Analysis, type StudyId } from '../../notebooks/analysis/Analysis.js';
 import { startStaticServer, type RunningServer } from '../../notebooks/server/staticServer.node.js';
 import { launchChromium, runBrowserTests, type Browser } from '../../notebooks/scripts/launchChromium.node.js';
-import { changeControl, computeCounts, openAnalysis, reportValue, shownValue } from './studyPage.js';
+import { expectClose } from '../helpers/expectClose.js';
+import { changeControl, computeCounts, openAnalysis, reportText, reportValue, shownValue } from './studyPage.js';
+
+/**
+ * Continuous results (RMSE, CEP, NIS, costs) computed in chromium's V8 differ from Node's in the
+ * last bits: the two engines' Math.sin/cos/exp/log/atan2/pow disagree in the last place for
+ * roughly 5-15 % of arguments (measured on this machine, chromium 156 vs Node 20), and a trial
+ * accumulates that to ~1e-13 relative. Counts and everything derived from counts (success rate,
+ * Wilson bounds, outcome) are compared exactly; continuous values to 1e-9 relative.
+ */
+const ACROSS_ENGINES = { rel: 1e-9, abs: 1e-12 };
 
 const repo = fileURLToPath(new URL('../..', import.meta.url));
 
@@ -68,6 +80,25 @@ describe.skipIf(!runBrowserTests)('studies in chromium', () => {
     if (work) rmSync(work, { recursive: true, force: true });
   });
 
+  it('landing: the time slider moves only the time-dependent views; the trial equals runTrial', async () => {
+    const a = analysis('landing', { trial: 1, speed: 3, pixelNoise: 1.5, time: 8 });
+    await openAnalysis(page, server.url, a);
+    const flown = setPath(setPath(a.scenario, 'carrier.speed', 3), 'detector.pixelNoise', 1.5);
+    const expected = runTrial(flown, { key: { seed: a.seed, point: 0, trial: 1 } });
+    expectClose(await shownValue(page, 'error', 'positionRmse'), expected.positionRmse, ACROSS_ENGINES, 'positionRmse');
+    expectClose(await shownValue(page, 'consistency', 'nisMean'), expected.nisMean, ACROSS_ENGINES, 'nisMean');
+    expect(await page.textContent('[data-figure="phases"] dd[data-key="outcome"]')).toBe(expected.outcome);
+    const jobsBefore = await computeCounts(page);
+    const { before, after } = await changeControl(page, async () => {
+      await page.focus('#control-time');
+      await page.keyboard.press('ArrowRight');
+    }, 'camera');
+    for (const moved of ['camera', 'topView', 'sideView']) expect(after[moved], moved).toBeGreaterThan(before[moved]!);
+    for (const kept of ['error', 'consistency', 'phases']) expect(after[kept], kept).toBe(before[kept]);
+    expect((await computeCounts(page)).run).toBe(jobsBefore.run);
+    expect(await page.inputValue('#control-time')).toBe('8.5');
+  });
+
   it('detection: the confidence level redraws only the success figure; page, report and summarize agree', async () => {
     const a = analysis('detection', { impairment: 'pixelNoise', trials: 2, confidence: '0.95' });
     await openAnalysis(page, server.url, a);
@@ -75,7 +106,9 @@ describe.skipIf(!runBrowserTests)('studies in chromium', () => {
     expect(await shownValue(page, 'success', 'successRate0')).toBe(expected.successRate);
     expect(await shownValue(page, 'success', 'wilsonLow0')).toBe(expected.wilsonLow);
     expect(await shownValue(page, 'success', 'wilsonHigh0')).toBe(expected.wilsonHigh);
-    expect(await shownValue(page, 'miss', 'cep50_0')).toBe(expected.cep50 ?? NaN);
+    if (expected.cep50 !== null) expectClose(await shownValue(page, 'miss', 'cep50_0'), expected.cep50, ACROSS_ENGINES, 'cep50');
+    const pageTexts = new Map<string, string | null>();
+    for (const key of ['successRate0', 'wilsonLow0', 'wilsonHigh0']) pageTexts.set(key, await page.textContent(`[data-figure="success"] dd[data-key="${key}"]`));
 
     const jobsBefore = await computeCounts(page);
     const { before, after } = await changeControl(page, () => page.selectOption('#control-confidence', '0.99').then(() => undefined), 'success');
@@ -104,6 +137,10 @@ describe.skipIf(!runBrowserTests)('studies in chromium', () => {
     expect(summaries[0]!.successRate).toBe(expected.successRate);
     expect(summaries[0]!.wilsonLow).toBe(expected.wilsonLow);
     expect(summaries[0]!.wilsonHigh).toBe(expected.wilsonHigh);
+    // Report and summarize run in the same engine: continuous numbers agree to the bit.
+    if (expected.cep50 !== null) expect(reportValue(html, 'cep50_0')).toBe(summaries[0]!.cep50);
+    // And what a reader sees is the same text on the page and in the report.
+    for (const [key, text] of pageTexts) expect(reportText(html, key), key).toBe(text);
   });
 
   it('localization: ranking by added miss redraws only the ranking', async () => {
@@ -147,7 +184,7 @@ describe.skipIf(!runBrowserTests)('studies in chromium', () => {
     };
     expect(await shownValue(page, 'landing', 'bestQ')).toBe(tuned.recommended['filter.qScale']);
     expect(await shownValue(page, 'landing', 'bestR')).toBe(tuned.recommended['filter.rScale']);
-    expect(await shownValue(page, 'landing', 'bestCost')).toBe(tuned.cost);
+    expectClose(await shownValue(page, 'landing', 'bestCost'), tuned.cost, ACROSS_ENGINES, 'cost');
     const jobsBefore = await computeCounts(page);
     const { before, after } = await changeControl(page, () => page.selectOption('#control-level', '0.99').then(() => undefined), 'consistency');
     expect(after.consistency).toBeGreaterThan(before.consistency!);

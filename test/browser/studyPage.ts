@@ -49,3 +49,10 @@ export function reportValue(html: string, key: string): number {
   if (!match || match[1] === '') throw new Error(`report has no number ${key}`);
   return Number(match[1]);
 }
+
+/** The text a reader sees for a number in a report. */
+export function reportText(html: string, key: string): string {
+  const match = new RegExp(`data-key="${key}" data-value="[^"]*">([^<]*)<`).exec(html);
+  if (!match) throw new Error(`report has no number ${key}`);
+  return match[1]!;
+}

@@ -1,0 +1,260 @@
+// Study: one landing, step by step: where carrier, lander and estimate were, how wrong the
+// estimate was against its own ±3σ, whether its NIS stayed inside the chi-square band, the
+// supervisor's phases, and what the camera reported. The time slider only moves the markers.
+import { setPath } from '../../estimator/io/scenarioPath.js';
+import type { Scenario } from '../../estimator/sim/Scenario.js';
+import { PHASES } from '../../estimator/sim/TrialResult.js';
+import { CARRIER, ESTIMATE, MUTED, SERIES, TRUTH } from '../figures/palette.js';
+
+/** The latest box: Okabe–Ito orange, readable on the dark image. */
+const DETECTOR_BOX = SERIES[4];
+import { extent, plotSvg, type Layer } from '../figures/plot.js';
+import { sideBySide } from '../figures/sideBySide.js';
+import { formatNumber } from '../figures/svg.js';
+import type { JobRunner } from '../jobs/JobRunner.js';
+import type { JobState } from '../jobs/JobState.js';
+import type { LandingOutput } from '../jobs/landingJob.js';
+import { fromState, HALF, keyNumber, toCsv, WIDE } from './figureOutput.js';
+import type { Study } from './Study.js';
+
+type TrialState = JobState<LandingOutput>;
+
+/** Index of the last kept row at or before time t. */
+function rowAt(value: LandingOutput, t: number): number {
+  let k = 0;
+  while (k + 1 < value.t.length && value.t[k + 1]! <= t) k++;
+  return k;
+}
+
+function deckOutline(east: number, north: number, heading: number, length: number, width: number): { x: number[]; y: number[] } {
+  const c = Math.cos(heading), s = Math.sin(heading);
+  const corners = [[length / 2, width / 2], [-length / 2, width / 2], [-length / 2, -width / 2], [length / 2, -width / 2]];
+  return { x: corners.map(([a, b]) => east + a! * c - b! * s), y: corners.map(([a, b]) => north + a! * s + b! * c) };
+}
+
+const landerEast = (v: LandingOutput, r: readonly number[][], k: number) => v.carrierEast[k]! - r[0]![k]!;
+const landerNorth = (v: LandingOutput, r: readonly number[][], k: number) => v.carrierNorth[k]! - r[1]![k]!;
+
+export const landingStudy: Study = {
+  id: 'landing',
+  title: 'One landing, step by step',
+  lede: 'A single trial of the scenario: the carrier drives, the lander trails, aligns and descends on its filter’s estimate. Scrub through time to see what the camera reported.',
+  parameters: [
+    { kind: 'number', name: 'trial', label: 'Trial number', unit: '', min: 0, max: 99, step: 1, default: 0, integer: true },
+    { kind: 'number', name: 'speed', label: 'Carrier speed', unit: 'm/s', min: 0, max: 15, step: 0.5, default: 3 },
+    { kind: 'number', name: 'pixelNoise', label: 'Box centre noise', unit: 'px', min: 0, max: 10, step: 0.5, default: 1.5 },
+    { kind: 'number', name: 'time', label: 'Inspect time', unit: 's', min: 0, max: 120, step: 0.5, default: 8 },
+  ],
+  cells: [
+    {
+      name: 'flown',
+      inputs: ['scenario', 'speed', 'pixelNoise'],
+      compute: (scenario: Scenario, speed: number, pixelNoise: number) => setPath(setPath(scenario, 'carrier.speed', speed), 'detector.pixelNoise', pixelNoise),
+    },
+    {
+      name: 'run',
+      inputs: ['jobs', 'flown', 'seed', 'trial'],
+      compute: (jobs: JobRunner, flown: Scenario, seed: number, trial: number) => jobs.run('landing', { scenario: flown, seed, trial, every: 0.05 }, `trial ${trial}`),
+    },
+  ],
+  figures: [
+    {
+      name: 'topView',
+      title: 'Top view',
+      caption: 'Carrier track, lander (truth) and where the filter put the lander, east/north in metres; the deck outline and markers at the inspected time.',
+      inputs: ['run', 'time', 'flown'],
+      compute: (state: TrialState, time: number, flown: Scenario) =>
+        fromState(state, 'trial', (v) => {
+          const k = rowAt(v, time);
+          const idx = v.t.map((_, i) => i);
+          const deck = deckOutline(v.carrierEast[k]!, v.carrierNorth[k]!, v.carrierHeading[k]!, flown.carrier.deckLength, flown.carrier.deckWidth);
+          const lx = idx.map((i) => landerEast(v, v.truth, i));
+          const ly = idx.map((i) => landerNorth(v, v.truth, i));
+          const ex = idx.map((i) => landerEast(v, v.estimate, i));
+          const ey = idx.map((i) => landerNorth(v, v.estimate, i));
+          return {
+            markup: plotSvg({
+              title: 'Top view',
+              ...HALF,
+              equalAspect: true,
+              x: { label: 'east (m)', domain: extent([...v.carrierEast, ...lx]) },
+              y: { label: 'north (m)', domain: extent([...v.carrierNorth, ...ly]) },
+              layers: [
+                { kind: 'line', x: v.carrierEast, y: v.carrierNorth, color: CARRIER, width: 3, label: 'carrier' },
+                { kind: 'line', x: lx, y: ly, color: TRUTH, label: 'lander' },
+                { kind: 'line', x: ex, y: ey, color: ESTIMATE, dash: 1, label: 'estimated lander' },
+                { kind: 'outline', ...deck, color: CARRIER, fill: 'rgba(0,158,115,0.25)' },
+                { kind: 'points', x: [lx[k]!], y: [ly[k]!], color: TRUTH, radius: 4.5 },
+                { kind: 'points', x: [ex[k]!], y: [ey[k]!], color: ESTIMATE, shape: 'diamond', radius: 4.5 },
+              ],
+            }),
+            csv: toCsv(['t', 'carrierEast', 'carrierNorth', 'landerEast', 'landerNorth', 'estimatedEast', 'estimatedNorth'], idx.map((i) => [v.t[i]!, v.carrierEast[i]!, v.carrierNorth[i]!, lx[i]!, ly[i]!, ex[i]!, ey[i]!])),
+          };
+        }),
+    },
+    {
+      name: 'sideView',
+      title: 'Side view',
+      caption: 'Lander relative to the deck centre: along the carrier’s heading (m) against height above the deck (m); truth and estimate.',
+      inputs: ['run', 'time', 'flown'],
+      compute: (state: TrialState, time: number, flown: Scenario) =>
+        fromState(state, 'trial', (v) => {
+          const k = rowAt(v, time);
+          const along = (r: readonly number[][], i: number) => -(r[0]![i]! * Math.cos(v.carrierHeading[i]!) + r[1]![i]! * Math.sin(v.carrierHeading[i]!));
+          const idx = v.t.map((_, i) => i);
+          const ta = idx.map((i) => along(v.truth, i));
+          const th = v.truth[2]!.map((z) => -z);
+          const ea = idx.map((i) => along(v.estimate, i));
+          const eh = v.estimate[2]!.map((z) => -z);
+          const half = flown.carrier.deckLength / 2;
+          return {
+            markup: plotSvg({
+              title: 'Side view',
+              ...HALF,
+              x: { label: 'along the carrier heading (m)', domain: extent([...ta, -half, half]) },
+              y: { label: 'height above deck (m)', domain: extent([...th, 0], 0.08) },
+              layers: [
+                { kind: 'rects', rects: [{ x0: -half, x1: half, y0: -flown.carrier.bodyHeight, y1: 0, fill: 'rgba(0,158,115,0.35)', title: 'deck' }], label: 'deck', legendColor: CARRIER },
+                { kind: 'line', x: ta, y: th, color: TRUTH, label: 'lander' },
+                { kind: 'line', x: ea, y: eh, color: ESTIMATE, dash: 1, label: 'estimate' },
+                { kind: 'points', x: [ta[k]!], y: [th[k]!], color: TRUTH, radius: 4.5 },
+              ],
+            }),
+            csv: toCsv(['t', 'alongTruth', 'heightTruth', 'alongEstimate', 'heightEstimate'], idx.map((i) => [v.t[i]!, ta[i]!, th[i]!, ea[i]!, eh[i]!])),
+          };
+        }),
+    },
+    {
+      name: 'error',
+      title: 'Estimate error and its ±3σ',
+      caption: 'Estimated minus true relative position, per axis (m), inside the filter’s own ±3σ band: an honest filter keeps the line inside the band almost always.',
+      wide: true,
+      inputs: ['run'],
+      compute: (state: TrialState) =>
+        fromState(state, 'trial', (v) => {
+          const names = ['east', 'north', 'up'];
+          const panels = [0, 1, 2].map((i) => {
+            const err = v.estimate[i]!.map((e, k) => e - v.truth[i]![k]!);
+            const s3 = v.sigma[i]!.map((s) => 3 * s);
+            const span = Math.max(0.2, ...err.map(Math.abs).filter(Number.isFinite)) * 1.2;
+            const width = WIDE.width / 3;
+            return {
+              width,
+              height: WIDE.height,
+              svg: plotSvg({
+                title: `${names[i]} error`,
+                width,
+                height: WIDE.height,
+                x: { label: 'time (s)', domain: extent(v.t, 0) },
+                y: { label: `${names[i]} error (m)`, domain: [-span, span] },
+                layers: [
+                  { kind: 'band', x: v.t, low: s3.map((s) => -s), high: s3, color: TRUTH, label: '±3σ' },
+                  { kind: 'line', x: v.t, y: err, color: ESTIMATE, width: 1.4, label: 'error' },
+                ],
+              }),
+            };
+          });
+          return {
+            markup: sideBySide('Estimate error and its ±3σ', panels),
+            csv: toCsv(['t', 'errEast', 'errNorth', 'errUp', 'sigmaEast', 'sigmaNorth', 'sigmaUp'], v.t.map((t, k) => [t, v.estimate[0]![k]! - v.truth[0]![k]!, v.estimate[1]![k]! - v.truth[1]![k]!, v.estimate[2]![k]! - v.truth[2]![k]!, v.sigma[0]![k]!, v.sigma[1]![k]!, v.sigma[2]![k]!])),
+            numbers: [keyNumber('positionRmse', 'position RMSE (m)', v.result.positionRmse), keyNumber('velocityRmse', 'velocity RMSE (m/s)', v.result.velocityRmse)],
+          };
+        }),
+    },
+    {
+      name: 'consistency',
+      title: 'NIS against its chi-square band',
+      caption: 'Mean NIS over the trial’s accepted box updates, with the 95 % chi-square acceptance interval for that many updates; mean NEES per its dimension beside it.',
+      inputs: ['run'],
+      compute: (state: TrialState) =>
+        fromState(state, 'trial', (v) => {
+          const r = v.result;
+          const b = v.nisBounds;
+          return {
+            markup: plotSvg({
+              title: 'NIS against its chi-square band',
+              ...HALF,
+              x: { label: '', domain: [-0.6, 1.6], tickLabels: [{ value: 0, label: `NIS (dim ${r.nisDim}, ${r.nisCount} updates)` }, { value: 1, label: `NEES (dim ${r.neesDim})` }] },
+              y: { label: 'mean / dimension', domain: [0, Math.max(2, ...[r.nisMean / r.nisDim, r.neesMean / r.neesDim].filter(Number.isFinite)) * 1.15] },
+              layers: [
+                { kind: 'rule', axis: 'y', value: 1, color: MUTED, label: 'expected value' },
+                ...(b ? [{ kind: 'rects', rects: [{ x0: -0.25, x1: 0.25, y0: b[0] / r.nisDim, y1: b[1] / r.nisDim, fill: 'rgba(0,114,178,0.25)', title: `95 % band ${formatNumber(b[0])}–${formatNumber(b[1])}` }], label: 'χ² 95 % band', legendColor: 'rgba(0,114,178,0.4)' } as Layer] : []),
+                { kind: 'points', x: [0, 1], y: [r.nisMean / r.nisDim, r.neesMean / r.neesDim], color: ESTIMATE, shape: 'diamond', radius: 6, label: 'this trial' },
+              ],
+            }),
+            csv: toCsv(['statistic', 'mean', 'dim', 'count', 'low', 'high'], [['NIS', r.nisMean, r.nisDim, r.nisCount, b?.[0] ?? null, b?.[1] ?? null], ['NEES', r.neesMean, r.neesDim, null, null, null]]),
+            numbers: [keyNumber('nisMean', 'mean NIS', r.nisMean), keyNumber('gateRejections', 'gate rejections', r.gateRejections, String(r.gateRejections))],
+          };
+        }),
+    },
+    {
+      name: 'phases',
+      title: 'Phase timeline',
+      caption: 'What the landing supervisor was doing: acquire, trail, align, descend, touchdown (aborts fall back to acquire).',
+      inputs: ['run'],
+      compute: (state: TrialState) =>
+        fromState(state, 'trial', (v) => {
+          const rects: { x0: number; x1: number; y0: number; y1: number; fill: string; title: string }[] = [];
+          let start = 0;
+          for (let k = 1; k <= v.t.length; k++) {
+            if (k === v.t.length || v.phase[k] !== v.phase[start]) {
+              const row = PHASES.indexOf(v.phase[start]!);
+              const end = k === v.t.length ? v.t[k - 1]! : v.t[k]!;
+              rects.push({ x0: v.t[start]!, x1: end, y0: PHASES.length - row - 0.8, y1: PHASES.length - row - 0.2, fill: SERIES[row]!, title: `${v.phase[start]}: ${formatNumber(v.t[start]!)}–${formatNumber(end)} s` });
+              start = k;
+            }
+          }
+          const r = v.result;
+          return {
+            markup: plotSvg({
+              title: 'Phase timeline',
+              ...HALF,
+              x: { label: 'time (s)', domain: extent(v.t, 0) },
+              y: { label: '', domain: [0, PHASES.length], tickLabels: PHASES.map((p, i) => ({ value: PHASES.length - i - 0.5, label: p })) },
+              marginLeft: 78,
+              layers: [{ kind: 'rects', rects }],
+            }),
+            csv: toCsv(['phase', 'seconds'], PHASES.map((p) => [p, r.phaseTimes[p]])),
+            numbers: [
+              keyNumber('outcome', 'outcome', null, r.outcome),
+              keyNumber('missDistance', 'miss (m)', r.missDistance),
+              keyNumber('touchdownTime', 'touchdown (s)', r.touchdownTime),
+            ],
+          };
+        }),
+    },
+    {
+      name: 'camera',
+      title: 'What the camera reported',
+      caption: 'The image (pixels, origin top left): boxes the detector delivered in the second before the inspected time, faded by age, the latest one solid.',
+      inputs: ['run', 'time', 'flown'],
+      compute: (state: TrialState, time: number, flown: Scenario) =>
+        fromState(state, 'trial', (v) => {
+          const recent = v.boxes.filter((b) => b.t <= time && b.t > time - 1);
+          const w = flown.camera.width, h = flown.camera.height;
+          const latest = recent[recent.length - 1];
+          const layers: Layer[] = [
+            { kind: 'rects', rects: [{ x0: 0, x1: w, y0: 0, y1: h, fill: '#2b3138', title: `image ${w} × ${h} px` }] },
+            ...recent.slice(0, -1).map((b): Layer => ({ kind: 'outline', x: [b.box.xMin, b.box.xMax, b.box.xMax, b.box.xMin], y: [b.box.yMin, b.box.yMin, b.box.yMax, b.box.yMax], color: 'rgba(230,225,215,0.35)' })),
+          ];
+          if (latest) layers.push({ kind: 'outline', x: [latest.box.xMin, latest.box.xMax, latest.box.xMax, latest.box.xMin], y: [latest.box.yMin, latest.box.yMin, latest.box.yMax, latest.box.yMax], color: DETECTOR_BOX, label: `box at ${formatNumber(latest.t)} s` });
+          if (!latest) layers.push({ kind: 'text', x: w / 2, y: h / 2, text: 'no box in this second', color: '#fffdf8', anchor: 'middle' });
+          return {
+            markup: plotSvg({ title: 'Camera image', ...HALF, equalAspect: true, yDown: true, x: { label: 'u (px)', domain: [0, w] }, y: { label: 'v (px)', domain: [0, h] }, layers }),
+            csv: toCsv(['t', 'xMin', 'yMin', 'xMax', 'yMax'], v.boxes.map((b) => [b.t, b.box.xMin, b.box.yMin, b.box.xMax, b.box.yMax])),
+            numbers: [keyNumber('boxesInSecond', 'boxes in that second', recent.length, String(recent.length))],
+          };
+        }),
+    },
+  ],
+  blocks: [
+    { prose: 'The trial runs in a background worker (about a twentieth of a second of computing for a minute of flight). Changing the trial number, speed or noise flies it again; the time slider only moves markers and the camera view.' },
+    { figure: 'topView' },
+    { figure: 'sideView' },
+    { figure: 'error' },
+    { figure: 'consistency' },
+    { figure: 'phases' },
+    { prose: 'The detector’s box is the image of the carrier’s true 3-D outline, noisy, late and sometimes missing; the filter assumes a flat square target, so its size model is mismatched on purpose.' },
+    { figure: 'camera' },
+  ],
+};

@@ -1,9 +1,10 @@
 // `alight record <scenario.json> --out <log-folder> [--seed N] [--no-truth] [--force]`: fly one
 // simulated trial and write it in the flight-log layout, so `alight replay` can run on it.
-import { existsSync, readdirSync } from 'node:fs';
+import { existsSync, readdirSync, rmSync } from 'node:fs';
 import { isAbsolute, join } from 'node:path';
 import { folderSink } from '../io/log/folderSink.node.js';
 import { recordTrial } from '../io/log/recordTrial.js';
+import { STREAM_SPECS } from '../io/log/logStreams.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
@@ -13,9 +14,12 @@ const OPTIONS: OptionSpec[] = [
   { name: 'out', kind: 'value', valueName: 'FOLDER', help: 'log folder to write (created; refused if it already holds a log, unless --force)' },
   { name: 'seed', kind: 'value', valueName: 'N', help: "master seed of the trial's random streams (default: the scenario's seed)" },
   { name: 'no-truth', kind: 'flag', help: 'leave out truth.csv, like a flight without a motion-capture or RTK reference' },
-  { name: 'force', kind: 'flag', help: 'overwrite the files of an existing log folder' },
+  { name: 'force', kind: 'flag', help: 'replace the log files (camera.json, filter.json, the CSV files) of an existing log folder' },
   { name: 'help', kind: 'flag', help: 'show this help' },
 ];
+
+/** The files of the layout (LAYOUT.md); --force removes exactly these. */
+const LOG_FILES = ['camera.json', 'filter.json', ...Object.values(STREAM_SPECS).map((s) => s.file)];
 
 const USAGE = 'alight record <scenario.json> --out <log-folder> [--seed N] [--no-truth] [--force]';
 const PURPOSE = "fly one simulated trial and write what the lander's sensors saw as a replayable flight log";
@@ -41,9 +45,11 @@ export const recordCommand: Command = {
     const scenario = loadScenarioForCli('record', parsed.positional[0], io.cwd);
     const seed = numberOption('record', parsed, 'seed', scenario.seed, (v) => Number.isSafeInteger(v) && v >= 0, 'a non-negative integer');
     const folder = isAbsolute(out) ? out : join(io.cwd, out);
-    if (existsSync(folder) && !parsed.flags.has('force')) {
-      const present = readdirSync(folder).filter((f) => f === 'camera.json' || f.endsWith('.csv'));
-      if (present.length > 0) throw new CliError(`alight record: ${out} already holds a log (${present.slice(0, 3).join(', ')}${present.length > 3 ? ', ...' : ''}); use --force to overwrite`);
+    if (existsSync(folder)) {
+      const present = readdirSync(folder).filter((f) => LOG_FILES.includes(f));
+      if (present.length > 0 && !parsed.flags.has('force')) throw new CliError(`alight record: ${out} already holds a log (${present.slice(0, 3).join(', ')}${present.length > 3 ? ', ...' : ''}); use --force to overwrite`);
+      // --force: the old log's files go, so no stale truth.csv or onboard.csv survives.
+      for (const f of present) rmSync(join(folder, f));
     }
     let recorded;
     try {

@@ -122,7 +122,7 @@ export const replayCommand: Command = {
     }
     let report: ReplayReport;
     try {
-      report = await replayLog(logSourceFromFolder(isAbsolute(folder) ? folder : join(io.cwd, folder)), settings);
+      report = await replayLog(logSourceFromFolder(isAbsolute(folder) ? folder : join(io.cwd, folder), folder), settings);
     } catch (error) {
       inputError('replay', error);
     } finally {

@@ -11,15 +11,16 @@ import { STREAM_SPECS } from './logStreams.js';
 /** Read chunk size: large enough that readline, not the disk, sets the pace. */
 const CHUNK_BYTES = 1 << 20;
 
-export function logSourceFromFolder(folder: string): LogSource {
-  if (!existsSync(folder)) throw new LogLayoutError(folder, null, null, 'no such log folder');
-  if (!statSync(folder).isDirectory()) throw new LogLayoutError(folder, null, null, 'not a folder (a log is a folder with camera.json and CSV files)');
+/** @param name how messages and the report call the folder (default: the path as given). */
+export function logSourceFromFolder(folder: string, name = folder): LogSource {
+  if (!existsSync(folder)) throw new LogLayoutError(name, null, null, 'no such log folder');
+  if (!statSync(folder).isDirectory()) throw new LogLayoutError(name, null, null, 'not a folder (a log is a folder with camera.json and CSV files)');
   const json = (name: string): unknown => {
     const path = join(folder, name);
     return existsSync(path) ? parseJsonOrText(readFileSync(path, 'utf8')) : undefined;
   };
   return {
-    name: folder,
+    name,
     camera: json('camera.json'),
     filter: json('filter.json') ?? null,
     open(stream) {

@@ -37,6 +37,7 @@ describe('LandingFilter: construction and bad input', () => {
     expect(() => new LandingFilter(filterSpec({ sizeNoise: -1 }), camera, targetSize)).toThrow(/filter\.sizeNoise: .*positive definite/);
     expect(() => new LandingFilter(filterSpec({ odometryNoise: Number.NaN }), camera, targetSize)).toThrow(/filter\.odometryNoise/);
     expect(() => new LandingFilter(filterSpec({ gateProbability: 1 }), camera, targetSize)).toThrow(/filter\.gateProbability/);
+    expect(() => new LandingFilter(filterSpec({ carrierModel: 'singer', singerTau: 0 }), camera, targetSize)).toThrow(/filter\.singerTau/);
   });
 
   it('refuses a bad camera or target size with a typed error', () => {
@@ -66,6 +67,13 @@ describe('LandingFilter: construction and bad input', () => {
     const filter = started({ historyLength: 0.05 });
     for (let k = 1; k <= 100; k++) filter.propagate(k * 0.005, hoverForce, level);
     expect(filter.updateBox(0.1, boxFor(r0)).reason).toBe('older-than-history');
+  });
+
+  it('initializeFromBox refuses a bad box or attitude and stays uninitialized', () => {
+    const filter = new LandingFilter(filterSpec(), camera, targetSize);
+    expect(filter.initializeFromBox(0, { xMin: 10, yMin: 10, xMax: 5, yMax: 20 }, level, [0, 0, 0], { velocity: 1, accelBias: 0.1 }).reason).toBe('box-empty');
+    expect(filter.initializeFromBox(0, boxFor(r0), [Number.NaN, 0, 0, 0], [0, 0, 0], { velocity: 1, accelBias: 0.1 }).reason).toBe('attitude-not-finite');
+    expect(filter.propagate(0.01, hoverForce, level)?.reason).toBe('not-initialized');
   });
 
   it('a box needs a known attitude: right after initialize() (no attitude yet) it is rejected', () => {

@@ -266,6 +266,7 @@ export class LandingFilter {
     this.x.fill(0);
     this.P.fill(0);
     this.divergence = null;
+    this.updatesSinceCheck = 0;
     const { coefficients, noise } = this.core;
     coefficients.dt = Number.NaN;
     if (this.n === 15) {

@@ -119,6 +119,21 @@ describe('LandingFilter: divergence is a named event, never NaN downstream', () 
   });
 });
 
+describe('LandingFilter: periodic positive-definiteness test', () => {
+  it('a broken block the measurements do not see is still caught within 8 updates', () => {
+    const filter = started();
+    filter.propagate(0.005, hoverForce, level);
+    const n = filter.n;
+    // Indefinite accelerometer-bias block; odometry S involves only the vL block.
+    filter.P[9 * n + 10] = 1;
+    filter.P[10 * n + 9] = 1;
+    const statuses: string[] = [];
+    for (let k = 0; k < 8; k++) statuses.push(filter.updateOdometry(0.005, [1, 0, 0]).status);
+    expect(statuses).toContain('diverged');
+    expect(filter.diverged).toBe('covariance-not-positive-definite');
+  });
+});
+
 describe('LandingFilter: updates', () => {
   it('initializeFromBox back-projects the first box to r with the loose covariance', () => {
     const q = quatFromEulerDeg(3, -2, 40);

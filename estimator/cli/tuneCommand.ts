@@ -107,7 +107,7 @@ export const tuneCommand: Command = {
         const gates = [...new Set(gridRows.map((r) => r.gate))];
         const gate = gates.reduce((a, b) => (Math.abs(Math.log(b / result.best.gate)) < Math.abs(Math.log(a / result.best.gate)) ? b : a));
         const cells = gridRows.filter((r) => r.gate === gate).map((r) => ({ x: r.q, y: r.r, value: r.score }));
-        writeFileSync(resolvePath(io.cwd, svg), heatMapFigure(cells, { xLabel: 'filter.qScale', yLabel: 'filter.rScale', valueLabel: 'cost (lower is better)', lowerIsBetter: true, best: { x: result.best.q, y: result.best.r }, title: `Tuning cost at gateScale ${gate}` }));
+        writeFileSync(resolvePath(io.cwd, svg), heatMapFigure(cells, { xLabel: 'filter.qScale', yLabel: 'filter.rScale', valueLabel: 'cost (lower = better)', lowerIsBetter: true, best: { x: result.best.q, y: result.best.r }, title: `Tuning cost at gateScale ${gate}` }));
       }
       const recommended = { 'filter.qScale': result.best.q, 'filter.rScale': result.best.r, 'filter.gateScale': result.best.gate };
       if (json) io.stdout(JSON.stringify({ recommended, cost: result.best.score, successRate: best.successRate, wilsonLow: best.wilsonLow, wilsonHigh: best.wilsonHigh, neesMean: best.neesMean, neesDim: best.neesDim, neesVerdict: best.neesVerdict, evaluations: rows.length, trialsPerSetting: trials }, null, 1) + '\n');

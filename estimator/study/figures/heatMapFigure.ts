@@ -21,7 +21,7 @@ export interface HeatMapOptions {
 
 /** Cells on a log-spaced grid (each distinct x and y is a column / row). */
 export function heatMapFigure(cells: readonly HeatCell[], options: HeatMapOptions): string {
-  const frame: Frame = { width: 620, height: 480, margin: { top: 48, right: 120, bottom: 56, left: 72 } };
+  const frame: Frame = { width: 660, height: 480, margin: { top: 56, right: 150, bottom: 56, left: 72 } };
   const { margin, width, height } = frame;
   const xs = [...new Set(cells.map((c) => c.x))].sort((a, b) => a - b);
   const ys = [...new Set(cells.map((c) => c.y))].sort((a, b) => a - b);
@@ -42,7 +42,9 @@ export function heatMapFigure(cells: readonly HeatCell[], options: HeatMapOption
     const fill = Number.isFinite(c.value) ? colour(c.value) : '#ffffff';
     body += `<rect x="${px(x0)}" y="${px(y0)}" width="${px(x1 - x0)}" height="${px(y1 - y0)}" fill="${fill}"><title>${escapeXml(`${options.xLabel} ${c.x.toPrecision(3)}, ${options.yLabel} ${c.y.toPrecision(3)}: ${c.value.toPrecision(4)}`)}</title></rect>\n`;
   }
-  body += bottomAxis(x as never, frame, options.xLabel) + leftAxis(y as never, frame, options.yLabel);
+  // Ticks at the grid values themselves, as plain numbers (no SI prefixes: 0.1 is not "100m").
+  const plain = (v: number) => String(Number(v.toPrecision(3)));
+  body += bottomAxis(x, frame, options.xLabel, { values: xs, format: plain, grid: false }) + leftAxis(y, frame, options.yLabel, { values: ys, format: plain, grid: false });
   if (options.best) body += `<circle cx="${px(x(options.best.x))}" cy="${px(y(options.best.y))}" r="7" fill="none" stroke="#ffffff" stroke-width="3"/><circle cx="${px(x(options.best.x))}" cy="${px(y(options.best.y))}" r="7" fill="none" stroke="${INK}" stroke-width="1.5"><title>recommended</title></circle>\n`;
   // Colour legend.
   const lx = width - margin.right + 24, top = margin.top, bottom = height - margin.bottom, steps = 24;
@@ -51,6 +53,6 @@ export function heatMapFigure(cells: readonly HeatCell[], options: HeatMapOption
     body += `<rect x="${lx}" y="${px(top + ((bottom - top) * k) / steps)}" width="16" height="${px((bottom - top) / steps + 0.5)}" fill="${colour(v)}"/>`;
   }
   body += `\n<text x="${lx + 20}" y="${top + 8}">${escapeXml(hi.toPrecision(3))}</text><text x="${lx + 20}" y="${bottom}">${escapeXml(lo.toPrecision(3))}</text>`;
-  body += `<text x="${lx}" y="${top - 8}" font-size="11">${escapeXml(options.valueLabel)}</text>\n`;
+  body += `<text x="${lx}" y="${top - 10}" font-size="11">${escapeXml(options.valueLabel)}</text>\n`;
   return svgDocument(frame, options.title ?? `${options.valueLabel} over ${options.xLabel} and ${options.yLabel}`, body);
 }

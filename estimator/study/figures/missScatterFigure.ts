@@ -21,7 +21,7 @@ export interface MissFigureOptions {
 }
 
 export function missScatterFigure(points: readonly MissPoint[], options: MissFigureOptions): string {
-  const frame: Frame = { width: 560, height: 520, margin: { top: 48, right: 130, bottom: 56, left: 64 } };
+  const frame: Frame = { width: 600, height: 520, margin: { top: 48, right: 170, bottom: 56, left: 64 } };
   const { margin, width, height } = frame;
   let extent = Math.max(options.deckLength / 2, options.deckWidth / 2, options.padRadius) * 1.15;
   for (const p of points) extent = Math.max(extent, Math.abs(p.x) * 1.05, Math.abs(p.y) * 1.05);

@@ -40,30 +40,42 @@ interface TickScale {
   tickFormat(count?: number, specifier?: string): (v: number) => string;
 }
 
-/** Bottom axis with light grid lines across the plot. */
-export function bottomAxis(scale: TickScale, frame: Frame, label: string, ticks = 6): string {
+export interface AxisOptions {
+  /** Approximate tick count (default 6 bottom, 5 left). */
+  ticks?: number;
+  /** Exact tick values and their format (e.g. the cells of a log grid). */
+  values?: readonly number[];
+  format?: (v: number) => string;
+  /** Light grid lines across the plot (default true). */
+  grid?: boolean;
+}
+
+/** Bottom axis, with light grid lines across the plot unless grid is false. */
+export function bottomAxis(scale: TickScale, frame: Frame, label: string, options: AxisOptions = {}): string {
   const { margin, height, width } = frame;
   const y = height - margin.bottom;
-  const format = scale.tickFormat(ticks);
+  const format = options.format ?? scale.tickFormat(options.ticks ?? 6);
   let out = `<g class="x-axis">\n<line x1="${margin.left}" x2="${width - margin.right}" y1="${y}" y2="${y}" stroke="${INK}"/>\n`;
-  for (const t of scale.ticks(ticks)) {
+  for (const t of options.values ?? scale.ticks(options.ticks ?? 6)) {
     const x = px(scale(t));
-    out += `<line x1="${x}" x2="${x}" y1="${margin.top}" y2="${y}" stroke="${GRID}"/><line x1="${x}" x2="${x}" y1="${y}" y2="${y + 5}" stroke="${INK}"/>`;
+    if (options.grid !== false) out += `<line x1="${x}" x2="${x}" y1="${margin.top}" y2="${y}" stroke="${GRID}"/>`;
+    out += `<line x1="${x}" x2="${x}" y1="${y}" y2="${y + 5}" stroke="${INK}"/>`;
     out += `<text x="${x}" y="${y + 18}" text-anchor="middle">${escapeXml(format(t))}</text>\n`;
   }
   out += `<text x="${px((margin.left + width - margin.right) / 2)}" y="${height - 16}" text-anchor="middle">${escapeXml(label)}</text>\n</g>\n`;
   return out;
 }
 
-/** Left axis with light grid lines across the plot. */
-export function leftAxis(scale: TickScale, frame: Frame, label: string, ticks = 5): string {
+/** Left axis, with light grid lines across the plot unless grid is false. */
+export function leftAxis(scale: TickScale, frame: Frame, label: string, options: AxisOptions = {}): string {
   const { margin, height, width } = frame;
   const x = margin.left;
-  const format = scale.tickFormat(ticks);
+  const format = options.format ?? scale.tickFormat(options.ticks ?? 5);
   let out = `<g class="y-axis">\n<line x1="${x}" x2="${x}" y1="${margin.top}" y2="${height - margin.bottom}" stroke="${INK}"/>\n`;
-  for (const t of scale.ticks(ticks)) {
+  for (const t of options.values ?? scale.ticks(options.ticks ?? 5)) {
     const y = px(scale(t));
-    out += `<line x1="${x}" x2="${width - margin.right}" y1="${y}" y2="${y}" stroke="${GRID}"/><line x1="${x - 5}" x2="${x}" y1="${y}" y2="${y}" stroke="${INK}"/>`;
+    if (options.grid !== false) out += `<line x1="${x}" x2="${width - margin.right}" y1="${y}" y2="${y}" stroke="${GRID}"/>`;
+    out += `<line x1="${x - 5}" x2="${x}" y1="${y}" y2="${y}" stroke="${INK}"/>`;
     out += `<text x="${x - 8}" y="${y}" dy="0.32em" text-anchor="end">${escapeXml(format(t))}</text>\n`;
   }
   const cy = px((margin.top + height - margin.bottom) / 2);

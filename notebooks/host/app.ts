@@ -48,15 +48,20 @@ function analysisFromLocation(): { analysis: Analysis; problem: string | null } 
 
 function updateBusy(): void {
   const busy = activity.length > 0 || [...plates.values()].some((p) => p.element.dataset.final !== 'true');
+  const cancelled = [...plates.values()].some((p) => p.output?.status.startsWith('cancelled'));
   document.body.dataset.state = busy ? 'busy' : 'idle';
   const bar = document.querySelector<HTMLElement>('.progress > div');
   const line = document.querySelector<HTMLElement>('.run-text');
-  const cancel = document.querySelector<HTMLButtonElement>('#cancel');
+  const button = document.querySelector<HTMLButtonElement>('#cancel');
   const done = activity.reduce((s, a) => s + a.done, 0);
   const total = activity.reduce((s, a) => s + a.total, 0);
-  if (bar) bar.style.width = activity.length === 0 ? '100%' : `${total > 0 ? (100 * done) / total : 2}%`;
-  if (line) line.textContent = activity.length === 0 ? 'all results in' : `${activity.map((a) => a.label).join(', ')}: ${done} of ${total || '…'}`;
-  if (cancel) cancel.disabled = activity.length === 0;
+  if (bar) bar.style.width = activity.length === 0 ? (cancelled ? '0%' : '100%') : `${total > 0 ? (100 * done) / total : 2}%`;
+  if (line) line.textContent = activity.length > 0 ? `${activity.map((a) => a.label).join(', ')}: ${done} of ${total || '…'}` : cancelled ? 'cancelled: partial results shown' : 'all results in';
+  if (button) {
+    // While jobs run the button cancels them; after a cancel it runs the study again.
+    button.textContent = activity.length === 0 && cancelled ? 'Run again' : 'Cancel';
+    button.disabled = activity.length === 0 && !cancelled;
+  }
 }
 
 function setPermalink(analysis: Analysis): void {
@@ -150,7 +155,10 @@ function renderSetup(study: Study, analysis: Analysis): HTMLElement {
   setup.append(renderSeed(analysis.seed, (seed) => change('seed', seed)));
 
   setup.insertAdjacentHTML('beforeend', `<h2>Run</h2><div class="progress" role="progressbar" aria-label="Trials"><div></div></div><div class="run-line"><span class="run-text" aria-live="polite"></span><button type="button" id="cancel">Cancel</button></div><h2>Share</h2>`);
-  setup.querySelector('#cancel')!.addEventListener('click', () => runner.cancelAll());
+  setup.querySelector('#cancel')!.addEventListener('click', () => {
+    if (activity.length > 0) runner.cancelAll();
+    else mounted?.set('seed', analysis.seed); // same value, new definition: every job reruns
+  });
   const share = document.createElement('div');
   share.className = 'share';
   const button = (text: string, id: string, action: () => void): void => {

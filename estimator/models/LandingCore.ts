@@ -6,7 +6,8 @@
 //   loose    z = back-projected r (m),     H = [I 0 0 0],       R = propagated box noise
 //   odometry z = vL (m/s, world),          H = [0 0 I 0],       R = σo² I · rScale
 import type { FilterSpec } from '../sim/Scenario.js';
-import { BoxMeasurementModel, type FilterCamera } from './FilterCamera.js';
+import { BoxMeasurementModel } from './BoxMeasurementModel.js';
+import type { FilterCamera } from './FilterCamera.js';
 import { EVENT_ODOMETRY, EVENT_TIGHT } from './FilterHistory.js';
 import { emptyProcessCoefficients, processCoefficients, type ProcessCoefficients, type ProcessNoise } from './ProcessCoefficients.js';
 import { predictLanding } from './predictLanding.js';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { BoxMeasurementModel } from '../../estimator/models/FilterCamera.js';
+import { BoxMeasurementModel } from '../../estimator/models/BoxMeasurementModel.js';
 import { quatFromEulerDeg } from '../../estimator/frames/quatFromEulerDeg.js';
 import { expectAllClose, expectClose } from '../helpers/expectClose.js';
 import { camera, targetSize } from './landingFixture.js';

@@ -2,6 +2,7 @@
 import { ekf } from './ekf.js';
 import { world } from './world.js';
 import { sweepBench } from './sweep.js';
+import { replayBench } from './replay.js';
 export interface BenchSection {
   name: string;
   run(): Promise<Record<string, unknown>>;
@@ -11,4 +12,5 @@ export const sections: BenchSection[] = [
   ekf,
   world,
   sweepBench,
+  replayBench,
 ];

@@ -29,6 +29,10 @@ export class LogStreamReader {
   private readonly iterator: AsyncIterator<string>;
   private readonly problems: ProblemLog;
   private columnIndex = new Int32Array(0);
+  /** For each header field, the value slot it fills (-1: not used). */
+  private slotOfField = new Int32Array(0);
+  private headerNames: string[] = [];
+  private optionalBase = 0;
   private columnNames: string[] = [];
   private orderSlot = 0;
   private timeSlots: number[] = [0];
@@ -88,6 +92,12 @@ export class LogStreamReader {
     if (this.orderSlot < 0) this.orderSlot = 0;
     this.timeSlots = this.columnNames.flatMap((c, s) => (c === 'time' || c === 'arrival' ? [s] : []));
     this.fieldCount = names.length;
+    this.headerNames = names;
+    this.slotOfField = new Int32Array(names.length).fill(-1);
+    this.columnIndex.forEach((fieldIndex, slot) => {
+      if (fieldIndex >= 0) this.slotOfField[fieldIndex] = slot;
+    });
+    this.optionalBase = wanted.length;
     const known = this.spec.knownPrefix;
     this.ignoredColumns = names.filter((n) => !this.columnNames.includes(n) && !(known !== undefined && n.startsWith(known)));
   }
@@ -170,39 +180,47 @@ export class LogStreamReader {
 
   /** Parse and check one data row into `values`; on a problem, report it and return false. */
   private parse(text: string): boolean {
-    const fields = text.split(',');
-    const file = this.file;
-    if (fields.length !== this.fieldCount) {
-      const column = fields.length < this.fieldCount ? this.columnNameAt(fields.length) : null;
-      this.problems.add('field-count', file, this.line, column, `${fields.length} fields, header has ${this.fieldCount}; row skipped`);
+    // One pass over the fields with indexOf (no split array); numbers only for used columns.
+    const v = this.values;
+    const slotOf = this.slotOfField;
+    const count = this.fieldCount;
+    let start = 0;
+    let field = 0;
+    let badSlot = -1;
+    let badText = '';
+    for (;;) {
+      let end = text.indexOf(',', start);
+      const last = end < 0;
+      if (last) end = text.length;
+      const slot = field < count ? slotOf[field]! : -1;
+      if (slot >= 0 && badSlot < 0) {
+        const piece = text.slice(start, end);
+        const value = Number(piece);
+        if (!Number.isFinite(value) || (value === 0 && piece.trim() === '')) {
+          badSlot = slot;
+          badText = piece.trim();
+        } else v[slot] = value;
+      }
+      field++;
+      if (last) break;
+      start = end + 1;
+    }
+    if (field !== count) {
+      const column = field < count ? this.headerNames[field]! : null;
+      this.problems.add('field-count', this.file, this.line, column, `${field} fields, header has ${count}; row skipped`);
       return false;
     }
-    const v = this.values;
-    const idx = this.columnIndex;
-    for (let s = 0; s < idx.length; s++) {
-      const i = idx[s]!;
-      if (i < 0) continue; // optional column absent: filled below
-      const field = fields[i]!;
-      const value = Number(field);
-      if (!Number.isFinite(value) || (value === 0 && field.trim() === '')) {
-        const shown = field.trim() === '' ? 'empty' : `"${field.trim()}"`;
-        this.problems.add('not-a-number', file, this.line, this.columnNames[s]!, `${shown} is not a finite number; row skipped`);
-        return false;
-      }
-      v[s] = value;
+    if (badSlot >= 0) {
+      this.problems.add('not-a-number', this.file, this.line, this.columnNames[badSlot]!, `${badText === '' ? 'empty' : `"${badText}"`} is not a finite number; row skipped`);
+      return false;
     }
-    const base = 1 + this.spec.layouts[this.layout]!.length;
+    const base = this.optionalBase;
     for (let o = 0; o < this.spec.optional.length; o++) {
-      if (idx[base + o]! >= 0) continue;
+      if (this.columnIndex[base + o]! >= 0) continue;
       const fallback = this.spec.optional[o]!.fallback;
       v[base + o] = fallback === 'time' ? v[0]! : fallback;
     }
     return this.checkDomain() && this.checkOrder();
-  }
-
-  private columnNameAt(fieldIndex: number): string | null {
-    const s = Array.from(this.columnIndex).indexOf(fieldIndex);
-    return s >= 0 ? this.columnNames[s]! : null;
   }
 
   private checkDomain(): boolean {

@@ -3,8 +3,7 @@
 //   P ← (I - K H) P (I - K H)ᵀ + K R Kᵀ   (Joseph form: Bucy & Joseph 1968; stays symmetric
 //   positive semi-definite for any gain, unlike (I - K H) P).
 // Call innovationCovariance, set ws.y, optionally gate on normalizedInnovationSquared, then updateJoseph.
-import { cholesky } from './cholesky.js';
-import { invertSymmetricPositiveDefinite } from './cholesky.js';
+import { cholesky, invertSymmetricPositiveDefinite } from './cholesky.js';
 import type { UpdateWorkspace } from './UpdateWorkspace.js';
 
 /** R (or any matrix named `name`) is not symmetric positive definite. */

@@ -26,7 +26,10 @@ export function renderDropzone(text: string, onFiles: (files: Map<string, File>)
     zone.classList.remove('over');
     const items = [...(event.dataTransfer?.items ?? [])];
     const entries = items.map((i) => i.webkitGetAsEntry()).filter((e): e is FileSystemEntry => e !== null);
-    collect(entries).then((files) => onFiles(new Map(files.map((f) => [f.name, f]))));
+    // A dropped folder comes as entries; plain dropped files may come without them.
+    const plain = [...(event.dataTransfer?.files ?? [])];
+    if (entries.length === 0) onFiles(new Map(plain.map((f) => [f.name, f])));
+    else collect(entries).then((files) => onFiles(new Map(files.map((f) => [f.name, f]))));
   });
   return zone;
 }

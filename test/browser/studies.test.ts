@@ -4,7 +4,7 @@
 // library's own result for the same analysis. For the detection study the same analysis also
 // goes through `alight report` and `alight sweep` + `alight summarize`: all three agree exactly.
 import { execFileSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -12,6 +12,8 @@ import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { defaultScenario } from '../../estimator/io/defaultScenario.js';
 import { setPath } from '../../estimator/io/scenarioPath.js';
+import { logSourceFromFolder } from '../../estimator/io/log/logSourceFromFolder.node.js';
+import { replayLog } from '../../estimator/io/log/replayLog.js';
 import { runTrial } from '../../estimator/sim/runTrial.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
 import { applyParams } from '../../estimator/study/applyParams.js';
@@ -25,7 +27,7 @@ import { analysisToText, type Analysis, type StudyId } from '../../notebooks/ana
 import { startStaticServer, type RunningServer } from '../../notebooks/server/staticServer.node.js';
 import { launchChromium, runBrowserTests, type Browser } from '../../notebooks/scripts/launchChromium.node.js';
 import { expectClose } from '../helpers/expectClose.js';
-import { changeControl, computeCounts, openAnalysis, reportText, reportValue, shownValue } from './studyPage.js';
+import { changeControl, computeCounts, openAnalysis, reportText, reportValue, shownValue, waitIdle } from './studyPage.js';
 
 /**
  * Continuous results (RMSE, CEP, NIS, costs) computed in chromium's V8 differ from Node's in the
@@ -191,5 +193,32 @@ describe.skipIf(!runBrowserTests)('studies in chromium', () => {
     expect(after.landing).toBe(before.landing);
     expect(after.settings).toBe(before.settings);
     expect((await computeCounts(page)).search).toBe(jobsBefore.search);
+  });
+
+  it('replay: a dropped log folder replays like replayLog; Q redraws the replay, not the file list', async () => {
+    writeFileSync(join(work, 'scenario.json'), JSON.stringify(defaultScenario()));
+    await cli(['record', 'scenario.json', '--out', 'flight', '--seed', '3'], work);
+    const folder = join(work, 'flight');
+    await page.goto(server.url + '#study=replay');
+    await waitIdle(page);
+    // Drop the folder's files on the drop zone, as a person drags them from a file manager.
+    const files = readdirSync(folder).map((name) => ({ name, text: readFileSync(join(folder, name), 'utf8') }));
+    await page.evaluate((list) => {
+      const transfer = new DataTransfer();
+      for (const f of list) transfer.items.add(new File([f.text], f.name));
+      document.querySelector('.dropzone')!.dispatchEvent(new DragEvent('drop', { dataTransfer: transfer, bubbles: true, cancelable: true }));
+    }, files);
+    await page.waitForFunction(() => [...document.querySelectorAll('[data-figure="source"] td')].some((td) => td.textContent === 'camera.json'));
+    await page.waitForFunction(() => document.querySelector('[data-figure="rows"] dd[data-key="filterSteps"]') !== null, undefined, { timeout: 60_000 });
+    await waitIdle(page);
+    const expected = await replayLog(logSourceFromFolder(folder), { filter: { qScale: 1, rScale: 1 }, filterSource: 'study controls' });
+    expect(await shownValue(page, 'rows', 'filterSteps')).toBe(expected.filterSteps);
+    expect(await shownValue(page, 'consistency', 'gateRejections')).toBe(expected.gateRejections);
+    expectClose(await shownValue(page, 'consistency', 'nisMean'), expected.nisMean!, ACROSS_ENGINES, 'nisMean');
+    const { before, after } = await changeControl(page, () => page.selectOption('#control-qScale', '4').then(() => undefined), 'consistency');
+    expect(after.source).toBe(before.source);
+    for (const moved of ['consistency', 'estimate', 'rows']) expect(after[moved], moved).toBeGreaterThan(before[moved]!);
+    const tuned = await replayLog(logSourceFromFolder(folder), { filter: { qScale: 4, rScale: 1 }, filterSource: 'study controls' });
+    expectClose(await shownValue(page, 'consistency', 'nisMean'), tuned.nisMean!, ACROSS_ENGINES, 'nisMean at qScale 4');
   });
 });

@@ -46,7 +46,7 @@ describe('predict + update reach published steady states', () => {
     });
   }
 
-  it('scalar random walk, Q = R = 1: prior P = golden ratio 1.6180340, K = 0.6180340 (scalar Riccati p² - Qp - QR = 0)', () => {
+  it('scalar random walk, Q = R = 1: prior P = golden ratio 1.6180340, K = 0.6180340 (scalar Riccati p² - Qp - QR = 0; common practice)', () => {
     const { K, prior, posterior } = steadyState(new Float64Array([1]), new Float64Array([1]), new Float64Array([1]), new Float64Array([1]), 1, 1, 100);
     // 1e-12: closed form (Q + sqrt(Q² + 4QR)) / 2, reached to round-off.
     expectClose(prior[0]!, (1 + Math.sqrt(5)) / 2, { abs: 1e-12 }, 'prior P');
@@ -54,7 +54,7 @@ describe('predict + update reach published steady states', () => {
     expectClose(posterior[0]!, K[0]! * 1, { abs: 1e-12 }, 'posterior P = K R');
   });
 
-  it('scalar random walk, Q = 0.5, R = 2: steady prior (Q + sqrt(Q² + 4QR)) / 2 (scalar Riccati closed form)', () => {
+  it('scalar random walk, Q = 0.5, R = 2: steady prior (Q + sqrt(Q² + 4QR)) / 2 (scalar Riccati closed form; common practice)', () => {
     const { prior } = steadyState(new Float64Array([1]), new Float64Array([0.5]), new Float64Array([1]), new Float64Array([2]), 1, 1, 200);
     expectClose(prior[0]!, (0.5 + Math.sqrt(0.25 + 4)) / 2, { abs: 1e-12 }, 'prior P');
   });

@@ -3,6 +3,7 @@
 import { analysisToText, AnalysisError, isStudyId, type Analysis } from '../analysis/Analysis.js';
 import { defaultAnalysis } from '../analysis/defaultAnalysis.js';
 import { parseAnalysis } from '../analysis/parseAnalysis.js';
+import { parseScenario } from '../../estimator/io/parseScenario.js';
 import { analysisTextFromFragment, permalinkFragment } from '../analysis/permalink.js';
 import { WorkerJobRunner, type Activity } from '../jobs/WorkerJobRunner.js';
 import { mountStudy, type MountedStudy } from '../runtime/mountStudy.js';
@@ -143,7 +144,36 @@ function renderSetup(study: Study, analysis: Analysis): HTMLElement {
   const setup = document.createElement('aside');
   setup.className = 'setup';
   setup.setAttribute('aria-label', 'Setup');
-  setup.innerHTML = `<h2>Scenario</h2><div class="scenario-name">${escapeXml(analysis.scenario.name)}</div><p class="hint">${escapeXml(analysis.scenario.description)}</p><h2>Controls</h2>`;
+  setup.innerHTML = `<h2>Scenario</h2><div class="control"><label for="control-scenario">Scenario</label><span></span><select id="control-scenario" data-parameter="scenario"><option value="">${escapeXml(analysis.scenario.name)}</option></select></div><p class="hint scenario-description">${escapeXml(analysis.scenario.description)}</p><h2>Controls</h2>`;
+  const picker = setup.querySelector<HTMLSelectElement>('#control-scenario')!;
+  // The demo scenarios the server offers; picking one replaces the analysis's scenario.
+  fetch('/data-demo/scenarios.json')
+    .then((r) => (r.ok ? (r.json() as Promise<string[]>) : []))
+    .then((names) => {
+      for (const name of names) {
+        const o = document.createElement('option');
+        o.value = name;
+        o.textContent = `demo: ${name.replace(/\.scenario\.json$/, '')}`;
+        picker.append(o);
+      }
+    }, () => {});
+  picker.addEventListener('change', async () => {
+    if (picker.value === '') return;
+    const hint = setup.querySelector('.scenario-description')!;
+    try {
+      const text = await (await fetch(`/data-demo/${encodeURIComponent(picker.value)}`)).text();
+      const scenario = parseScenario(text, picker.value);
+      analysis.scenario = scenario;
+      picker.options[0]!.textContent = scenario.name;
+      picker.value = '';
+      hint.textContent = scenario.description;
+      mounted?.set('scenario', scenario);
+      setPermalink(analysis);
+      updateBusy();
+    } catch (error) {
+      hint.textContent = (error as Error).message;
+    }
+  });
   const change = (name: string, value: unknown): void => {
     if (name === 'seed') analysis.seed = value as number;
     else analysis.parameters[name] = value as string | number;

@@ -104,6 +104,12 @@ export function startStaticServer(options: StaticServerOptions): Promise<Running
       res.end(req.method === 'HEAD' ? undefined : body);
       return;
     }
+    if (rawPath === '/data-demo/scenarios.json') {
+      const names = (await fs.readdir(options.demoDir).catch(() => [] as string[])).filter((n) => n.endsWith('.scenario.json')).sort();
+      res.writeHead(200, { 'Content-Type': TYPES['.json']!, ...SECURITY_HEADERS });
+      res.end(req.method === 'HEAD' ? undefined : JSON.stringify(names));
+      return;
+    }
     if (rawPath === '/data-demo/logs.json') {
       const body = JSON.stringify(await listDemoLogs(options.demoDir));
       res.writeHead(200, { 'Content-Type': TYPES['.json']!, ...SECURITY_HEADERS });

@@ -60,6 +60,15 @@ describe.skipIf(!runBrowserTests)('sharing a study in chromium', () => {
     expect(await page.evaluate(() => window.alight!.analysisText())).toBe(analysisToText(b));
   });
 
+  it('swaps in a demo scenario from the server, and the link carries it', async () => {
+    await page.selectOption('#control-scenario', 'highway-truck.scenario.json');
+    await page.waitForFunction(() => window.alight!.analysisText().includes('"name": "highway truck"'));
+    await waitIdle(page);
+    const text = await page.evaluate(() => window.alight!.analysisText());
+    expect(JSON.parse(text).scenario.carrier.speed).toBe(JSON.parse(readFileSync(join(repo, 'data-demo', 'highway-truck.scenario.json'), 'utf8')).carrier.speed);
+    expect(await page.textContent('#control-scenario option:first-child')).toBe('highway truck');
+  });
+
   it('exports a figure as SVG and PNG and its data as CSV', async () => {
     const svg = await downloaded(page, () => page.click('[data-figure="success"] button:text-is("SVG")'));
     expect(svg.name).toBe('detection-success.svg');

@@ -38,6 +38,7 @@ describe('startStaticServer', () => {
     writeFileSync(join(root, 'page', 'app.js'), 'console.log("page");\n');
     writeFileSync(join(root, 'demo', 'flight-a', 'camera.json'), '{}\n');
     writeFileSync(join(root, 'demo', 'flight-a', 'boxes.csv'), 'time\n');
+    writeFileSync(join(root, 'demo', 'truck.scenario.json'), '{}\n');
     writeFileSync(join(root, 'secret.txt'), 'not for the browser\n');
     symlinkSync(join(root, 'secret.txt'), join(root, 'page', 'leak.txt'));
     server = await startStaticServer({ pageDir: join(root, 'page'), demoDir: join(root, 'demo'), port: 0 });
@@ -58,10 +59,11 @@ describe('startStaticServer', () => {
     expect(app).toEqual({ status: 200, type: 'text/javascript; charset=utf-8', body: 'console.log("page");\n' });
   });
 
-  it('lists and serves the demo logs', async () => {
+  it('lists and serves the demo scenarios and logs', async () => {
     const list = await get(server.port, '/data-demo/logs.json', host);
     expect(JSON.parse(list.body)).toEqual([{ name: 'flight-a', files: ['boxes.csv', 'camera.json'] }]);
     expect((await get(server.port, '/data-demo/flight-a/boxes.csv', host)).body).toBe('time\n');
+    expect(JSON.parse((await get(server.port, '/data-demo/scenarios.json', host)).body)).toEqual(['truck.scenario.json']);
   });
 
   it('refuses requests whose Host is not its loopback address and port', async () => {

@@ -15,7 +15,9 @@ export function asCliError(command: string, error: unknown): never {
   if (error instanceof CliError) throw error;
   if (error instanceof ScenarioError) throw new CliError(error.problems.join('\n'));
   if (error instanceof Error && STUDY_ERRORS.has(error.name)) {
-    throw new CliError(`alight ${command}: ${error.message}`);
+    // A trial that failed by itself (not on refused input) is a defect: exit 70, like main's internal errors.
+    const internal = (error as { internal?: unknown }).internal === true;
+    throw new CliError(`alight ${command}: ${internal ? 'a trial failed (please report): ' : ''}${error.message}`, internal ? 70 : 2);
   }
   throw error;
 }

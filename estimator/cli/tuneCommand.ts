@@ -2,7 +2,6 @@
 // on simulated trials; a directory argument tunes on flight logs instead (REPLAY's tuneLog).
 import { statSync, writeFileSync } from 'node:fs';
 import type { Scenario } from '../sim/Scenario.js';
-import { heatMapFigure } from '../study/figures/heatMapFigure.js';
 import { runBatch } from '../study/runBatch.js';
 import { searchMultipliers, type Multipliers, type SurfaceSample } from '../study/search.js';
 import { summarizeGroup, type PointSummary } from '../study/summarize.js';
@@ -11,9 +10,11 @@ import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { createExecutor, loadScenarioOrFail, workerCount } from './studyRunner.js';
+import { surfaceHeatMap, tuneOnLog } from './tuneOnLog.js';
 import { asCliError, resolvePath, SAFETY_NOTE, WORKERS_OPTION } from './studyCli.js';
 
 const USAGE = 'alight tune <scenario.json | log-folder> [--trials N] [--grid G] [--refine E] [--surface FILE] [--svg FILE]';
+const LOG_NOTE = '\nWith a flight-log folder every setting replays the whole log and the cost is consistency alone:\nNIS near its dimension, white innovations and few gated updates (or NEES when the log has truth.csv).\n';
 const PURPOSE = 'Search the filter multipliers filter.qScale, filter.rScale and filter.gateScale on a log-spaced grid, then\nrefine with Nelder–Mead. Cost = (1 - landing success) + w·|ln(ANEES / n)|, lower is better; every setting\nruns the same trials (same random streams), so differences come from the settings, not from luck.';
 const OPTIONS: OptionSpec[] = [
   { name: 'trials', kind: 'value', valueName: 'N', help: 'trials per setting (default 16)' },
@@ -23,6 +24,8 @@ const OPTIONS: OptionSpec[] = [
   { name: 'r', kind: 'value', valueName: 'LO:HI', help: 'rScale range (default 0.1:10)' },
   { name: 'gate', kind: 'value', valueName: 'LO:HI', help: 'gateScale range (default 0.5:4; LO = HI fixes it)' },
   { name: 'nees-weight', kind: 'value', valueName: 'W', help: 'weight of NEES consistency against landing success (default 0.25)' },
+  { name: 'criterion', kind: 'value', valueName: 'nis|nees', help: 'log folder only: NIS + whiteness, or NEES against truth.csv (default: nees with truth)' },
+  { name: 'filter', kind: 'value', valueName: 'FILE', help: 'log folder only: filter settings over the log\'s filter.json, as for alight replay' },
   { name: 'seed', kind: 'value', valueName: 'S', help: 'master seed (default: the scenario\'s seed)' },
   WORKERS_OPTION,
   { name: 'surface', kind: 'value', valueName: 'FILE', help: 'write every evaluated setting (.csv for CSV, else JSON)' },
@@ -58,18 +61,21 @@ export const tuneCommand: Command = {
   async run(argv, io) {
     const parsed = parseArgs('tune', argv, OPTIONS);
     if (parsed.flags.has('help')) {
-      io.stdout(formatHelp(USAGE, PURPOSE, OPTIONS));
+      io.stdout(formatHelp(USAGE, PURPOSE, OPTIONS) + LOG_NOTE);
       return 0;
     }
     if (parsed.positional.length !== 1) throw new CliError(`alight tune: give one scenario file or flight-log folder (usage: ${USAGE})`);
     const target = parsed.positional[0]!;
+    const grid = numberOption('tune', parsed, 'grid', 4, (v) => Number.isInteger(v) && v >= 1 && v <= 20, 'an integer 1..20');
+    const refine = numberOption('tune', parsed, 'refine', 20, (v) => Number.isInteger(v) && v >= 0, 'a non-negative integer');
     if (isDirectory(resolvePath(io.cwd, target))) {
-      throw new CliError(`alight tune: ${target} is a folder: tuning on flight logs is not available in this build yet (needs estimator/io/log/tuneLog.ts)`);
+      return tuneOnLog(target, parsed, io, { q: range(parsed, 'q'), r: range(parsed, 'r'), gate: range(parsed, 'gate'), grid, refine });
+    }
+    for (const logOnly of ['criterion', 'filter']) {
+      if (parsed.values.has(logOnly)) throw new CliError(`alight tune: --${logOnly} applies to a flight-log folder, not to a scenario`);
     }
     const scenario: Scenario = loadScenarioOrFail(target, 'tune', io.cwd);
     const trials = numberOption('tune', parsed, 'trials', 16, (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
-    const grid = numberOption('tune', parsed, 'grid', 4, (v) => Number.isInteger(v) && v >= 1 && v <= 20, 'an integer 1..20');
-    const refine = numberOption('tune', parsed, 'refine', 20, (v) => Number.isInteger(v) && v >= 0, 'a non-negative integer');
     const weight = numberOption('tune', parsed, 'nees-weight', 0.25, (v) => v >= 0, 'a non-negative number');
     const seed = numberOption('tune', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
     const json = parsed.flags.has('json');
@@ -102,13 +108,7 @@ export const tuneCommand: Command = {
         writeFileSync(resolvePath(io.cwd, surfaceFile), text);
       }
       const svg = parsed.values.get('svg');
-      if (svg) {
-        const gridRows = rows.filter((r) => r.stage === 'grid');
-        const gates = [...new Set(gridRows.map((r) => r.gate))];
-        const gate = gates.reduce((a, b) => (Math.abs(Math.log(b / result.best.gate)) < Math.abs(Math.log(a / result.best.gate)) ? b : a));
-        const cells = gridRows.filter((r) => r.gate === gate).map((r) => ({ x: r.q, y: r.r, value: r.score }));
-        writeFileSync(resolvePath(io.cwd, svg), heatMapFigure(cells, { xLabel: 'filter.qScale', yLabel: 'filter.rScale', valueLabel: 'cost (lower = better)', lowerIsBetter: true, best: { x: result.best.q, y: result.best.r }, title: `Tuning cost at gateScale ${gate}` }));
-      }
+      if (svg) writeFileSync(resolvePath(io.cwd, svg), surfaceHeatMap(rows, result.best, 'Tuning cost'));
       const recommended = { 'filter.qScale': result.best.q, 'filter.rScale': result.best.r, 'filter.gateScale': result.best.gate };
       if (json) io.stdout(JSON.stringify({ recommended, cost: result.best.score, successRate: best.successRate, wilsonLow: best.wilsonLow, wilsonHigh: best.wilsonHigh, neesMean: best.neesMean, neesDim: best.neesDim, neesVerdict: best.neesVerdict, evaluations: rows.length, trialsPerSetting: trials }, null, 1) + '\n');
       else {

@@ -3,7 +3,7 @@
 import type { MessagePort } from 'node:worker_threads';
 import type { Scenario } from '../sim/Scenario.js';
 import type { WorkerReply, WorkerRequest } from './sweepPool.node.js';
-import { runItems, type ApplyParams, type TrialFunction, type TrialJob } from './trialExecutor.js';
+import { runItems, TrialError, type ApplyParams, type TrialFunction, type TrialJob } from './trialExecutor.js';
 
 export function serveTrials(port: MessagePort, trial: TrialFunction, apply: ApplyParams): void {
   let job: TrialJob | null = null;
@@ -21,7 +21,7 @@ export function serveTrials(port: MessagePort, trial: TrialFunction, apply: Appl
       runItems({ ...job, items: request.items }, 0, request.items.length / 2, trial, apply, cache, (line) => lines.push(line));
       reply = { type: 'lines', lines };
     } catch (error) {
-      reply = { type: 'error', message: (error as Error)?.message ?? String(error) };
+      reply = { type: 'error', message: (error as Error)?.message ?? String(error), internal: !(error instanceof TrialError) || error.internal };
     }
     port.postMessage(reply);
   });

@@ -11,7 +11,7 @@ import { TrialError, type LineSink, type TrialExecutor, type TrialJob } from './
 export type WorkerRequest =
   | { type: 'init'; scenario: Scenario; seed: number; points: Params[] }
   | { type: 'run'; items: Int32Array };
-export type WorkerReply = { type: 'lines'; lines: string[] } | { type: 'error'; message: string };
+export type WorkerReply = { type: 'lines'; lines: string[] } | { type: 'error'; message: string; internal: boolean };
 
 /** The bundled worker: beside this bundle (dist/), or dist/ of the repo when run from source. */
 export function defaultWorkerPath(): string {
@@ -75,7 +75,7 @@ export function workerPool(options: PoolOptions): TrialExecutor {
           const onMessage = (reply: WorkerReply) => {
             if (failed) return;
             active--;
-            if (reply.type === 'error') return finish(new TrialError(reply.message));
+            if (reply.type === 'error') return finish(new TrialError(reply.message, reply.internal));
             try {
               for (const line of reply.lines) sink(line);
             } catch (error) {
@@ -83,7 +83,7 @@ export function workerPool(options: PoolOptions): TrialExecutor {
             }
             if (!dispatch(worker) && active === 0) finish();
           };
-          const onError = (error: Error) => finish(new TrialError(`worker thread failed: ${error.message}`));
+          const onError = (error: Error) => finish(new TrialError(`worker thread failed: ${error.message}`, true));
           worker.on('message', onMessage);
           worker.on('error', onError);
           listeners.push(() => {

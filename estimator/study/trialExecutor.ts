@@ -33,9 +33,12 @@ export interface TrialExecutor {
 }
 
 export class TrialError extends Error {
-  constructor(message: string) {
+  /** False when a point's values were refused (bad input); true when the trial itself failed. */
+  readonly internal: boolean;
+  constructor(message: string, internal = false) {
     super(message);
     this.name = 'TrialError';
+    this.internal = internal;
   }
 }
 
@@ -55,7 +58,8 @@ export function runItems(job: TrialJob, start: number, end: number, trial: Trial
       sink(formatRecord(point, index, params, trial(scenario, { seed: job.seed, point, trial: index })));
     } catch (error) {
       if (error instanceof TrialError) throw error;
-      throw new TrialError(`point ${point} ${JSON.stringify(params)} trial ${index}: ${(error as Error)?.message ?? String(error)}`);
+      const refused = (error as Error)?.name === 'ScenarioError';
+      throw new TrialError(`point ${point} ${JSON.stringify(params)} trial ${index}: ${(error as Error)?.message ?? String(error)}`, !refused);
     }
   }
 }

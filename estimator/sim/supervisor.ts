@@ -6,8 +6,9 @@
 // trail:     track the carrier at guidance.trailHeight above the deck.
 // align:     inside alignRadius; after alignTime continuously inside -> descend.
 // descend:   descend at descentRate only while the horizontal error e is inside the funnel
-//              e < funnelBase + funnelSlope * h            (h = height above deck, m)
-//            hold height while e < 2 funnel, climb beyond; below flareHeight -> touchdown.
+//              e < funnel = funnelBase + funnelSlope * h   (h = height above deck, m)
+//            slower outside it, holding height at e = 2 funnel and climbing at descentRate
+//            from e = 3 funnel (linear between: no thrust chatter); below flareHeight -> touchdown.
 // touchdown: committed: keep tracking horizontally, descend until contact; no abort.
 // Below the blind height (target overflowing the image) descents run 1.5x faster and
 // without heave feed-forward.
@@ -127,9 +128,12 @@ export class LandingSupervisor {
       case 'descend': {
         const funnel = g.funnelBase + g.funnelSlope * Math.max(h, 0);
         if (h < g.flareHeight) this.phase = 'touchdown';
-        if (error < funnel || this.phase === 'touchdown') out[2] = this.descent(h, s.vcz);
-        else if (error < 2 * funnel) out[2] = s.vcz;
-        else out[2] = h < g.trailHeight ? s.vcz + g.descentRate : s.vcz;
+        // continuous in the error, so the thrust does not chatter at the funnel's edge:
+        // 1 inside the funnel, falling linearly to 0 (hold) at 2 funnel and -1 (climb) at 3 funnel
+        let factor = error <= funnel ? 1 : Math.max(-1, 2 - error / funnel);
+        if (this.phase === 'touchdown') factor = 1;
+        if (factor < 0 && h >= g.trailHeight) factor = 0;
+        out[2] = factor > 0 ? factor * this.descent(h, s.vcz) + (1 - factor) * s.vcz : s.vcz - factor * g.descentRate;
         break;
       }
       case 'touchdown':

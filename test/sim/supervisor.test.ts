@@ -48,7 +48,7 @@ describe('LandingSupervisor', () => {
     expectClose(out[2]!, 0.3 - 1, { abs: 1e-12 }, 'down at the rate limit, heave fed forward (exact)');
   });
 
-  it('descends only inside the funnel, holds just outside and climbs far outside', () => {
+  it('descends inside the funnel, slows to a hold at twice its width and climbs from three times', () => {
     const sup = new LandingSupervisor(guidanceSpec, s.lander, new Still());
     const out = new Float64Array(3);
     sup.step(0, 0.01, input({}), out);
@@ -58,10 +58,14 @@ describe('LandingSupervisor', () => {
     // at h = 3 the funnel is 0.2 + 0.1 * 3 = 0.5 m
     sup.step(1.21, 0.01, input({ rx: 0.45, height: 3 }), out);
     expectClose(out[2]!, -0.5, { abs: 1e-12 }, 'inside: descend (exact)');
-    sup.step(1.22, 0.01, input({ rx: 0.7, height: 3 }), out);
-    expectClose(out[2]!, 0, { abs: 1e-12 }, 'just outside: hold (exact)');
-    sup.step(1.23, 0.01, input({ rx: 1.2, height: 3 }), out);
-    expectClose(out[2]!, 0.5, { abs: 1e-12 }, 'far outside: climb (exact)');
+    sup.step(1.22, 0.01, input({ rx: 0.75, height: 3 }), out);
+    expectClose(out[2]!, -0.25, { abs: 1e-12 }, 'half way to 2 funnel: half rate (exact)');
+    sup.step(1.23, 0.01, input({ rx: 1, height: 3 }), out);
+    expectClose(out[2]!, 0, { abs: 1e-12 }, '2 funnel: hold (exact)');
+    sup.step(1.24, 0.01, input({ rx: 2, height: 3 }), out);
+    expectClose(out[2]!, 0.5, { abs: 1e-12 }, 'beyond 3 funnel: climb (exact)');
+    sup.step(1.25, 0.01, input({ rx: 2, height: 6.5 }), out);
+    expectClose(out[2]!, 0, { abs: 1e-12 }, 'no climb above the trailing height (exact)');
     expect(sup.phase).toBe('descend');
   });
 
@@ -92,7 +96,7 @@ describe('LandingSupervisor', () => {
     sup.step(0.01, 0.01, input({}), out);
     sup.step(1.2, 0.01, input({}), out);
     expect(sup.step(3, 0.01, input({ height: 1.5, unseenFor: 1.8 }), out)).toBe('descend');
-    expectClose(out[2]!, -0.5, { abs: 1e-12 }, 'still descending (exact)');
+    expectClose(out[2]!, -0.75, { abs: 1e-12 }, 'still descending, 1.5x faster, blind (exact)');
     expect(sup.step(3.1, 0.01, input({ height: 2.5, unseenFor: 1.9 }), out)).toBe('acquire');
     expect(sup.aborts).toBe(1);
   });

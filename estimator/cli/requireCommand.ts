@@ -2,6 +2,7 @@
 // still meets a target (bisection with adaptive trial counts).
 import { writeFileSync } from 'node:fs';
 import { getPath } from '../io/scenarioPath.js';
+import { applyParams } from '../study/applyParams.js';
 import { successFigure } from '../study/figures/successFigure.js';
 import { findRequirement } from '../study/findRequirement.js';
 import { plausibleRange } from '../study/plausibleRanges.js';
@@ -59,6 +60,11 @@ export const requireCommand: Command = {
     const firstBatch = numberOption('require', parsed, 'first-batch', 25, (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
     const steps = numberOption('require', parsed, 'steps', 6, (v) => Number.isInteger(v) && v >= 0 && v <= 30, 'an integer 0..30');
     const seed = numberOption('require', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
+    try {
+      for (const value of [from, to]) applyParams(scenario, { [path]: value }); // both ends valid before any trial
+    } catch (error) {
+      return asCliError('require', error);
+    }
     const executor = createExecutor(workerCount('require', parsed), io.env);
     const json = parsed.flags.has('json');
     try {

@@ -1,6 +1,6 @@
 // `alight sensitivity`: rank impairments by the landing success they cost over their plausible
 // range, one at a time around the scenario, with 95 % intervals.
-import { getPath } from '../io/scenarioPath.js';
+import { applyParams } from '../study/applyParams.js';
 import { PLAUSIBLE_RANGES, type PlausibleRange } from '../study/plausibleRanges.js';
 import { rankSensitivity } from '../study/rankSensitivity.js';
 import { runBatch } from '../study/runBatch.js';
@@ -51,8 +51,8 @@ export const sensitivityCommand: Command = {
     const executor = createExecutor(workerCount('sensitivity', parsed), io.env);
     const progress = progressBar(io, 'sensitivity');
     try {
-      for (const f of factors) getPath(scenario, f.path); // unknown paths fail before any trial runs
       const points = factors.flatMap((f) => [{ [f.path]: f.from }, { [f.path]: f.to }]);
+      for (const p of points) applyParams(scenario, p); // unknown paths and bad values fail before any trial runs
       let done = 0;
       const total = points.length * trials;
       const records = await runBatch(executor, { scenario, seed, points, trialStart: 0, trialEnd: trials }, () => progress.update(++done, total));

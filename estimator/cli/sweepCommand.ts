@@ -1,4 +1,5 @@
 // `alight sweep`: run a Monte Carlo sweep over scenario paths into a JSON Lines results file.
+import { applyParams } from '../study/applyParams.js';
 import { runSweep } from '../study/runSweep.node.js';
 import { resolveShard } from '../study/shard.js';
 import { DESIGN_KINDS, parseVary, type DesignKind } from '../study/sweepDesign.js';
@@ -63,6 +64,7 @@ export const sweepCommand: Command = {
       const result = await runSweep({
         scenario, vary, design, points, trials, seed, out, shard, executor,
         resume: parsed.flags.has('resume'),
+        check: applyParams,
         onProgress: (done, total) => progress.update(done, total),
         onNote: (note) => io.stderr(`alight sweep: ${note}\n`),
       });

@@ -6,7 +6,7 @@ import { VERSION } from '../version.js';
 import { canonicalText, describeProblems, formatHeader, parseResults, type ShardInfo, type SweepHeader } from './resultsFile.js';
 import { inShard } from './shard.js';
 import { designPoints, type DesignKind, type VarySpec } from './sweepDesign.js';
-import type { TrialExecutor } from './trialExecutor.js';
+import type { ApplyParams, TrialExecutor } from './trialExecutor.js';
 
 export class SweepError extends Error {
   constructor(message: string) {
@@ -34,6 +34,8 @@ export interface SweepOptions {
   onProgress?: (done: number, total: number) => void;
   /** Called with notes for the user (e.g. a dropped cut-off line). */
   onNote?: (message: string) => void;
+  /** Applies a point's values to the scenario (e.g. applyParams); when given, every point is checked before any file is touched. */
+  check?: ApplyParams;
 }
 
 export interface SweepSummary {
@@ -68,6 +70,15 @@ function removeFirst(path: string): Record<string, never> {
 export async function runSweep(o: SweepOptions): Promise<SweepSummary> {
   if (!Number.isInteger(o.trials) || o.trials < 1) throw new SweepError(`--trials must be a positive integer, got ${o.trials}`);
   const header = sweepHeader(o);
+  if (o.check) {
+    header.points.forEach((params, i) => {
+      try {
+        o.check!(o.scenario, params);
+      } catch (error) {
+        throw new SweepError(`sweep point ${i} ${JSON.stringify(params)}: ${(error as Error)?.message ?? String(error)}`);
+      }
+    });
+  }
   const done = new Set<number>();
   let fresh = true;
   if (existsSync(o.out)) {

@@ -34,7 +34,9 @@ const read = (name: string) => readFileSync(join(dir, name), 'utf8');
 describe('alight sweep (real trials)', () => {
   it('alight sweep --workers 1 and --workers 2 write identical files and summaries', async () => {
     await alight(['sweep', ...SWEEP, '--workers', '1', '--out', 'w1.jsonl']);
-    await alight(['sweep', ...SWEEP, '--workers', '2', '--out', 'w2.jsonl']);
+    const quiet = fakeIo(dir, { ALIGHT_SWEEP_WORKER: bundles.worker });
+    expect(await main(['sweep', ...SWEEP, '--workers', '2', '--out', 'w2.jsonl'], quiet)).toBe(0);
+    expect(quiet.err).toEqual([]); // no progress bar when stderr is not a terminal
     expect(read('w1.jsonl').split('\n')).toHaveLength(1 + 12 + 1);
     expect(read('w2.jsonl')).toBe(read('w1.jsonl'));
     const s1 = await alight(['summarize', 'w1.jsonl', '--json']);
@@ -80,7 +82,8 @@ describe('alight sweep (real trials)', () => {
   it('alight sweep refuses bad input with a message and exit 2', async () => {
     const cases: [string[], RegExp][] = [
       [[scenario, '--vary', 'detector.pixelNoise=1:3', '--trials', '2', '--out', 'x.jsonl'], /PATH=FROM:TO:COUNT/],
-      [[scenario, '--vary', 'detector.noSuchField=1:3:2', '--trials', '2', '--out', 'x.jsonl', '--workers', '1'], /detector\.noSuchField/],
+      [[scenario, '--vary', 'detector.noSuchField=1:3:2', '--trials', '2', '--out', 'x.jsonl', '--workers', '2'], /sweep point 0 \{"detector\.noSuchField":1\}: .*unknown scenario field "detector\.noSuchField"/],
+      [[scenario, '--vary', 'detector.pixelNoise=-1,1', '--trials', '2', '--out', 'x.jsonl'], /sweep point 0 .*detector\.pixelNoise/],
       [[scenario, '--trials', '2'], /--out FILE is required/],
       [[scenario, '--trials', '2', '--out', 'w1.jsonl'], /already exists: add --resume/],
       [[scenario, '--trials', '2', '--out', 'x.jsonl', '--shard', '4/3'], /1 <= I <= N/],
@@ -90,5 +93,6 @@ describe('alight sweep (real trials)', () => {
       expect(await main(['sweep', ...argv], io), argv.join(' ')).toBe(2);
       expect(io.err.join('')).toMatch(message);
     }
+    expect(existsSync(join(dir, 'x.jsonl'))).toBe(false); // refused before any file was written
   });
 });

@@ -40,6 +40,8 @@ export interface PlotSpec {
   note?: string;
   /** Left margin (px) for long category labels; default 58. */
   marginLeft?: number;
+  /** Legend in a row under the plot instead of over its top-right corner (maps, surfaces). */
+  legendBelow?: boolean;
 }
 
 const BASE_MARGIN = { top: 14, right: 14, bottom: 42, left: 58 };
@@ -56,7 +58,7 @@ function widen(domain: [number, number], span: number): [number, number] {
 }
 
 export function plotSvg(spec: PlotSpec): string {
-  const MARGIN = { ...BASE_MARGIN, left: spec.marginLeft ?? BASE_MARGIN.left };
+  const MARGIN = { ...BASE_MARGIN, left: spec.marginLeft ?? BASE_MARGIN.left, bottom: BASE_MARGIN.bottom + (spec.legendBelow ? 18 : 0) };
   const innerW = spec.width - MARGIN.left - MARGIN.right;
   const innerH = spec.height - MARGIN.top - MARGIN.bottom;
   let xAxis = spec.x;
@@ -84,7 +86,7 @@ export function plotSvg(spec: PlotSpec): string {
     parts.push(el('text', { x: MARGIN.left - 6, y: py + 4, 'text-anchor': 'end', fill: MUTED, 'font-size': 11 }, escapeXml(t.label)));
   }
   parts.push(el('rect', { x: MARGIN.left, y: MARGIN.top, width: innerW, height: innerH, fill: 'none', stroke: MUTED, 'stroke-width': 0.8 }));
-  parts.push(el('text', { x: MARGIN.left + innerW / 2, y: spec.height - 6, 'text-anchor': 'middle', fill: INK, 'font-size': 12 }, escapeXml(xAxis.label)));
+  parts.push(el('text', { x: MARGIN.left + innerW / 2, y: MARGIN.top + innerH + 36, 'text-anchor': 'middle', fill: INK, 'font-size': 12 }, escapeXml(xAxis.label)));
   parts.push(
     el('text', { transform: `translate(14 ${MARGIN.top + innerH / 2}) rotate(-90)`, 'text-anchor': 'middle', fill: INK, 'font-size': 12 }, escapeXml(yAxis.label)),
   );
@@ -103,18 +105,20 @@ export function plotSvg(spec: PlotSpec): string {
   parts.push(el('clipPath', { id: clipId }, el('rect', { x: MARGIN.left, y: MARGIN.top, width: innerW, height: innerH })));
   parts.push(el('g', { 'clip-path': `url(#${clipId})` }, ...drawn));
 
-  // Legend: top right, one row per labelled layer, each with its own dash as well as colour.
+  // Legend: top right (or in a row below), one entry per labelled layer, each with its own dash as well as colour.
+  let rowX = MARGIN.left;
   legend.forEach((item, i) => {
-    const ly = MARGIN.top + 12 + i * 15;
-    const lx = MARGIN.left + innerW - 8;
+    const ly = spec.legendBelow ? spec.height - 6 : MARGIN.top + 12 + i * 15;
+    const lx = spec.legendBelow ? rowX + 154 : MARGIN.left + innerW - 8;
+    rowX += 30 + item.label.length * 6.2;
     const swatch =
       item.kind === 'band' || item.kind === 'rects'
         ? el('rect', { x: lx - 150, y: ly - 6, width: 18, height: 9, fill: item.color, 'fill-opacity': item.kind === 'band' ? 0.3 : 1 })
         : item.kind === 'points'
           ? el('circle', { cx: lx - 141, cy: ly - 2, r: 3.5, fill: item.color })
           : el('line', { x1: lx - 150, x2: lx - 132, y1: ly - 2, y2: ly - 2, stroke: item.color, 'stroke-width': 2, 'stroke-dasharray': DASHES[item.dash] || null });
-    parts.push(el('g', { class: 'legend' }, el('rect', { x: lx - 154, y: ly - 10, width: 154, height: 15, fill: '#fffdf8', 'fill-opacity': 0.85 }), swatch,
-      el('text', { x: lx - 128, y: ly + 2, fill: INK, 'font-size': 11 }, escapeXml(item.label))));
+    const ground = spec.legendBelow ? '' : el('rect', { x: lx - 154, y: ly - 10, width: 154, height: 15, fill: '#fffdf8', 'fill-opacity': 0.85 });
+    parts.push(el('g', { class: 'legend' }, ground, swatch, el('text', { x: lx - 128, y: ly + 2, fill: INK, 'font-size': 11 }, escapeXml(item.label))));
   });
   if (spec.note) parts.push(el('text', { x: MARGIN.left + 6, y: MARGIN.top + 14, fill: MUTED, 'font-size': 11, 'font-style': 'italic' }, escapeXml(spec.note)));
 

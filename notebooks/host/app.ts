@@ -144,7 +144,7 @@ function renderSetup(study: Study, analysis: Analysis): HTMLElement {
   const setup = document.createElement('aside');
   setup.className = 'setup';
   setup.setAttribute('aria-label', 'Setup');
-  setup.innerHTML = `<h2>Scenario</h2><div class="control"><label for="control-scenario">Scenario</label><span></span><select id="control-scenario" data-parameter="scenario"><option value="">${escapeXml(analysis.scenario.name)}</option></select></div><p class="hint scenario-description">${escapeXml(analysis.scenario.description)}</p><h2>Controls</h2>`;
+  setup.innerHTML = `<h2>Analysis</h2><div class="control"><label for="control-scenario">Scenario</label><span></span><select id="control-scenario" data-parameter="scenario"><option value="">${escapeXml(analysis.scenario.name)}</option></select></div><p class="hint scenario-description">${escapeXml(analysis.scenario.description)}</p><h2>Controls</h2>`;
   const picker = setup.querySelector<HTMLSelectElement>('#control-scenario')!;
   // The demo scenarios the server offers; picking one replaces the analysis's scenario.
   fetch('/data-demo/scenarios.json')

@@ -14,6 +14,7 @@ import type { Layer } from '../figures/plot.js';
 import type { Study } from './Study.js';
 
 type TuningState = JobState<TuningOutput>;
+/** Searched multiplier range, as `alight tune` (0.1..10). */
 const RANGE: [number, number] = [0.1, 10];
 
 function bestMarker(best: TuningSample | null): Layer[] {
@@ -21,11 +22,19 @@ function bestMarker(best: TuningSample | null): Layer[] {
   return [{ kind: 'points', x: [best.q], y: [best.r], color: SERIES[4], shape: 'diamond', radius: 7, label: 'recommended', titles: [`recommended: qScale ${best.q}, rScale ${best.r}`] }];
 }
 
-function axes() {
+/** Log axes spanning the heat map's cells, ticked at the grid's own levels. */
+function axes(cells: { xDomain: [number, number]; yDomain: [number, number] }, grid: readonly TuningSample[]) {
+  const ticks = (values: number[]) => [...new Set(values)].sort((a, b) => a - b).map((v) => ({ value: v, label: formatNumber(v) }));
   return {
-    x: { label: 'qScale (process noise multiplier)', domain: RANGE, log: true, tickLabels: [0.1, 0.3, 1, 3, 10].map((v) => ({ value: v, label: String(v) })) },
-    y: { label: 'rScale (measurement noise multiplier)', domain: RANGE, log: true, tickLabels: [0.1, 0.3, 1, 3, 10].map((v) => ({ value: v, label: String(v) })) },
+    x: { label: 'qScale (Q multiplier)', domain: cells.xDomain, log: true, tickLabels: ticks(grid.map((s) => s.q)) },
+    y: { label: 'rScale (R multiplier)', domain: cells.yDomain, log: true, tickLabels: ticks(grid.map((s) => s.r)) },
   };
+}
+
+function refineMarks(samples: readonly TuningSample[]): Layer[] {
+  const refine = samples.filter((s) => s.stage === 'refine');
+  if (refine.length === 0) return [];
+  return [{ kind: 'points', x: refine.map((s) => s.q), y: refine.map((s) => s.r), color: SERIES[7], radius: 2.5, label: 'refinement', titles: refine.map((s) => `refine: qScale ${s.q}, rScale ${s.r}, cost ${formatNumber(s.score)}`) }];
 }
 
 export const tuningStudy: Study = {
@@ -68,9 +77,10 @@ export const tuningStudy: Study = {
             markup: plotSvg({
               title: 'Consistency surface',
               ...HALF,
-              ...axes(),
+              ...axes(cells, grid),
+              legendBelow: true,
               note: partial ? 'partial results' : undefined,
-              layers: [cells.layer, { kind: 'points', x: passed.map((s) => s.q), y: passed.map((s) => s.r), color: SERIES[2], shape: 'square', radius: 4, label: `consistent at ${Math.round(Number(level) * 100)} %` }, ...bestMarker(value.best)],
+              layers: [cells.layer, { kind: 'points', x: passed.map((s) => s.q), y: passed.map((s) => s.r), color: SERIES[2], shape: 'square', radius: 5, label: `consistent at ${Math.round(Number(level) * 100)} %` }, ...refineMarks(value.samples), ...bestMarker(value.best)],
             }),
             csv: toCsv(['qScale', 'rScale', 'neesMean', 'neesDim', 'low', 'high', 'verdict'], grid.map((s, i) => [s.q, s.r, s.summary.neesMean, s.summary.neesDim, verdicts[i]?.low ?? null, verdicts[i]?.high ?? null, verdicts[i]?.verdict ?? null])),
             numbers: [keyNumber('consistentCells', `settings consistent at ${Math.round(Number(level) * 100)} %`, passed.length, `${passed.length} of ${grid.length}`)],
@@ -88,7 +98,7 @@ export const tuningStudy: Study = {
           const cells = heatCells(grid.map((s) => ({ x: s.q, y: s.r, fill: sequential(s.summary.successRate), title: `qScale ${s.q}, rScale ${s.r}: ${s.summary.landed} of ${s.summary.trials} landed` })));
           const best = value.best;
           return {
-            markup: plotSvg({ title: 'Landing surface', ...HALF, ...axes(), note: partial ? 'partial results' : undefined, layers: [cells.layer, ...bestMarker(best)] }),
+            markup: plotSvg({ title: 'Landing surface', ...HALF, legendBelow: true, ...axes(cells, grid), note: partial ? 'partial results' : undefined, layers: [cells.layer, ...refineMarks(value.samples), ...bestMarker(best)] }),
             csv: toCsv(['qScale', 'rScale', 'trials', 'landed', 'successRate', 'wilsonLow', 'wilsonHigh'], grid.map((s) => [s.q, s.r, s.summary.trials, s.summary.landed, s.summary.successRate, s.summary.wilsonLow, s.summary.wilsonHigh])),
             numbers: best
               ? [

@@ -155,7 +155,7 @@ describe.skipIf(!runBrowserTests)('studies in chromium', () => {
     expect(after.ranking).toBeGreaterThan(before.ranking!);
     expect(after.successPairs).toBe(before.successPairs);
     expect(after.table).toBe(before.table);
-    expect((await computeCounts(page)).sweep_attitude).toBe(jobsBefore.sweep_attitude);
+    expect((await computeCounts(page)).sweep_attitude_on).toBe(jobsBefore.sweep_attitude_on);
   });
 
   it('carrier: moving the success target by keyboard redraws only the envelope', async () => {

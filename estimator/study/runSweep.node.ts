@@ -61,12 +61,6 @@ export function sweepHeader(o: Pick<SweepOptions, 'scenario' | 'vary' | 'design'
   return header;
 }
 
-function removeFirst(path: string): Record<string, never> {
-  writeFileSync(path, '');
-  unlinkSync(path);
-  return {};
-}
-
 export async function runSweep(o: SweepOptions): Promise<SweepSummary> {
   if (!Number.isInteger(o.trials) || o.trials < 1) throw new SweepError(`--trials must be a positive integer, got ${o.trials}`);
   const header = sweepHeader(o);
@@ -87,7 +81,8 @@ export async function runSweep(o: SweepOptions): Promise<SweepSummary> {
     if (!text.includes('\n')) {
       // Killed before the header line was complete: nothing to keep.
       o.onNote?.(`${o.out}: only a cut-off header; starting the sweep afresh`);
-      return runSweep({ ...o, resume: false, out: o.out, ...removeFirst(o.out) });
+      unlinkSync(o.out);
+      return runSweep({ ...o, resume: false });
     }
     const parsed = parseResults(text, o.out);
     if (formatHeader(parsed.header) !== formatHeader(header)) {

@@ -65,6 +65,16 @@ describe('runSweep (with a deterministic stand-in trial)', () => {
     expect(readFileSync(join(dir, 'cut.jsonl'), 'utf8')).toBe(whole);
   });
 
+  it('a sweep killed while writing its header resumes from scratch', async () => {
+    const whole = readFileSync(join(dir, 'plain.jsonl'), 'utf8');
+    writeFileSync(join(dir, 'header-cut.jsonl'), whole.slice(0, 100));
+    const notes: string[] = [];
+    const r = await runSweep({ ...base('header-cut.jsonl'), resume: true, onNote: (n) => notes.push(n) });
+    expect(r).toMatchObject({ total: 42, resumed: 0, ran: 42 });
+    expect(notes.join()).toMatch(/only a cut-off header/);
+    expect(readFileSync(join(dir, 'header-cut.jsonl'), 'utf8')).toBe(whole);
+  });
+
   it('runSweep refuses to overwrite without --resume and to resume a different sweep', async () => {
     await expect(runSweep(base('plain.jsonl'))).rejects.toThrow(/already exists: add --resume/);
     await expect(runSweep({ ...base('plain.jsonl'), seed: 12, resume: true })).rejects.toThrow(/plain\.jsonl:1: cannot resume.*"seed" differs/);

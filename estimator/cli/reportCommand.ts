@@ -67,8 +67,15 @@ export const reportCommand: Command = {
     } catch (error) {
       throw new CliError(`alight report: ${parsed.positional[0]}: ${(error as Error).message}`, 1);
     }
-    const failed = study.figures.map((f) => [f.name, figures.get(f.name)?.failure] as const).filter(([, failure]) => failure !== undefined);
-    if (failed.length > 0) throw new CliError(failed.map(([name, failure]) => `alight report: ${parsed.positional[0]}: figure "${name}" failed: ${failure}`).join('\n'), 1);
+    // One line per distinct failure, naming the figures it stopped (a missing log stops several).
+    const failures = new Map<string, string[]>();
+    for (const f of study.figures) {
+      const failure = figures.get(f.name)?.failure;
+      if (failure !== undefined) failures.set(failure, [...(failures.get(failure) ?? []), f.name]);
+    }
+    if (failures.size > 0) {
+      throw new CliError([...failures].map(([failure, names]) => `alight report: ${parsed.positional[0]}: ${failure} (figures: ${names.join(', ')})`).join('\n'), 1);
+    }
     writeFileSync(out, renderReport(study, analysis, figures));
     io.stdout(`alight report: wrote ${out}\n`);
     return 0;

@@ -35,11 +35,23 @@ export function getPath(scenario: Scenario, path: string): unknown {
  * @example setPath(s, 'detector.pixelNoise', 4).detector.pixelNoise // 4
  */
 export function setPath(scenario: Scenario, path: string, value: unknown): Scenario {
-  getPath(scenario, path);
+  return setPaths(scenario, { [path]: value });
+}
+
+/**
+ * A validated copy with several fields set at once, checked together — for changes that are
+ * only valid jointly (e.g. filter.rate 50 with localization.imuRate 50).
+ * @throws ScenarioError as setPath.
+ * @example setPaths(s, { 'filter.rate': 50, 'localization.imuRate': 50 })
+ */
+export function setPaths(scenario: Scenario, values: Readonly<Record<string, unknown>>): Scenario {
   const copy = JSON.parse(JSON.stringify(scenario)) as Record<string, unknown>;
-  const keys = path.split('.');
-  let parent: Record<string, unknown> = copy;
-  for (const key of keys.slice(0, -1)) parent = parent[key] as Record<string, unknown>;
-  parent[keys[keys.length - 1]!] = value;
+  for (const [path, value] of Object.entries(values)) {
+    getPath(scenario, path);
+    const keys = path.split('.');
+    let parent: Record<string, unknown> = copy;
+    for (const key of keys.slice(0, -1)) parent = parent[key] as Record<string, unknown>;
+    parent[keys[keys.length - 1]!] = value;
+  }
   return validateScenario(copy, 'setPath');
 }

@@ -146,6 +146,11 @@ function renderSetup(study: Study, analysis: Analysis): HTMLElement {
   setup.setAttribute('aria-label', 'Setup');
   setup.innerHTML = `<h2>Analysis</h2><div class="control"><label for="control-scenario">Scenario</label><span></span><select id="control-scenario" data-parameter="scenario"><option value="">${escapeXml(analysis.scenario.name)}</option></select></div><p class="hint scenario-description">${escapeXml(analysis.scenario.description)}</p><h2>Controls</h2>`;
   const picker = setup.querySelector<HTMLSelectElement>('#control-scenario')!;
+  if (![...study.cells, ...study.figures].some((c) => c.inputs.includes('scenario'))) {
+    // A study that reads flight logs flies no scenario: say so instead of offering a picker.
+    picker.closest('.control')!.remove();
+    setup.querySelector('.scenario-description')!.textContent = 'This study replays flight logs; the analysis carries a scenario, but nothing here flies it.';
+  }
   // The demo scenarios the server offers; picking one replaces the analysis's scenario.
   fetch('/data-demo/scenarios.json')
     .then((r) => (r.ok ? (r.json() as Promise<string[]>) : []))

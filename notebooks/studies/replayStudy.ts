@@ -12,7 +12,7 @@ import { fromState, HALF, htmlTable, keyNumber, toCsv, WIDE } from './figureOutp
 import type { FigureOutput, Study } from './Study.js';
 
 /** Demo logs shipped in data-demo/ (folder names). */
-export const DEMO_LOGS = ['logs/truck-with-truth', 'logs/boat-no-truth'] as const;
+export const DEMO_LOGS = ['logs/harbour-boat', 'logs/delivery-van-no-truth'] as const;
 
 const MULTIPLIERS = ['0.25', '0.5', '1', '2', '4'].map((v) => ({ value: v, label: `× ${v}` }));
 
@@ -92,6 +92,7 @@ export const replayStudy: Study = {
             markup: plotSvg({
               title: 'Consistency from innovations',
               ...HALF,
+              legendBelow: true,
               x: { label: '', domain: [-0.6, Math.max(0.6, items.length - 0.4)], tickLabels: items.map((it, i) => ({ value: i, label: it.label })) },
               y: { label: 'mean / dimension', domain: [0, Math.max(2, ...ratio.filter(Number.isFinite)) * 1.1] },
               layers: [

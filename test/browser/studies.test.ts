@@ -201,16 +201,20 @@ describe.skipIf(!runBrowserTests)('studies in chromium', () => {
     const folder = join(work, 'flight');
     await page.goto(server.url + '#study=replay');
     await waitIdle(page);
+    // The default analysis replays a demo log fetched from the server.
+    const demo = await replayLog(logSourceFromFolder(join(repo, 'data-demo', 'logs', 'harbour-boat')), { filter: { qScale: 1, rScale: 1 }, filterSource: 'study controls' });
+    expect(await shownValue(page, 'rows', 'filterSteps')).toBe(demo.filterSteps);
+    expectClose(await shownValue(page, 'consistency', 'positionRmse'), demo.positionRmse!, ACROSS_ENGINES, 'demo positionRmse');
     // Drop the folder's files on the drop zone, as a person drags them from a file manager.
     const files = readdirSync(folder).map((name) => ({ name, text: readFileSync(join(folder, name), 'utf8') }));
-    await page.evaluate((list) => {
-      const transfer = new DataTransfer();
-      for (const f of list) transfer.items.add(new File([f.text], f.name));
-      document.querySelector('.dropzone')!.dispatchEvent(new DragEvent('drop', { dataTransfer: transfer, bubbles: true, cancelable: true }));
-    }, files);
-    await page.waitForFunction(() => [...document.querySelectorAll('[data-figure="source"] td')].some((td) => td.textContent === 'camera.json'));
-    await page.waitForFunction(() => document.querySelector('[data-figure="rows"] dd[data-key="filterSteps"]') !== null, undefined, { timeout: 60_000 });
-    await waitIdle(page);
+    const dropped = await changeControl(page, () =>
+      page.evaluate((list) => {
+        const transfer = new DataTransfer();
+        for (const f of list) transfer.items.add(new File([f.text], f.name));
+        document.querySelector('.dropzone')!.dispatchEvent(new DragEvent('drop', { dataTransfer: transfer, bubbles: true, cancelable: true }));
+      }, files), 'rows');
+    expect(dropped.after.source).toBeGreaterThan(dropped.before.source!);
+    expect(await page.locator('[data-figure="source"] td', { hasText: 'camera.json' }).count()).toBe(1);
     const expected = await replayLog(logSourceFromFolder(folder), { filter: { qScale: 1, rScale: 1 }, filterSource: 'study controls' });
     expect(await shownValue(page, 'rows', 'filterSteps')).toBe(expected.filterSteps);
     expect(await shownValue(page, 'consistency', 'gateRejections')).toBe(expected.gateRejections);

@@ -9,6 +9,9 @@ import { simulateTrial } from '../../estimator/study/simulateTrial.js';
 import { summarizeGroup } from '../../estimator/study/summarize.js';
 import { VERSION } from '../../estimator/version.js';
 import { analysisToText } from '../../notebooks/analysis/Analysis.js';
+import { logSourceFromFolder } from '../../estimator/io/log/logSourceFromFolder.node.js';
+import { replayLog } from '../../estimator/io/log/replayLog.js';
+import { fileURLToPath } from 'node:url';
 
 let work: string;
 
@@ -49,6 +52,18 @@ describe('alight report', () => {
     expect(html).not.toMatch(/<script|<link |src="http|href="http/);
     // The analysis travels with the report.
     expect(html).toContain('&quot;study&quot;: &quot;detection&quot;');
+  });
+
+  it('replays a demo log by name with replayLog\'s own numbers', async () => {
+    writeFileSync(join(work, 'r.json'), analysisToText({ study: 'replay', scenario: defaultScenario(), parameters: { log: 'logs/delivery-van-no-truth', qScale: '2', rScale: '1' }, seed: 1, toolVersion: VERSION }));
+    const { code, err } = await run(['report', 'r.json', '--out', 'r.html']);
+    expect(code, err).toBe(0);
+    const html = readFileSync(join(work, 'r.html'), 'utf8');
+    const folder = fileURLToPath(new URL('../../data-demo/logs/delivery-van-no-truth', import.meta.url));
+    const expected = await replayLog(logSourceFromFolder(folder), { filter: { qScale: 2, rScale: 1 }, filterSource: 'study controls' });
+    expect(value(html, 'nisMean')).toBe(expected.nisMean);
+    expect(value(html, 'gateRejections')).toBe(expected.gateRejections);
+    expect(value(html, 'filterSteps')).toBe(expected.filterSteps);
   });
 
   it('names the file and each bad field, exit 2', async () => {

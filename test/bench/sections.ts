@@ -3,6 +3,7 @@ import { ekf } from './ekf.js';
 import { world } from './world.js';
 import { sweepBench } from './sweep.js';
 import { replayBench } from './replay.js';
+import { trialBench } from './trial.js';
 export interface BenchSection {
   name: string;
   run(): Promise<Record<string, unknown>>;
@@ -13,4 +14,5 @@ export const sections: BenchSection[] = [
   world,
   sweepBench,
   replayBench,
+  trialBench,
 ];

@@ -1,0 +1,50 @@
+// Bench `trial`: CPU per closed-loop demo trial of 60 s simulated time (filter 100 Hz,
+// camera 30 Hz, every impairment of the demo on). Landing is held off (alignTime = duration)
+// so every trial flies the full 60 s; 10 seeded trials per demo scenario, 50 in all.
+import { readdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { loadScenario } from '../../estimator/io/loadScenario.js';
+import { setPaths } from '../../estimator/io/scenarioPath.js';
+import { runTrial } from '../../estimator/sim/runTrial.js';
+import type { BenchSection } from './sections.js';
+
+const TRIALS_PER_DEMO = 10;
+
+function median(values: number[]): number {
+  const s = [...values].sort((a, b) => a - b);
+  return s.length % 2 ? s[(s.length - 1) / 2]! : (s[s.length / 2 - 1]! + s[s.length / 2]!) / 2;
+}
+
+export const trialBench: BenchSection = {
+  name: 'trial',
+  async run() {
+    const dir = join(import.meta.dirname, '..', '..', 'data-demo');
+    const names = readdirSync(dir).filter((f) => f.endsWith('.scenario.json')).sort();
+    const cpu: number[] = [];
+    const perScenario: Record<string, number> = {};
+    let steps = 0, totalMs = 0;
+    for (const name of names) {
+      const scenario = setPaths(loadScenario(join(dir, name)), { duration: 60, 'guidance.alignTime': 60 });
+      runTrial(scenario, { key: { seed: 999, point: 0, trial: 0 } }); // warm-up
+      const mine: number[] = [];
+      for (let trial = 0; trial < TRIALS_PER_DEMO; trial++) {
+        const start = process.cpuUsage();
+        runTrial(scenario, { key: { seed: 1, point: 0, trial } });
+        const used = process.cpuUsage(start);
+        const ms = (used.user + used.system) / 1000;
+        mine.push(ms);
+        totalMs += ms;
+        steps += Math.round(scenario.duration * scenario.filter.rate);
+      }
+      cpu.push(...mine);
+      perScenario[name.replace('.scenario.json', '')] = Number(median(mine).toFixed(2));
+    }
+    return {
+      trials: cpu.length,
+      simulatedSeconds: 60,
+      cpuMs: Number(median(cpu).toFixed(2)),
+      stepsPerSec: Math.round(steps / (totalMs / 1000)),
+      perScenarioCpuMs: perScenario,
+    };
+  },
+};

@@ -3,17 +3,13 @@
 import { analysisToText, AnalysisError, isStudyId, type Analysis } from '../analysis/Analysis.js';
 import { defaultAnalysis } from '../analysis/defaultAnalysis.js';
 import { parseAnalysis } from '../analysis/parseAnalysis.js';
-import { parseScenario } from '../../estimator/io/parseScenario.js';
 import { analysisTextFromFragment, permalinkFragment } from '../analysis/permalink.js';
 import { WorkerJobRunner, type Activity } from '../jobs/WorkerJobRunner.js';
 import { mountStudy, type MountedStudy } from '../runtime/mountStudy.js';
 import { STUDIES, studyById } from '../studies/studies.js';
-import type { Study } from '../studies/Study.js';
 import { escapeXml } from '../figures/svg.js';
-import { SAFETY_CAUTION } from './hostPage.js';
 import { Plate } from './Plate.js';
-import { renderControl, renderSeed } from './renderControls.js';
-import { downloadText } from './download.js';
+import { renderSetup } from './renderSetup.js';
 import { renderDropzone } from './dropzone.js';
 
 const runner = new WorkerJobRunner('/worker.js', Math.min(2, navigator.hardwareConcurrency || 2));
@@ -85,7 +81,18 @@ function render(analysis: Analysis, problem: string | null): void {
 
   const layout = document.createElement('div');
   layout.className = 'layout';
-  const setup = renderSetup(study, analysis);
+  const setup = renderSetup(study, analysis, {
+    change: (name, value) => {
+      mounted?.set(name, value);
+      setPermalink(analysis);
+      updateBusy();
+    },
+    cancelOrRerun: () => {
+      if (activity.length > 0) runner.cancelAll();
+      else mounted?.set('seed', analysis.seed); // same value, new definition: every job reruns
+    },
+    refuse: (message) => render(analysis, message),
+  });
   const article = document.createElement('article');
   article.className = 'study';
   article.innerHTML = `<h1>${escapeXml(study.title)}</h1><p class="lede">${escapeXml(study.lede)}</p>`;
@@ -138,96 +145,6 @@ function render(analysis: Analysis, problem: string | null): void {
   };
   setPermalink(analysis);
   updateBusy();
-}
-
-function renderSetup(study: Study, analysis: Analysis): HTMLElement {
-  const setup = document.createElement('aside');
-  setup.className = 'setup';
-  setup.setAttribute('aria-label', 'Setup');
-  setup.innerHTML = `<h2>Analysis</h2><div class="control"><label for="control-scenario">Scenario</label><span></span><select id="control-scenario" data-parameter="scenario"><option value="">${escapeXml(analysis.scenario.name)}</option></select></div><p class="hint scenario-description">${escapeXml(analysis.scenario.description)}</p><h2>Controls</h2>`;
-  const picker = setup.querySelector<HTMLSelectElement>('#control-scenario')!;
-  if (![...study.cells, ...study.figures].some((c) => c.inputs.includes('scenario'))) {
-    // A study that reads flight logs flies no scenario: say so instead of offering a picker.
-    picker.closest('.control')!.remove();
-    setup.querySelector('.scenario-description')!.textContent = 'This study replays flight logs; the analysis carries a scenario, but nothing here flies it.';
-  }
-  // The demo scenarios the server offers; picking one replaces the analysis's scenario.
-  fetch('/data-demo/scenarios.json')
-    .then((r) => (r.ok ? (r.json() as Promise<string[]>) : []))
-    .then((names) => {
-      for (const name of names) {
-        const o = document.createElement('option');
-        o.value = name;
-        o.textContent = `demo: ${name.replace(/\.scenario\.json$/, '')}`;
-        picker.append(o);
-      }
-    }, () => {});
-  picker.addEventListener('change', async () => {
-    if (picker.value === '') return;
-    const hint = setup.querySelector('.scenario-description')!;
-    try {
-      const text = await (await fetch(`/data-demo/${encodeURIComponent(picker.value)}`)).text();
-      const scenario = parseScenario(text, picker.value);
-      analysis.scenario = scenario;
-      picker.options[0]!.textContent = scenario.name;
-      picker.value = '';
-      hint.textContent = scenario.description;
-      mounted?.set('scenario', scenario);
-      setPermalink(analysis);
-      updateBusy();
-    } catch (error) {
-      hint.textContent = (error as Error).message;
-    }
-  });
-  const change = (name: string, value: unknown): void => {
-    if (name === 'seed') analysis.seed = value as number;
-    else analysis.parameters[name] = value as string | number;
-    mounted?.set(name, value);
-    setPermalink(analysis);
-    updateBusy();
-  };
-  for (const p of study.parameters) setup.append(renderControl(p, analysis.parameters[p.name] ?? p.default, (v) => change(p.name, v)));
-  setup.append(renderSeed(analysis.seed, (seed) => change('seed', seed)));
-
-  setup.insertAdjacentHTML('beforeend', `<h2>Run</h2><div class="progress" role="progressbar" aria-label="Trials"><div></div></div><div class="run-line"><span class="run-text" aria-live="polite"></span><button type="button" id="cancel">Cancel</button></div><h2>Share</h2>`);
-  setup.querySelector('#cancel')!.addEventListener('click', () => {
-    if (activity.length > 0) runner.cancelAll();
-    else mounted?.set('seed', analysis.seed); // same value, new definition: every job reruns
-  });
-  const share = document.createElement('div');
-  share.className = 'share';
-  const button = (text: string, id: string, action: () => void): void => {
-    const b = document.createElement('button');
-    b.type = 'button';
-    b.id = id;
-    b.textContent = text;
-    b.addEventListener('click', action);
-    share.append(b);
-  };
-  button('Copy link', 'copy-link', () => void navigator.clipboard?.writeText(location.href));
-  button('Download analysis', 'download-analysis', () => downloadText(analysisToText(analysis), `${study.id}-analysis.json`, 'application/json'));
-  const upload = document.createElement('input');
-  upload.type = 'file';
-  upload.accept = '.json,application/json';
-  upload.hidden = true;
-  upload.id = 'upload-analysis';
-  upload.addEventListener('change', async () => {
-    const file = upload.files?.[0];
-    if (!file) return;
-    try {
-      const next = parseAnalysis(await file.text(), file.name, (id) => studyById(id).parameters);
-      location.hash = permalinkFragment(analysisToText(next));
-    } catch (error) {
-      render(analysis, error instanceof AnalysisError ? error.problems.join('\n') : (error as Error).message);
-    }
-  });
-  button('Open analysis…', 'open-analysis', () => upload.click());
-  setup.append(share, upload);
-  setup.insertAdjacentHTML(
-    'beforeend',
-    `<p class="hint">The link holds the whole analysis. Headless: <code>alight report ${study.id}-analysis.json --out report.html</code></p><p class="caution">${escapeXml(SAFETY_CAUTION)}</p>`,
-  );
-  return setup;
 }
 
 runner.onActivity((list) => {

@@ -4,10 +4,7 @@
 import { setPath } from '../../estimator/io/scenarioPath.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
 import { PHASES } from '../../estimator/sim/TrialResult.js';
-import { CARRIER, ESTIMATE, MUTED, SERIES, TRUTH } from '../figures/palette.js';
-
-/** The latest box: Okabe–Ito orange, readable on the dark image. */
-const DETECTOR_BOX = SERIES[4];
+import { ESTIMATE, MUTED, SERIES, TRUTH } from '../figures/palette.js';
 import { extent, plotSvg, type Layer } from '../figures/plot.js';
 import { sideBySide } from '../figures/sideBySide.js';
 import { formatNumber } from '../figures/svg.js';
@@ -16,24 +13,9 @@ import type { JobState } from '../jobs/JobState.js';
 import type { LandingOutput } from '../jobs/landingJob.js';
 import { fromState, HALF, keyNumber, toCsv, WIDE } from './figureOutput.js';
 import type { Study } from './Study.js';
+import { landingViews } from './landingViews.js';
 
 type TrialState = JobState<LandingOutput>;
-
-/** Index of the last kept row at or before time t. */
-function rowAt(value: LandingOutput, t: number): number {
-  let k = 0;
-  while (k + 1 < value.t.length && value.t[k + 1]! <= t) k++;
-  return k;
-}
-
-function deckOutline(east: number, north: number, heading: number, length: number, width: number): { x: number[]; y: number[] } {
-  const c = Math.cos(heading), s = Math.sin(heading);
-  const corners = [[length / 2, width / 2], [-length / 2, width / 2], [-length / 2, -width / 2], [length / 2, -width / 2]];
-  return { x: corners.map(([a, b]) => east + a! * c - b! * s), y: corners.map(([a, b]) => north + a! * s + b! * c) };
-}
-
-const landerEast = (v: LandingOutput, r: readonly number[][], k: number) => v.carrierEast[k]! - r[0]![k]!;
-const landerNorth = (v: LandingOutput, r: readonly number[][], k: number) => v.carrierNorth[k]! - r[1]![k]!;
 
 export const landingStudy: Study = {
   id: 'landing',
@@ -58,72 +40,7 @@ export const landingStudy: Study = {
     },
   ],
   figures: [
-    {
-      name: 'topView',
-      title: 'Top view',
-      caption: 'Carrier track, lander (truth) and where the filter put the lander, east/north in metres; the deck outline and markers at the inspected time.',
-      inputs: ['run', 'time', 'flown'],
-      compute: (state: TrialState, time: number, flown: Scenario) =>
-        fromState(state, 'trial', (v) => {
-          const k = rowAt(v, time);
-          const idx = v.t.map((_, i) => i);
-          const deck = deckOutline(v.carrierEast[k]!, v.carrierNorth[k]!, v.carrierHeading[k]!, flown.carrier.deckLength, flown.carrier.deckWidth);
-          const lx = idx.map((i) => landerEast(v, v.truth, i));
-          const ly = idx.map((i) => landerNorth(v, v.truth, i));
-          const ex = idx.map((i) => landerEast(v, v.estimate, i));
-          const ey = idx.map((i) => landerNorth(v, v.estimate, i));
-          return {
-            markup: plotSvg({
-              title: 'Top view',
-              ...HALF,
-              equalAspect: true,
-              x: { label: 'east (m)', domain: extent([...v.carrierEast, ...lx]) },
-              y: { label: 'north (m)', domain: extent([...v.carrierNorth, ...ly]) },
-              layers: [
-                { kind: 'line', x: v.carrierEast, y: v.carrierNorth, color: CARRIER, width: 3, label: 'carrier' },
-                { kind: 'line', x: lx, y: ly, color: TRUTH, label: 'lander' },
-                { kind: 'line', x: ex, y: ey, color: ESTIMATE, dash: 1, label: 'estimated lander' },
-                { kind: 'outline', ...deck, color: CARRIER, fill: 'rgba(0,158,115,0.25)' },
-                { kind: 'points', x: [lx[k]!], y: [ly[k]!], color: TRUTH, radius: 4.5 },
-                { kind: 'points', x: [ex[k]!], y: [ey[k]!], color: ESTIMATE, shape: 'diamond', radius: 4.5 },
-              ],
-            }),
-            csv: toCsv(['t', 'carrierEast', 'carrierNorth', 'landerEast', 'landerNorth', 'estimatedEast', 'estimatedNorth'], idx.map((i) => [v.t[i]!, v.carrierEast[i]!, v.carrierNorth[i]!, lx[i]!, ly[i]!, ex[i]!, ey[i]!])),
-          };
-        }),
-    },
-    {
-      name: 'sideView',
-      title: 'Side view',
-      caption: 'Lander relative to the deck centre: along the carrier’s heading (m) against height above the deck (m); truth and estimate.',
-      inputs: ['run', 'time', 'flown'],
-      compute: (state: TrialState, time: number, flown: Scenario) =>
-        fromState(state, 'trial', (v) => {
-          const k = rowAt(v, time);
-          const along = (r: readonly number[][], i: number) => -(r[0]![i]! * Math.cos(v.carrierHeading[i]!) + r[1]![i]! * Math.sin(v.carrierHeading[i]!));
-          const idx = v.t.map((_, i) => i);
-          const ta = idx.map((i) => along(v.truth, i));
-          const th = v.truth[2]!.map((z) => -z);
-          const ea = idx.map((i) => along(v.estimate, i));
-          const eh = v.estimate[2]!.map((z) => -z);
-          const half = flown.carrier.deckLength / 2;
-          return {
-            markup: plotSvg({
-              title: 'Side view',
-              ...HALF,
-              x: { label: 'along the carrier heading (m)', domain: extent([...ta, -half, half]) },
-              y: { label: 'height above deck (m)', domain: extent([...th, 0], 0.08) },
-              layers: [
-                { kind: 'rects', rects: [{ x0: -half, x1: half, y0: -flown.carrier.bodyHeight, y1: 0, fill: 'rgba(0,158,115,0.35)', title: 'deck' }], label: 'deck', legendColor: CARRIER },
-                { kind: 'line', x: ta, y: th, color: TRUTH, label: 'lander' },
-                { kind: 'line', x: ea, y: eh, color: ESTIMATE, dash: 1, label: 'estimate' },
-                { kind: 'points', x: [ta[k]!], y: [th[k]!], color: TRUTH, radius: 4.5 },
-              ],
-            }),
-            csv: toCsv(['t', 'alongTruth', 'heightTruth', 'alongEstimate', 'heightEstimate'], idx.map((i) => [v.t[i]!, ta[i]!, th[i]!, ea[i]!, eh[i]!])),
-          };
-        }),
-    },
+    ...landingViews,
     {
       name: 'error',
       title: 'Estimate error and its ±3σ',
@@ -220,29 +137,6 @@ export const landingStudy: Study = {
               keyNumber('missDistance', 'miss (m)', r.missDistance),
               keyNumber('touchdownTime', 'touchdown (s)', r.touchdownTime),
             ],
-          };
-        }),
-    },
-    {
-      name: 'camera',
-      title: 'What the camera reported',
-      caption: 'The image (pixels, origin top left): boxes the detector delivered in the second before the inspected time, faded by age, the latest one solid.',
-      inputs: ['run', 'time', 'flown'],
-      compute: (state: TrialState, time: number, flown: Scenario) =>
-        fromState(state, 'trial', (v) => {
-          const recent = v.boxes.filter((b) => b.t <= time && b.t > time - 1);
-          const w = flown.camera.width, h = flown.camera.height;
-          const latest = recent[recent.length - 1];
-          const layers: Layer[] = [
-            { kind: 'rects', rects: [{ x0: 0, x1: w, y0: 0, y1: h, fill: '#2b3138', title: `image ${w} × ${h} px` }] },
-            ...recent.slice(0, -1).map((b): Layer => ({ kind: 'outline', x: [b.box.xMin, b.box.xMax, b.box.xMax, b.box.xMin], y: [b.box.yMin, b.box.yMin, b.box.yMax, b.box.yMax], color: 'rgba(230,225,215,0.35)' })),
-          ];
-          if (latest) layers.push({ kind: 'outline', x: [latest.box.xMin, latest.box.xMax, latest.box.xMax, latest.box.xMin], y: [latest.box.yMin, latest.box.yMin, latest.box.yMax, latest.box.yMax], color: DETECTOR_BOX, label: `box at ${formatNumber(latest.t)} s` });
-          if (!latest) layers.push({ kind: 'text', x: w / 2, y: h / 2, text: 'no box in this second', color: '#fffdf8', anchor: 'middle' });
-          return {
-            markup: plotSvg({ title: 'Camera image', ...HALF, equalAspect: true, yDown: true, x: { label: 'u (px)', domain: [0, w] }, y: { label: 'v (px)', domain: [0, h] }, layers }),
-            csv: toCsv(['t', 'xMin', 'yMin', 'xMax', 'yMax'], v.boxes.map((b) => [b.t, b.box.xMin, b.box.yMin, b.box.xMax, b.box.yMax])),
-            numbers: [keyNumber('boxesInSecond', 'boxes in that second', recent.length, String(recent.length))],
           };
         }),
     },

@@ -10,7 +10,7 @@ import type { TrialRecorder } from '../io/log/TrialRecorder.js';
 import type { Scenario } from './Scenario.js';
 import type { Phase, TrialResult } from './TrialResult.js';
 import { createGuidance } from './guidance.js';
-import { LandingSupervisor, type SupervisorInput } from './supervisor.js';
+import { blindHeight, LandingSupervisor, type SupervisorInput } from './supervisor.js';
 import { judgeTouchdown } from './touchdown.js';
 import { relativeNees } from './relativeNees.js';
 import { TrialState } from './trialState.js';
@@ -23,6 +23,7 @@ import { LanderDynamics } from './world/landerDynamics.js';
 import { LocalizationError } from './world/localizationError.js';
 
 export type { TraceRow } from './trace.js';
+export { blindHeight } from './supervisor.js';
 
 /** Streams of a trial derive from these alone. */
 export interface TrialKey {
@@ -47,20 +48,6 @@ const INITIAL_SIGMA = { velocity: 1, accelBias: 0.2 };
 const PENDING = 4096;
 /** How far below the deck plane a first contact may be found (m): > one step's closing travel. */
 const CONTACT_DEPTH = 0.25;
-
-/** Margin on the deck's longest side for perspective, tilt and the body below the deck. */
-const OUTLINE_FACTOR = 1.2;
-
-/**
- * Height above the deck (m) below which the deck is expected to overflow the image, from the
- * camera as the filter believes it and the deck's longest side Lmax (known to the operator;
- * yaw is held while the carrier turns, so it may lie along either image axis):
- *   h = 1.2 Lmax max(fx, fy) / (min(W, H) - 2 edgeMargin)
- */
-export function blindHeight(camera: { fx: number; fy: number; width: number; height: number }, deckLength: number, deckWidth: number, edgeMargin: number): number {
-  const pixels = Math.max(Math.min(camera.width, camera.height) - 2 * edgeMargin, 1);
-  return (OUTLINE_FACTOR * Math.max(deckLength, deckWidth) * Math.max(camera.fx, camera.fy)) / pixels;
-}
 
 /**
  * Fly one trial. Fixed step dt = 1 / filter.rate; IMU samples every step whose time reaches

@@ -35,6 +35,20 @@ export interface SupervisorInput extends HorizontalEstimate {
   diverged: boolean;
 }
 
+/** Margin on the deck's longest side for perspective, tilt and the body below the deck. */
+const OUTLINE_FACTOR = 1.2;
+
+/**
+ * Height above the deck (m) below which the deck is expected to overflow the image, from the
+ * camera as the filter believes it and the deck's longest side Lmax (known to the operator;
+ * yaw is held while the carrier turns, so it may lie along either image axis):
+ *   h = 1.2 Lmax max(fx, fy) / (min(W, H) - 2 edgeMargin)
+ */
+export function blindHeight(camera: { fx: number; fy: number; width: number; height: number }, deckLength: number, deckWidth: number, edgeMargin: number): number {
+  const pixels = Math.max(Math.min(camera.width, camera.height) - 2 * edgeMargin, 1);
+  return (OUTLINE_FACTOR * Math.max(deckLength, deckWidth) * Math.max(camera.fx, camera.fy)) / pixels;
+}
+
 /** Vertical gain holding the trailing height (1/s) and its rate limit (m/s): gentle, because a
  * fast height change unloads the rotors and any horizontal correction then tilts the camera far. */
 const HEIGHT_GAIN = 0.5;

@@ -1,0 +1,61 @@
+import { describe, expect, it } from 'vitest';
+import { TrialState } from '../../estimator/sim/trialState.js';
+import { expectClose } from '../helpers/expectClose.js';
+
+const noContact = { touchdown: null, touchdownTime: null, aborts: 0, lastAbort: null, falseBoxes: 0 };
+
+describe('TrialState', () => {
+  it('calls a trial without contact diverged, aborted or timed-out, in that order of precedence', () => {
+    const s = new TrialState(12);
+    expect(s.result(noContact).outcome).toBe('timed-out');
+    expect(s.result({ ...noContact, aborts: 1, lastAbort: 'target-lost' }).outcome).toBe('aborted');
+    s.noteDivergence('covariance-not-positive-definite');
+    s.noteDivergence('state-not-finite'); // the first event is kept
+    const r = s.result({ ...noContact, aborts: 2, lastAbort: 'diverged' });
+    expect(r.outcome).toBe('diverged');
+    expect(r.divergence).toBe('covariance-not-positive-definite');
+    // re-acquired after the divergence and then lost the target: an abort, not a divergence
+    expect(s.result({ ...noContact, aborts: 3, lastAbort: 'target-lost' }).outcome).toBe('aborted');
+  });
+
+  it('takes the contact verdict and its numbers when there is one', () => {
+    const touchdown = { outcome: 'off-pad' as const, missDistance: 0.9, missX: 0.9, missY: 0, closingSpeed: 0.5, lateralSpeed: 0.2, tiltDeg: 4 };
+    const r = new TrialState(12).result({ ...noContact, touchdown, touchdownTime: 14.2 });
+    expect([r.outcome, r.missDistance, r.missX, r.missY, r.closingSpeed, r.lateralSpeed, r.tiltDeg, r.touchdownTime]).toEqual(['off-pad', 0.9, 0.9, 0, 0.5, 0.2, 4, 14.2]);
+  });
+
+  it('averages errors, NEES and NIS, and gives NaN for means over nothing', () => {
+    const s = new TrialState(12);
+    let r = s.result(noContact);
+    expect([r.positionRmse, r.velocityRmse, r.neesMean, r.nisMean]).toEqual([NaN, NaN, NaN, NaN]);
+    const x = new Float64Array(12);
+    x.set([3, 0, 0, 1, 0, 0, 0, 0, 0]); // position error 3 m, relative velocity error 1 m/s
+    s.addError(x, [0, 0, 0], [0, 0, 0], [0, 0, 0], 4);
+    x.set([0, 4, 0, 0, 0, 0, 0, 0, 2]); // 4 m, and vL error 2 m/s -> relative velocity error -2
+    s.addError(x, [0, 0, 0], [0, 0, 0], [0, 0, 0], Number.NaN); // NaN NEES is not averaged
+    s.addNis(2);
+    s.addNis(Number.NaN);
+    s.addNis(4);
+    r = s.result(noContact);
+    expectClose(r.positionRmse, Math.sqrt((9 + 16) / 2), { rel: 1e-15 }, 'position RMSE (round-off)');
+    expectClose(r.velocityRmse, Math.sqrt((1 + 4) / 2), { rel: 1e-15 }, 'velocity RMSE (round-off)');
+    expect([r.neesMean, r.nisMean, r.nisCount, r.neesDim, r.nisDim]).toEqual([4, 3, 2, 6, 3]);
+  });
+
+  it('builds a fresh trace row with sigma from the covariance diagonal', () => {
+    const s = new TrialState(12);
+    s.rTrue.set([1, 2, -5]);
+    s.command.set([3, 0, -0.5]);
+    s.lastBox = { xMin: 1, yMin: 2, xMax: 3, yMax: 4 };
+    const P = new Float64Array(144);
+    for (let i = 0; i < 12; i++) P[i * 12 + i] = (i + 1) ** 2;
+    const row = s.row(1.5, 'trail', new Float64Array(12).fill(0.5), P);
+    expect(row.truth.r).toEqual([1, 2, -5]);
+    expect(row.sigma!.vL).toEqual([7, 8, 9]);
+    expect(row.estimate!.vC).toEqual([0.5, 0.5, 0.5]);
+    expect(row.command).toEqual([3, 0, -0.5]);
+    s.lastBox.xMin = 99;
+    expect(row.box!.xMin).toBe(1); // copied, not shared
+    expect(s.row(1.6, 'trail', null, null).estimate).toBeNull();
+  });
+});

@@ -1,7 +1,7 @@
 // `alight simulate <scenario.json> [--seed N] [--trace FILE.csv] [--json]`: one closed-loop
 // landing trial. Prints a short summary (or one JSON object); --trace writes a CSV row per step.
 import { writeFileSync } from 'node:fs';
-import { isAbsolute, join } from 'node:path';
+import { basename, isAbsolute, join } from 'node:path';
 import { loadScenario } from '../io/loadScenario.js';
 import { ScenarioError } from '../io/ScenarioError.js';
 import { runTrial } from '../sim/runTrial.js';
@@ -20,6 +20,9 @@ const OPTIONS: OptionSpec[] = [
   { name: 'json', kind: 'flag', help: 'print one JSON object with every result field instead of the summary' },
   { name: 'help', kind: 'flag', help: 'show this help' },
 ];
+
+/** Library errors that mean "this scenario value cannot be simulated": exit 2, no stack. */
+const SCENARIO_ERRORS = new Set(['CarrierPathError', 'CameraSpecError', 'CameraError', 'FilterSpecError', 'ScenarioError']);
 
 const USAGE = 'alight simulate <scenario.json> [--seed N] [--trace FILE.csv] [--json]';
 const PURPOSE = 'fly one closed-loop landing trial of a scenario and judge the touchdown';
@@ -70,10 +73,17 @@ export const simulateCommand: Command = {
     const tracePath = parsed.values.get('trace');
     const traceLines: string[] = [];
     if (tracePath !== undefined) traceLines.push(TRACE_COLUMNS.join(','));
-    const result = runTrial(scenario, {
-      key: { seed, point: 0, trial: 0 },
-      onStep: tracePath !== undefined ? (row) => void traceLines.push(traceCsvLine(row)) : undefined,
-    });
+    let result: TrialResult;
+    try {
+      result = runTrial(scenario, {
+        key: { seed, point: 0, trial: 0 },
+        onStep: tracePath !== undefined ? (row) => void traceLines.push(traceCsvLine(row)) : undefined,
+      });
+    } catch (error) {
+      // a value the world models or the filter refuse (each names its scenario field)
+      if (error instanceof Error && SCENARIO_ERRORS.has(error.name)) throw new CliError(`${basename(parsed.positional[0]!)}: ${error.message}`);
+      throw error;
+    }
     if (tracePath !== undefined) {
       const target = isAbsolute(tracePath) ? tracePath : join(io.cwd, tracePath);
       try {

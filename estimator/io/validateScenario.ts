@@ -87,6 +87,9 @@ function crossFieldProblems(s: Scenario, raw: Record<string, unknown>): [string,
       }
     }
   }
+  if (path.shape === 'rectangle' && 2 * path.cornerRadius > Math.min(path.length, path.width)) {
+    out.push(['carrier.path.cornerRadius', `must be <= min(length, width) / 2 = ${Math.min(path.length, path.width) / 2} m for a rectangle, got ${path.cornerRadius}`]);
+  }
   if (s.carrier.profile.variation > s.carrier.speed) {
     out.push(['carrier.profile.variation', `must be <= carrier.speed (${s.carrier.speed} m/s), got ${s.carrier.profile.variation}`]);
   }

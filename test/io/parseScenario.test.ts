@@ -69,9 +69,10 @@ describe('parseScenario', () => {
   });
 
   it('checks fields against each other', () => {
-    const text = '{"version": 1, "detector": {"rate": 200}, "guidance": {"flareHeight": 7}, "carrier": {"speed": 2, "profile": {"variation": 3}}, "camera": {"intrinsics": {"fx": 1, "fy": 1, "cx": 700, "cy": 240}}}';
+    const text = '{"version": 1, "detector": {"rate": 200}, "guidance": {"flareHeight": 7}, "carrier": {"speed": 2, "profile": {"variation": 3}, "path": {"shape": "rectangle", "length": 40, "width": 10, "cornerRadius": 6}}, "camera": {"intrinsics": {"fx": 1, "fy": 1, "cx": 700, "cy": 240}}}';
     expect(problems(text, 'x.json')).toEqual([
       'x.json:1: camera.intrinsics.cx: must lie inside the image (0..640 px), got 700',
+      'x.json:1: carrier.path.cornerRadius: must be <= min(length, width) / 2 = 5 m for a rectangle, got 6',
       'x.json:1: carrier.profile.variation: must be <= carrier.speed (2 m/s), got 3',
       'x.json:1: detector.rate: must be <= filter.rate (100 Hz), got 200',
       'x.json:1: guidance.flareHeight: must be < guidance.trailHeight (6 m), got 7',

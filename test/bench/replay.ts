@@ -3,7 +3,9 @@
 //   odometry, truth at 200 Hz), the first replay in this process (JIT warm-up included);
 //   cpuSeconds: its CPU time (user + system), which other load on the machine inflates less.
 // peakMB: peak resident memory (getrusage maxRSS) of a child process replaying a generated
-//   ~1 GB log: the streams are merged row by row, so memory must not grow with the log.
+//   ~1 GB log: the streams are merged row by row, so memory must not grow with the log. The
+//   child runs with a 64 MB JavaScript heap limit (a leak growing with the log would die) and
+//   the same child on the 10-minute log gives peakMBTenMinutes to compare with.
 //   Writing and replaying that log takes a few minutes; `--only=replay` runs this section alone.
 // The logs are synthetic (test/io/log/syntheticLog.ts) and deleted afterwards.
 import { spawnSync } from 'node:child_process';
@@ -20,6 +22,21 @@ const CHILD_FLAG = '--replay-bench-child';
 /** About 33.5 kB of log per simulated second: 30,000 s make ~1 GB. */
 const BIG_LOG_SECONDS = 30_000;
 const round = (v: number) => Number(v.toPrecision(4));
+/** JavaScript heap limit of the replay child (MB). */
+const HEAP_LIMIT_MB = 64;
+
+interface ChildResult {
+  seconds: number;
+  rows: number;
+  steps: number;
+  maxRssKB: number;
+}
+
+function replayInChild(folder: string): ChildResult {
+  const child = spawnSync(process.execPath, [`--max-old-space-size=${HEAP_LIMIT_MB}`, '--import', 'tsx', fileURLToPath(import.meta.url), CHILD_FLAG, folder], { encoding: 'utf8', maxBuffer: 1 << 20 });
+  if (child.status !== 0) throw new Error(`replay bench child failed (${child.status}): ${child.stderr}`);
+  return JSON.parse(child.stdout.trim().split('\n').at(-1)!) as ChildResult;
+}
 
 async function timedReplay(folder: string) {
   const started = performance.now();
@@ -46,13 +63,12 @@ export const replayBench: BenchSection = {
       const tenMinutes = join(dir, 'ten-minutes');
       const logBytes = writeSyntheticLog(tenMinutes, { duration: 600, imuRate: 200, boxRate: 30, odometryRate: 20, seed: 1 });
       const small = await timedReplay(tenMinutes);
+      const smallChild = replayInChild(tenMinutes);
       rmSync(tenMinutes, { recursive: true, force: true });
 
       const big = join(dir, 'big');
       const bigBytes = writeSyntheticLog(big, { duration: BIG_LOG_SECONDS, imuRate: 200, boxRate: 30, odometryRate: 20, seed: 2 });
-      const child = spawnSync(process.execPath, ['--import', 'tsx', fileURLToPath(import.meta.url), CHILD_FLAG, big], { encoding: 'utf8', maxBuffer: 1 << 20 });
-      if (child.status !== 0) throw new Error(`replay bench child failed (${child.status}): ${child.stderr}`);
-      const measured = JSON.parse(child.stdout.trim().split('\n').at(-1)!) as { seconds: number; rows: number; steps: number; maxRssKB: number };
+      const measured = replayInChild(big);
       return {
         seconds: round(small.seconds),
         cpuSeconds: round(small.cpuSeconds),
@@ -61,6 +77,8 @@ export const replayBench: BenchSection = {
         filterSteps: small.steps,
         rowsPerSecond: round(small.rows / small.seconds),
         peakMB: round(measured.maxRssKB / 1024),
+        peakMBTenMinutes: round(smallChild.maxRssKB / 1024),
+        heapLimitMB: HEAP_LIMIT_MB,
         bigLogMB: round(bigBytes / 1e6),
         bigRows: measured.rows,
         bigSeconds: round(measured.seconds),

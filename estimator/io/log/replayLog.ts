@@ -198,11 +198,20 @@ export async function replayLog(source: LogSource, settings: ReplaySettings = {}
     const result = filter.initializeFromBox(t, box, q, vL, sigma);
     if (result.status !== 'accepted') return `start-refused: ${result.reason}`;
     for (let i = 0; i < 3; i++) filter.x[3 + i] = filter.x[6 + i]!;
-    pending.drain();
+    dropPending('dropped-at-restart');
     if (started) restarts++;
     else start = t;
     started = true;
     return '';
+  };
+  /** Held measurements that will never be applied: no longer used, with a reason. */
+  const dropPending = (why: string) => {
+    for (const [stream, count] of pending.drain()) {
+      const reader = readers.find((x) => x.spec.name === stream)!;
+      reader.used -= count;
+      const r = reasonOf(reader);
+      r[why] = (r[why] ?? 0) + count;
+    }
   };
   const flushPending = () => {
     while (pending.size > 0 && pending.peekTime() <= filter.time + TIME_EPSILON) {
@@ -307,12 +316,7 @@ export async function replayLog(source: LogSource, settings: ReplaySettings = {}
   }
   emit();
   // Measurements still waiting for an IMU step that never came, and pending outcomes.
-  for (const [stream, count] of pending.drain()) {
-    const reader = readers.find((x) => x.spec.name === stream)!;
-    reader.used -= count;
-    const r = reasonOf(reader);
-    r['after-last-imu-step'] = (r['after-last-imu-step'] ?? 0) + count;
-  }
+  dropPending('after-last-imu-step');
   for (const [stream, reasons] of pending.refusedCounts()) {
     const reader = readers.find((x) => x.spec.name === stream)!;
     const r = reasonOf(reader);

@@ -166,8 +166,6 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
         if (!st.haveOdometry) continue;
         const r = filter.initializeFromBox(t, frame.box, st.qEstimate, st.odometry, INITIAL_SIGMA);
         if (r.status !== 'accepted') continue;
-        // the lander trails the carrier: its own velocity is the better prior for vC than 0
-        for (let k = 0; k < 3; k++) filter.x[3 + k] = filter.x[6 + k]!;
         initialized = true;
         guidance.reset();
         lastSeen = t;

@@ -4,7 +4,7 @@
 // with truth, from the errors. Browser-safe: give it any LogSource.
 // Per row the merge allocates only the split line and the filter's small UpdateResult.
 import type { FilterSpec } from '../../sim/Scenario.js';
-import { LandingFilter, type Box } from '../../models/LandingFilter.js';
+import { LandingFilter, type Box, type UpdateStatus } from '../../models/LandingFilter.js';
 import { averagedChiSquareInterval } from '../../stats/chiSquare.js';
 import { applyFilterSettings, defaultFilterSpec, FilterSettingsError } from './filterSettings.js';
 import { LogLayoutError, ProblemLog, type LogProblem, type LogProblemKind } from './LogProblem.js';
@@ -44,6 +44,10 @@ export interface ReplaySettings {
   keepProblems?: number;
   /** Called after each IMU step's events with the filter's own x and P (n x n): copy, do not keep. */
   onEstimate?: (t: number, x: Float64Array, P: Float64Array, n: number) => void;
+  /** Called after every box/odometry update the filter evaluated: measurement time (s), status, NIS (NaN unless accepted or gated). */
+  onUpdate?: (time: number, stream: 'boxes' | 'odometry', status: UpdateStatus, nis: number) => void;
+  /** Called for every truth row compared: [t, rx, ry, rz, vcx, vcy, vcz, vlx, vly, vlz] and the filter's x, P then (all reused: copy). */
+  onTruth?: (truth: Float64Array, x: Float64Array, P: Float64Array, n: number) => void;
 }
 
 export interface StreamRows {
@@ -173,12 +177,15 @@ export async function replayLog(source: LogSource, settings: ReplaySettings = {}
     box.yMin = v[1]!;
     box.xMax = v[2]!;
     box.yMax = v[3]!;
-    return boxStats.add(filter.updateBox(capture, box));
+    const result = filter.updateBox(capture, box);
+    settings.onUpdate?.(capture, 'boxes', result.status, result.nis);
+    return boxStats.add(result);
   };
   const applyOdometry = (t: number, v: ArrayLike<number>): boolean => {
     const now = Math.abs(t - filter.time) <= TIME_EPSILON;
     if (now) for (let i = 0; i < 3; i++) y[i] = (v[i]! - filter.x[6 + i]!) / Math.sqrt(filter.P[(6 + i) * n + 6 + i]! + varOdometry);
     const result = filter.updateOdometry(t, v);
+    settings.onUpdate?.(t, 'odometry', result.status, result.nis);
     if (now && result.status === 'accepted') for (let i = 0; i < 3; i++) odometryWhiteness[i]!.add(y[i]!);
     return odometryStats.add(result);
   };
@@ -285,6 +292,7 @@ export async function replayLog(source: LogSource, settings: ReplaySettings = {}
           break;
         }
         case 'truth':
+          settings.onTruth?.(v, filter.x, filter.P, n);
           truth.add(filter.x, filter.P, n, v);
           used = true;
           break;

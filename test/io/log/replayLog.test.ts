@@ -85,6 +85,32 @@ describe('replayLog on a synthetic log with truth', () => {
   });
 });
 
+describe('replayLog callbacks for plotting', () => {
+  it('onUpdate sees every evaluated update with its NIS, onTruth every compared truth row', async () => {
+    const updates = { boxes: 0, odometry: 0, accepted: 0, nisSum: 0 };
+    let truthRows = 0;
+    const report = await replayLog(logSourceFromFolder(folder), {
+      onUpdate: (time, stream, status, nis) => {
+        updates[stream]++;
+        if (stream === 'boxes' && status === 'accepted') {
+          updates.accepted++;
+          updates.nisSum += nis;
+        }
+        expect(Number.isFinite(time)).toBe(true);
+      },
+      onTruth: (row) => {
+        truthRows++;
+        expect(row.length).toBe(10);
+      },
+    });
+    const refused = (s: Record<string, number>) => Object.values(s).reduce((a, b) => a + b, 0);
+    expect(updates.boxes).toBe(report.nisCount + report.boxes.gated + refused(report.boxes.refused));
+    expect(updates.odometry).toBe(report.odometry.count + report.odometry.gated + refused(report.odometry.refused));
+    expectClose(updates.nisSum / updates.accepted, report.nisMean!, { rel: 1e-12 }, 'NIS mean'); // same sum, same order
+    expect(truthRows).toBe(report.rows.truth!.used);
+  });
+});
+
 describe('replayLog validation', () => {
   it('skips and counts bad rows in every stream without losing the rest', async () => {
     const texts = withFile('imu.csv', (t) => {

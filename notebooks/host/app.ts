@@ -8,6 +8,7 @@ import { WorkerJobRunner, type Activity } from '../jobs/WorkerJobRunner.js';
 import { mountStudy, type MountedStudy } from '../runtime/mountStudy.js';
 import { STUDIES, studyById } from '../studies/studies.js';
 import { escapeXml } from '../figures/svg.js';
+import { VERSION } from '../../estimator/version.js';
 import { Plate } from './Plate.js';
 import { renderSetup } from './renderSetup.js';
 import { renderDropzone } from './dropzone.js';
@@ -52,6 +53,7 @@ function updateBusy(): void {
   const button = document.querySelector<HTMLButtonElement>('#cancel');
   const done = activity.reduce((s, a) => s + a.done, 0);
   const total = activity.reduce((s, a) => s + a.total, 0);
+  document.querySelector('.progress')?.setAttribute('aria-valuenow', String(activity.length === 0 ? (cancelled ? 0 : 100) : total > 0 ? Math.round((100 * done) / total) : 0));
   if (bar) bar.style.width = activity.length === 0 ? (cancelled ? '0%' : '100%') : `${total > 0 ? (100 * done) / total : 2}%`;
   if (line) line.textContent = activity.length > 0 ? `${activity.map((a) => a.label).join(', ')}: ${done} of ${total || '…'}` : cancelled ? 'cancelled: partial results shown' : 'all results in';
   if (button) {
@@ -97,6 +99,9 @@ function render(analysis: Analysis, problem: string | null): void {
   article.className = 'study';
   article.innerHTML = `<h1>${escapeXml(study.title)}</h1><p class="lede">${escapeXml(study.lede)}</p>`;
   if (problem) article.insertAdjacentHTML('afterbegin', `<p class="message" role="alert">${escapeXml(problem)}</p>`);
+  else if (analysis.toolVersion !== VERSION) {
+    article.insertAdjacentHTML('afterbegin', `<p class="message">This analysis was made with alight ${escapeXml(analysis.toolVersion)}; this page is ${VERSION}, so numbers may differ from the original.</p>`);
+  }
 
   plates = new Map(study.figures.map((f) => [f.name, new Plate(f, study.id)]));
   let group: HTMLElement | null = null;

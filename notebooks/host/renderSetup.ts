@@ -65,7 +65,7 @@ export function renderSetup(study: Study, analysis: Analysis, actions: SetupActi
   for (const p of study.parameters) setup.append(renderControl(p, analysis.parameters[p.name] ?? p.default, (v) => change(p.name, v)));
   setup.append(renderSeed(analysis.seed, (seed) => change('seed', seed)));
 
-  setup.insertAdjacentHTML('beforeend', `<h2>Run</h2><div class="progress" role="progressbar" aria-label="Trials"><div></div></div><div class="run-line"><span class="run-text" aria-live="polite"></span><button type="button" id="cancel">Cancel</button></div><h2>Share</h2>`);
+  setup.insertAdjacentHTML('beforeend', `<h2>Run</h2><div class="progress" role="progressbar" aria-label="Trials done" aria-valuemin="0" aria-valuemax="100" aria-valuenow="0"><div></div></div><div class="run-line"><span class="run-text" aria-live="polite"></span><button type="button" id="cancel">Cancel</button></div><h2>Share</h2>`);
   setup.querySelector('#cancel')!.addEventListener('click', actions.cancelOrRerun);
   const share = document.createElement('div');
   share.className = 'share';

@@ -1,6 +1,7 @@
 // One self-contained HTML file for an analysis: the study's prose, its figures inline as SVG,
 // the same key numbers the page shows (same data-key / data-value), the analysis file itself,
 // and the flight-safety caution. No script, no external resource.
+import { VERSION } from '../../estimator/version.js';
 import { analysisToText, type Analysis } from '../analysis/Analysis.js';
 import { escapeXml } from '../figures/svg.js';
 import { SAFETY_CAUTION } from '../host/hostPage.js';
@@ -12,7 +13,8 @@ export function renderReport(study: Study, analysis: Analysis, figures: Readonly
     ['study', study.title],
     ['scenario', `${analysis.scenario.name}: ${analysis.scenario.description}`],
     ['master seed', String(analysis.seed)],
-    ['written by', `alight ${analysis.toolVersion}`],
+    ['analysis made with', `alight ${analysis.toolVersion}`],
+    ['report rendered by', `alight ${VERSION}`],
     ...study.parameters.map((p): [string, string] => [p.label, String(analysis.parameters[p.name] ?? p.default) + (p.kind === 'number' && p.unit ? ` ${p.unit}` : '')]),
   ];
   const parts: string[] = [];
@@ -53,6 +55,7 @@ export function renderReport(study: Study, analysis: Analysis, figures: Readonly
 <h1>${escapeXml(study.title)}</h1>
 <p class="lede">${escapeXml(study.lede)}</p>
 <p class="caution" role="note">${escapeXml(SAFETY_CAUTION)}</p>
+${analysis.toolVersion === VERSION ? '' : `<p class="message">This analysis was made with alight ${escapeXml(analysis.toolVersion)} and rendered by ${VERSION}: numbers may differ from the original.</p>`}
 <table class="report-meta">${meta.map(([k, v]) => `<tr><td>${escapeXml(k)}</td><td>${escapeXml(v)}</td></tr>`).join('')}</table>
 ${parts.join('\n')}
 <details><summary>Analysis file (reproduces every number above: open it in the notebook page or run alight report on it)</summary><pre>${escapeXml(analysisToText(analysis))}</pre></details>

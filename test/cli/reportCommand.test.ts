@@ -66,6 +66,13 @@ describe('alight report', () => {
     expect(value(html, 'filterSteps')).toBe(expected.filterSteps);
   });
 
+  it('says when the analysis was made by another version', async () => {
+    writeFileSync(join(work, 'old.json'), analysisToText({ study: 'carrier', scenario: defaultScenario(), parameters: { maxSpeed: 4, trials: 1 }, seed: 1, toolVersion: '0.0.9' }));
+    const { code } = await run(['report', 'old.json', '--out', 'old.html']);
+    expect(code).toBe(0);
+    expect(readFileSync(join(work, 'old.html'), 'utf8')).toContain(`This analysis was made with alight 0.0.9 and rendered by ${VERSION}: numbers may differ from the original.`);
+  });
+
   it('names the file and each bad field, exit 2', async () => {
     writeFileSync(join(work, 'bad.json'), JSON.stringify({ study: 'detection', scenario: defaultScenario(), parameters: { trials: 0 }, seed: 1.5, toolVersion: VERSION }));
     const { code, err } = await run(['report', 'bad.json', '--out', 'bad.html']);

@@ -94,7 +94,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   const imuPeriod = 1 / localization.imuRate, odometryPeriod = 1 / localization.odometryRate;
   const capturePeriod = 1 / detectorSpec.rate;
   let nextImu = 0, nextOdometry = 0, nextCapture = 0;
-  let initialized = false, lastSeen = -Infinity, touchdown: ReturnType<typeof judgeTouchdown> | null = null, touchdownTime: number | null = null;
+  let initialized = false, reacquire = false, abortsSeen = 0, lastSeen = -Infinity, touchdown: ReturnType<typeof judgeTouchdown> | null = null, touchdownTime: number | null = null;
   let phase: Phase = 'acquire';
   const eps = 1e-9 * dt;
 
@@ -162,11 +162,16 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       const stamp = errors.cameraTimestamp(frame.captureTime);
       recorder?.box(t, stamp, frame.box, 1);
       st.lastBox = frame.box;
-      if (!initialized || filter.diverged) {
-        if (!st.haveOdometry) continue;
-        const r = filter.initializeFromBox(t, frame.box, st.qEstimate, st.odometry, INITIAL_SIGMA);
+      // (re-)acquisition: the first box, after a divergence, and after an abort (a lost target
+      // may have been a false box all along, so the estimate starts afresh from the next box)
+      // A box older than the filter's history could not be used as a measurement either, so
+      // it starts nothing; younger ones start the filter at their capture stamp.
+      if (!initialized || reacquire || filter.diverged) {
+        if (!st.haveOdometry || t - stamp > filterSpec.historyLength) continue;
+        const r = filter.initializeFromBox(Math.min(stamp, t), frame.box, st.qEstimate, st.odometry, INITIAL_SIGMA);
         if (r.status !== 'accepted') continue;
         initialized = true;
+        reacquire = false;
         guidance.reset();
         lastSeen = t;
         continue;
@@ -188,6 +193,10 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     input.lastSeen = lastSeen;
     input.unseenFor = t - lastSeen;
     phase = supervisor.step(t, dt, input, st.command);
+    if (supervisor.aborts > abortsSeen) {
+      abortsSeen = supervisor.aborts;
+      reacquire = true;
+    }
     st.phaseTimes[phase] += dt;
     for (let k = 0; k < 3; k++) st.vLTrue[k] = ls.velocity[k]!;
     if (input.valid && Math.abs(filter.time - t) < eps + 1e-12) {

@@ -77,7 +77,7 @@ describe('runTrial', () => {
     expect(noisy.positionRmse).toBeGreaterThan(clean.positionRmse);
   });
 
-  it('times out when the carrier is never in view, and aborts when boxes stop being usable', () => {
+  it('times out when the carrier is never in view or every box is too old to use', () => {
     const s = setPaths(demo('survey-rover.scenario.json'), { 'lander.startOffset': [30, 30, 6], duration: 20 });
     const r = runTrial(s, { key: { seed: 1, point: 0, trial: 0 } });
     expect(r.outcome).toBe('timed-out');
@@ -85,11 +85,20 @@ describe('runTrial', () => {
     expect(r.missDistance).toBeNull();
     expectClose(r.phaseTimes.acquire, 20, { abs: 0.02 }, 'whole trial in acquire (one step)');
     expect(r.boxes).toBe(0);
-    // latency beyond the filter's history: the first box starts the filter, later ones are too old
+    // latency beyond the filter's history: no box is young enough to start the filter
     const late = setPaths(demo('survey-rover.scenario.json'), { 'detector.latency': 0.8, 'detector.latencyJitter': 0, duration: 20 });
-    const aborted = runTrial(late, { key: { seed: 1, point: 0, trial: 0 } });
-    expect(aborted.outcome).toBe('aborted');
-    expect(aborted.aborts).toBeGreaterThanOrEqual(1);
+    const stale = runTrial(late, { key: { seed: 1, point: 0, trial: 0 } });
+    expect(stale.outcome).toBe('timed-out');
+    expect(stale.boxes).toBeGreaterThan(100);
+    expect(stale.nisCount).toBe(0);
+  });
+
+  it('aborts and re-acquires when the target leaves the image for longer than lostTimeout', () => {
+    // a long bursty outage: Gilbert-Elliott with rare entry and slow exit (mean burst 100 frames)
+    const s = setPaths(demo('survey-rover.scenario.json'), { 'detector.burst': { enter: 0.01, exit: 0.01 } });
+    const results = [1, 2, 3, 4, 5, 6].map((trial) => runTrial(s, { key: { seed: 3, point: 0, trial } }));
+    expect(results.some((r) => r.aborts > 0)).toBe(true);
+    for (const r of results) if (r.aborts > 0 && r.touchdownTime === null) expect(['aborted', 'diverged']).toContain(r.outcome);
   });
 
   it('reports each step to onStep and every filter input to the recorder, in time order', () => {

@@ -3,6 +3,7 @@
 import { setPath } from '../../estimator/io/scenarioPath.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
 import type { PointSummary } from '../../estimator/study/summarize.js';
+import { trialsNeeded } from '../../estimator/study/statistics/trialsNeeded.js';
 import { wilson } from '../../estimator/study/statistics/wilson.js';
 import type { JobRunner } from '../jobs/JobRunner.js';
 import type { JobState } from '../jobs/JobState.js';
@@ -57,6 +58,7 @@ export const detectionStudy: Study = {
     },
     { kind: 'number', name: 'trials', label: 'Trials per point', unit: '', min: 1, max: 60, step: 1, default: 5, integer: true },
     CONFIDENCE_PARAMETER,
+    { kind: 'number', name: 'target', label: 'Claim: success at least', unit: '', min: 0.5, max: 0.99, step: 0.01, default: 0.9 },
   ],
   cells: [
     {
@@ -140,6 +142,40 @@ export const detectionStudy: Study = {
         }),
     },
     {
+      name: 'claims',
+      title: 'Does the claim hold, and how many trials would show it?',
+      wide: true,
+      caption: 'A point supports "success ≥ target" when its Wilson lower bound reaches the target. Trials needed: all succeeding, and with 80 % power if the rate seen here is the true one.',
+      inputs: ['sweep', 'impairment', 'confidence', 'target'],
+      compute: (state: SweepState, impairment: string, confidence: string, target: number) =>
+        fromState(state, 'trials', (value) => {
+          const imp = IMPAIRMENTS[impairment]!;
+          const z = Z_OF_LEVEL[confidence]!;
+          const rows = value.summaries.map((p) => {
+            const low = wilson(p.landed, p.trials, z).low;
+            const needed = p.successRate > 0 ? trialsNeeded(p.successRate, target, { z }) : null;
+            return { p, low, needed };
+          });
+          const supported = rows.filter((r) => r.low >= target).length;
+          return {
+            kind: 'table',
+            markup: htmlTable(
+              [`${imp.label} (${imp.unit})`, 'landed', `Wilson low (${Math.round(Number(confidence) * 100)} %)`, `≥ ${formatPercent(target, 0)}?`, 'n of n needed', 'needed at this rate (80 % power)'],
+              rows.map(({ p, low, needed }) => [
+                String(p.point[imp.path]),
+                `${p.landed} / ${p.trials}`,
+                formatPercent(low),
+                low >= target ? 'supported' : 'not shown',
+                String(needed?.allSucceed ?? '–'),
+                needed === null ? 'never lands' : needed.withPower === null ? 'rate below target' : String(needed.withPower),
+              ]),
+            ),
+            csv: toCsv([imp.path, 'trials', 'landed', 'wilsonLow', 'z', 'target', 'supported', 'allSucceed', 'withPower'], rows.map(({ p, low, needed }) => [Number(p.point[imp.path]), p.trials, p.landed, low, z, target, low >= target ? 1 : 0, needed?.allSucceed ?? null, needed?.withPower ?? null])),
+            numbers: [keyNumber('supported', 'points supporting the claim', supported, `${supported} of ${rows.length}`)],
+          };
+        }),
+    },
+    {
       name: 'outcomes',
       title: 'Outcomes per point',
       caption: 'How each trial ended. Download the results to rerun the numbers with `alight summarize`.',
@@ -153,6 +189,7 @@ export const detectionStudy: Study = {
     { figure: 'success' },
     { figure: 'miss' },
     { prose: 'Few trials give wide bands: five landings out of five still leave a lower bound near 57 % at 95 % confidence. Raise the trial count before trusting a flat curve.' },
+    { figure: 'claims' },
     { figure: 'outcomes' },
   ],
 };

@@ -115,9 +115,17 @@ describe.skipIf(!runBrowserTests)('studies in chromium', () => {
     const jobsBefore = await computeCounts(page);
     const { before, after } = await changeControl(page, () => page.selectOption('#control-confidence', '0.99').then(() => undefined), 'success');
     expect(after.success).toBeGreaterThan(before.success!);
+    expect(after.claims).toBeGreaterThan(before.claims!);
     expect(after.miss).toBe(before.miss);
     expect(after.outcomes).toBe(before.outcomes);
     expect((await computeCounts(page)).sweep).toBe(jobsBefore.sweep);
+    // The claim's target (slider, by keyboard) touches only the claims table.
+    const target = await changeControl(page, async () => {
+      await page.focus('#control-target');
+      await page.keyboard.press('ArrowLeft');
+    }, 'claims');
+    for (const kept of ['success', 'miss', 'outcomes']) expect(target.after[kept], kept).toBe(target.before[kept]);
+    expect(await page.inputValue('#control-target')).toBe('0.89');
     // A wider band at 99 %: the lower bound moved down, the rate did not.
     expect(await shownValue(page, 'success', 'successRate0')).toBe(expected.successRate);
     expect(await shownValue(page, 'success', 'wilsonLow0')).toBeLessThanOrEqual(expected.wilsonLow);

@@ -1,6 +1,8 @@
 // `alight sensitivity`: rank impairments by the landing success they cost over their plausible
 // range, one at a time around the scenario, with 95 % intervals.
+import { writeFileSync } from 'node:fs';
 import { applyParams } from '../study/applyParams.js';
+import { sensitivityFigure } from '../study/figures/sensitivityFigure.js';
 import { PLAUSIBLE_RANGES, type PlausibleRange } from '../study/plausibleRanges.js';
 import { rankSensitivity } from '../study/rankSensitivity.js';
 import { runBatch } from '../study/runBatch.js';
@@ -9,7 +11,7 @@ import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { createExecutor, loadScenarioOrFail, progressBar, workerCount } from './studyRunner.js';
-import { asCliError, SAFETY_NOTE, WORKERS_OPTION } from './studyCli.js';
+import { asCliError, resolvePath, SAFETY_NOTE, WORKERS_OPTION } from './studyCli.js';
 
 const USAGE = 'alight sensitivity <scenario.json> [--vary PATH=GOOD:BAD ...] [--trials N]';
 const PURPOSE = 'One impairment at a time, everything else as in the scenario: run N trials at the good and at the bad end\nof each plausible range and rank the impairments by the landing success lost, with Newcombe 95 % intervals.';
@@ -18,6 +20,7 @@ const OPTIONS: OptionSpec[] = [
   { name: 'trials', kind: 'value', valueName: 'N', help: 'trials at each end of each range (default 100)' },
   { name: 'seed', kind: 'value', valueName: 'S', help: 'master seed (default: the scenario\'s seed)' },
   WORKERS_OPTION,
+  { name: 'svg', kind: 'value', valueName: 'FILE', help: 'figure: the ranking as bars with 95 % interval whiskers' },
   { name: 'json', kind: 'flag', help: 'print JSON' },
   { name: 'help', kind: 'flag', help: 'show this help' },
 ];
@@ -59,6 +62,8 @@ export const sensitivityCommand: Command = {
       progress.stop();
       const landed = (i: number): [number, number] => [records[i]!.filter((r) => r.outcome === 'landed').length, records[i]!.length];
       const rows = rankSensitivity(factors, factors.map((_, i) => ({ good: landed(2 * i), bad: landed(2 * i + 1) })));
+      const svg = parsed.values.get('svg');
+      if (svg) writeFileSync(resolvePath(io.cwd, svg), sensitivityFigure(rows.map((r) => ({ label: `${r.path} ${r.good.value} → ${r.bad.value}`, loss: r.loss, low: r.lossLow, high: r.lossHigh }))));
       if (parsed.flags.has('json')) io.stdout(JSON.stringify(rows, null, 1) + '\n');
       else {
         const pct = (v: number) => `${(100 * v).toFixed(1)}`;

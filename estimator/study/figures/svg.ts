@@ -27,7 +27,7 @@ export function svgDocument(frame: Frame, title: string, body: string): string {
     `font-family="system-ui, -apple-system, 'Segoe UI', sans-serif" font-size="12" fill="${INK}">\n` +
     `<title>${escapeXml(title)}</title>\n` +
     `<rect width="${width}" height="${height}" fill="${GROUND}"/>\n` +
-    `<text x="${frame.margin.left}" y="24" font-size="15" font-weight="600">${escapeXml(title)}</text>\n` +
+    `<text x="${Math.min(frame.margin.left, 64)}" y="24" font-size="15" font-weight="600">${escapeXml(title)}</text>\n` +
     body +
     `<text x="${width - 8}" y="${height - 8}" text-anchor="end" font-size="9" opacity="0.7">alight · simulation clears nothing for flight</text>\n` +
     `</svg>\n`
@@ -62,7 +62,7 @@ export function bottomAxis(scale: TickScale, frame: Frame, label: string, option
     out += `<line x1="${x}" x2="${x}" y1="${y}" y2="${y + 5}" stroke="${INK}"/>`;
     out += `<text x="${x}" y="${y + 18}" text-anchor="middle">${escapeXml(format(t))}</text>\n`;
   }
-  out += `<text x="${px((margin.left + width - margin.right) / 2)}" y="${height - 16}" text-anchor="middle">${escapeXml(label)}</text>\n</g>\n`;
+  out += `<text x="${px((margin.left + width - margin.right) / 2)}" y="${y + 36}" text-anchor="middle">${escapeXml(label)}</text>\n</g>\n`;
   return out;
 }
 

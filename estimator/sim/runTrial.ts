@@ -164,11 +164,12 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       st.lastBox = frame.box;
       // (re-)acquisition: the first box, after a divergence, and after an abort (a lost target
       // may have been a false box all along, so the estimate starts afresh from the next box)
-      // A box older than the filter's history could not be used as a measurement either, so
-      // it starts nothing; younger ones start the filter at their capture stamp.
+      // The filter starts at the box's arrival time (as replay does, io/log/LAYOUT.md); a box
+      // older than the filter's history could not be used as a measurement either, so it
+      // starts nothing (a box 0.8 s old placed at its arrival flew the lander into the deck).
       if (!initialized || reacquire || filter.diverged) {
         if (!st.haveOdometry || t - stamp > filterSpec.historyLength) continue;
-        const r = filter.initializeFromBox(Math.min(stamp, t), frame.box, st.qEstimate, st.odometry, INITIAL_SIGMA);
+        const r = filter.initializeFromBox(t, frame.box, st.qEstimate, st.odometry, INITIAL_SIGMA);
         if (r.status !== 'accepted') continue;
         initialized = true;
         reacquire = false;
@@ -196,6 +197,8 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     if (supervisor.aborts > abortsSeen) {
       abortsSeen = supervisor.aborts;
       reacquire = true;
+      // optional recorder method (restarts make a bit-exact replay need it)
+      (recorder as (TrialRecorder & { reset?: (t: number) => void }) | undefined)?.reset?.(t);
     }
     st.phaseTimes[phase] += dt;
     for (let k = 0; k < 3; k++) st.vLTrue[k] = ls.velocity[k]!;

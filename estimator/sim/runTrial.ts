@@ -107,9 +107,9 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     lander.step(dt, st.command, st.wind, ls);
     carrier.stateAt(t, cs);
     deckContact(ls, cs, carrierSpec.deckLength, carrierSpec.deckWidth, contact);
-    // contact with the deck: on its outline and at most one step's travel below its plane
-    // A lander that sinks past the deck plane beside the deck has missed it: judged there
-    // (off-pad), as is touching the ground.
+    // Contact with the deck: on its outline and at most one step's travel below its plane.
+    // A lander that sinks past the deck plane beside the deck has missed it and is judged
+    // there (off-pad), as is one touching the ground.
     const onDeckContact = contact.inContact && contact.onDeck && contact.height > -CONTACT_DEPTH;
     if (onDeckContact || contact.height <= -CONTACT_DEPTH || contact.groundHeight <= 0) {
       if (!onDeckContact) contact.onDeck = false;

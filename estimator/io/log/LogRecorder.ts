@@ -26,6 +26,7 @@ const HEADERS: Record<string, string> = {
   'odometry.csv': 'time,vx,vy,vz',
   'boxes.csv': 'time,arrival,xMin,yMin,xMax,yMax,score',
   'truth.csv': 'time,rx,ry,rz,vcx,vcy,vcz,vlx,vly,vlz',
+  'resets.csv': 'time',
 };
 
 export interface LogRecorderOptions {
@@ -45,7 +46,6 @@ export class LogRecorder implements TrialRecorder {
   private readonly sink: LogTextSink;
   private readonly buffers = new Map<string, string>();
   private lastAttitudeTime = -Infinity;
-  private lastImuTime = Number.NaN;
   private readonly withTruth: boolean;
   private closed = false;
   /** Rows written per file. */
@@ -83,7 +83,6 @@ export class LogRecorder implements TrialRecorder {
   }
 
   imu(t: number, f: ArrayLike<number>, q: ArrayLike<number>): void {
-    this.lastImuTime = t;
     this.append('imu.csv', `${t},${f[0]},${f[1]},${f[2]}`);
     this.attitude(t, q);
   }
@@ -99,15 +98,16 @@ export class LogRecorder implements TrialRecorder {
   }
 
   box(tArrival: number, tCapture: number, box: Box, score: number): void {
-    // The filter never takes a capture time ahead of its clock (the last IMU step): record the
-    // stamp it was given, so replay needs no guess.
-    const capture = tCapture > this.lastImuTime ? this.lastImuTime : tCapture;
-    this.append('boxes.csv', `${capture},${tArrival},${box.xMin},${box.yMin},${box.xMax},${box.yMax},${score}`);
+    this.append('boxes.csv', `${tCapture},${tArrival},${box.xMin},${box.yMin},${box.xMax},${box.yMax},${score}`);
   }
 
   truth(t: number, r: ArrayLike<number>, vC: ArrayLike<number>, vL: ArrayLike<number>): void {
     if (!this.withTruth) return;
     this.append('truth.csv', `${t},${r[0]},${r[1]},${r[2]},${vC[0]},${vC[1]},${vC[2]},${vL[0]},${vL[1]},${vL[2]}`);
+  }
+
+  reset(t: number): void {
+    this.append('resets.csv', String(t));
   }
 
   estimate(t: number, x: ArrayLike<number>, Pdiag: ArrayLike<number>): void {

@@ -15,18 +15,23 @@ export interface TrialRecorder {
   imu(t: number, f: ArrayLike<number>, q: ArrayLike<number>): void;
   /** An attitude estimate at a time with no IMU step (rarely needed: imu() carries q). */
   attitude(t: number, q: ArrayLike<number>): void;
-  /** Lander velocity in world ENU (m/s) as given to updateOdometry at t (also those only used to start the filter). */
+  /** Lander velocity in world ENU (m/s) measured at t (applied at min(t, filter clock); also those only used to start the filter). */
   odometry(t: number, v: ArrayLike<number>): void;
   /**
-   * A detector box as handed to the filter: tArrival = the filter clock when updateBox was
-   * called (the step that processed it, so replay applies it at the same point), tCapture =
-   * the capture time given to updateBox (s); score in [0, 1] (1 when unknown). False boxes are
-   * recorded too: the lander cannot tell them apart. For the first box, the one given to
-   * initializeFromBox, tArrival = the t passed there.
+   * A detector box as it reached the filter: tArrival = the simulation step that handed it
+   * over (s), tCapture = its capture stamp on the camera clock (s; the filter applies it at
+   * min(tCapture, filter clock)); score in [0, 1] (1 when unknown). False boxes are recorded
+   * too: the lander cannot tell them apart.
    */
   box(tArrival: number, tCapture: number, box: Box, score: number): void;
   /** Simulator truth at t: r = p_carrier - p_lander (ENU, m), carrier and lander velocity (m/s). */
   truth(t: number, r: ArrayLike<number>, vC: ArrayLike<number>, vL: ArrayLike<number>): void;
+  /**
+   * Optional: the lander dropped its estimate at t (e.g. the supervisor aborted and will
+   * re-acquire), so the next box handed over starts the filter afresh (resets.csv). Needed
+   * for a bit-exact replay of trials with such restarts; divergence restarts need no call.
+   */
+  reset?(t: number): void;
   /** The filter's state x and covariance diagonal at filter time t, after every event up to t (onboard.csv). */
   estimate(t: number, x: ArrayLike<number>, Pdiag: ArrayLike<number>): void;
 }

@@ -2,8 +2,8 @@
 // sets each accepts, and the normalized row every reader produces. Column order is free;
 // the header names the columns. Units: s, m, m/s, m/s^2, px.
 
-export type LogStreamName = 'boxes' | 'imu' | 'attitude' | 'odometry' | 'truth' | 'onboard';
-export const LOG_STREAMS: readonly LogStreamName[] = ['boxes', 'imu', 'attitude', 'odometry', 'truth', 'onboard'];
+export type LogStreamName = 'boxes' | 'imu' | 'attitude' | 'odometry' | 'truth' | 'onboard' | 'resets';
+export const LOG_STREAMS: readonly LogStreamName[] = ['boxes', 'imu', 'attitude', 'odometry', 'truth', 'onboard', 'resets'];
 
 /** Streams the filter cannot do without. */
 export const REQUIRED_STREAMS: readonly LogStreamName[] = ['boxes', 'imu', 'attitude'];
@@ -58,6 +58,8 @@ export const STREAM_SPECS: Readonly<Record<LogStreamName, StreamSpec>> = {
     strict: true,
     orderColumn: 'time',
   },
+  // Times at which the lander dropped its estimate (e.g. after an abort) to start afresh from the next box.
+  resets: { name: 'resets', file: 'resets.csv', layouts: [[]], optional: [], strict: true, orderColumn: 'time' },
   onboard: {
     name: 'onboard',
     file: 'onboard.csv',

@@ -68,6 +68,31 @@ describe('record then replay', () => {
     expect(report.nisMean).toBe(result.nisMean);
   });
 
+  it('reproduces a trial whose IMU (50 Hz) is slower than the filter loop (100 Hz)', async () => {
+    const s = scenario((x) => {
+      x.localization.imuRate = 50;
+    });
+    const { result, report } = await recordAndReplay(s);
+    expect(report.onboard!.compared).toBeGreaterThan(1000);
+    expect(report.onboard!.maxStateDifference).toBe(0);
+    expect(report.nisMean).toBe(result.nisMean);
+    expect(report.problems.total).toBe(0);
+  });
+
+  it('reproduces a trial with aborts and re-acquisitions (resets.csv)', async () => {
+    const s = scenario((x) => {
+      x.seed = 2;
+      x.detector.falseBoxRate = 0.5;
+      x.detector.burst = { enter: 0.03, exit: 0.02 }; // bursts of ~50 frames: the target is lost, the supervisor aborts
+    });
+    const { result, rows, report } = await recordAndReplay(s);
+    expect(result.aborts).toBeGreaterThan(0);
+    expect(rows['resets.csv']).toBe(result.aborts);
+    expect(report.restarts).toBeGreaterThan(0);
+    expect(report.onboard!.maxStateDifference).toBe(0);
+    expect(report.nisMean).toBe(result.nisMean);
+  });
+
   it('writes the believed camera and no truth.csv when asked', async () => {
     const s = scenario((x) => {
       x.localization.focalError = 0.02;

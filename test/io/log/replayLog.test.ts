@@ -45,7 +45,7 @@ describe('replayLog on a synthetic log with truth', () => {
     expect(clean.rows.imu).toMatchObject({ read: 4001, skipped: 0 });
     expect(clean.rows.boxes!.read).toBe(files.get('boxes.csv')!.trim().split('\n').length - 1);
     expect(clean.problems.total).toBe(0);
-    expect(clean.start).toBe(0.05); // first box: captured at 0, arrives 50 ms later
+    expect(clean.start).toBe(0.05); // first box: captured at 0, arrives 50 ms later, when the filter starts
     expect(clean.filterSteps).toBe(4001 - 11); // IMU steps after the start at step 10 (t = 0.05)
     expectRowsAddUp(clean);
   });

@@ -170,14 +170,14 @@ describe('replayLog validation', () => {
     expectRowsAddUp(report);
   });
 
-  it('holds a box captured between IMU steps until the filter reaches its capture time', async () => {
+  it('applies a box stamped between two IMU steps at the filter clock, as the lander does', async () => {
     // Boxes with no arrival column and capture times 2 ms after an IMU step (200 Hz = 5 ms).
     const texts = withFile('boxes.csv', (t) => ['time,xMin,yMin,xMax,yMax', ...t.split('\n').slice(1).filter((l) => l !== '').map((l) => {
       const f = l.split(',');
       return [Number(f[0]) + 0.002, f[2], f[3], f[4], f[5]].join(',');
     })].join('\n'));
     const report = await replayTexts(texts);
-    // Without holding them the filter would refuse each as measurement-after-filter-time.
+    // Stamped ahead of the filter clock: without clamping the filter would refuse each as measurement-after-filter-time.
     expect(report.rows.boxes!.unused).toBe(0);
     expect(report.boxes.refused).toEqual({});
     expect(report.nisCount + report.boxes.gated).toBe(report.rows.boxes!.read - 1); // the first box started the filter

@@ -1,6 +1,7 @@
 // Bench `trial`: CPU per closed-loop demo trial of 60 s simulated time (filter 100 Hz,
 // camera 30 Hz, every impairment of the demo on). Landing is held off (alignTime = duration)
 // so every trial flies the full 60 s; 10 seeded trials per demo scenario, 50 in all.
+// cpuMsZeroLatency: the same trials with detector latency 0 (no delayed-box re-propagation).
 import { readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { loadScenario } from '../../estimator/io/loadScenario.js';
@@ -21,10 +22,14 @@ export const trialBench: BenchSection = {
     const dir = join(import.meta.dirname, '..', '..', 'data-demo');
     const names = readdirSync(dir).filter((f) => f.endsWith('.scenario.json')).sort();
     const cpu: number[] = [];
+    const cpuNoLatency: number[] = [];
     const perScenario: Record<string, number> = {};
     let steps = 0, totalMs = 0;
     for (const name of names) {
       const scenario = setPaths(loadScenario(join(dir, name)), { duration: 60, 'guidance.alignTime': 60 });
+      // the same trials with boxes arriving at once: the difference is the filter's
+      // re-propagation of delayed boxes
+      const prompt = setPaths(scenario, { 'detector.latency': 0, 'detector.latencyJitter': 0 });
       runTrial(scenario, { key: { seed: 999, point: 0, trial: 0 } }); // warm-up
       const mine: number[] = [];
       for (let trial = 0; trial < TRIALS_PER_DEMO; trial++) {
@@ -37,6 +42,12 @@ export const trialBench: BenchSection = {
         steps += Math.round(scenario.duration * scenario.filter.rate);
       }
       cpu.push(...mine);
+      for (let trial = 0; trial < TRIALS_PER_DEMO; trial++) {
+        const start = process.cpuUsage();
+        runTrial(prompt, { key: { seed: 1, point: 0, trial } });
+        const used = process.cpuUsage(start);
+        cpuNoLatency.push((used.user + used.system) / 1000);
+      }
       perScenario[name.replace('.scenario.json', '')] = Number(median(mine).toFixed(2));
     }
     return {
@@ -44,6 +55,7 @@ export const trialBench: BenchSection = {
       simulatedSeconds: 60,
       cpuMs: Number(median(cpu).toFixed(2)),
       stepsPerSec: Math.round(steps / (totalMs / 1000)),
+      cpuMsZeroLatency: Number(median(cpuNoLatency).toFixed(2)),
       perScenarioCpuMs: perScenario,
     };
   },

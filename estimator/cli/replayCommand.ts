@@ -69,7 +69,9 @@ export function formatReplay(r: ReplayReport): string {
     for (const p of r.problems.shown.slice(0, 20)) lines.push(`    ${formatProblem(p)}`);
     if (r.problems.total > 20) lines.push(`    ... ${r.problems.total - 20} more (all in --json)`);
   }
-  lines.push(r.start === null ? '  filter     never started (no usable box)' : `  filter     ${f(r.start)} s to ${f(r.end)} s, ${r.filterSteps} IMU steps${r.divergence ? `; diverged: ${r.divergences.map((d) => `${d.event} at ${f(d.time)} s`).join(', ')}; ${r.restarts} restarts` : ''}`);
+  const diverged = r.divergences.length > 0 ? `; diverged: ${r.divergences.map((d) => `${d.event} at ${f(d.time)} s`).join(', ')}` : '';
+  const restarts = r.restarts > 0 ? `; ${r.restarts} restart${r.restarts === 1 ? '' : 's'}` : '';
+  lines.push(r.start === null ? '  filter     never started (no usable box)' : `  filter     ${f(r.start)} s to ${f(r.end)} s, ${r.filterSteps} IMU steps${diverged}${restarts}`);
   lines.push(nisLine('NIS boxes', r.boxes));
   lines.push(nisLine('NIS odom', r.odometry));
   lines.push(`  gate       ${r.gateRejections} rejections`);

@@ -109,7 +109,7 @@ export class UnparsedJson {
 
 export function parseJsonOrText(text: string): unknown {
   try {
-    return JSON.parse(text);
+    return JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
   } catch (error) {
     return new UnparsedJson(text, (error as Error).message);
   }

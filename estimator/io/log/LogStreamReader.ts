@@ -69,7 +69,8 @@ export class LogStreamReader {
   async start(): Promise<void> {
     const header = await this.nextLine();
     if (header === null) throw new LogLayoutError(this.file, null, null, 'empty file: expected a header line naming the columns');
-    const names = header.split(',').map((s) => s.trim());
+    // A byte-order mark some spreadsheet programs put in front of the first column is not part of its name.
+    const names = (header.charCodeAt(0) === 0xfeff ? header.slice(1) : header).split(',').map((s) => s.trim());
     const seen = new Set<string>();
     for (const name of names) {
       if (seen.has(name)) throw new LogLayoutError(this.file, this.line, name, `column "${name}" appears twice in the header`);

@@ -32,6 +32,12 @@ describe('LogStreamReader', () => {
     expect([reader.read, reader.skipped, problems.total]).toEqual([2, 0, 0]);
   });
 
+  it('ignores a byte-order mark before the header and CRLF line ends', async () => {
+    const { rows, problems } = await readAll('odometry', '\uFEFFtime,vx,vy,vz\r\n0.1,1,2,3\r\n');
+    expect(rows).toEqual([[0.1, 1, 2, 3]]);
+    expect(problems.total).toBe(0);
+  });
+
   it('accepts x/y/w/h boxes and fills arrival = time and score = 1 when absent', async () => {
     const { rows, reader } = await readAll('boxes', 'time,x,y,w,h\n2,10,20,5,6\n');
     expect(reader.layout).toBe(1);

@@ -58,7 +58,9 @@ function widen(domain: [number, number], span: number): [number, number] {
 }
 
 export function plotSvg(spec: PlotSpec): string {
-  const MARGIN = { ...BASE_MARGIN, left: spec.marginLeft ?? BASE_MARGIN.left, bottom: BASE_MARGIN.bottom + (spec.legendBelow ? 18 : 0) };
+  // A legend below wraps into rows; each row takes 16 px off the plot's height.
+  const below = spec.legendBelow ? legendRows(spec.layers, spec.width - 20) : [];
+  const MARGIN = { ...BASE_MARGIN, left: spec.marginLeft ?? BASE_MARGIN.left, bottom: BASE_MARGIN.bottom + 16 * below.length + (below.length > 0 ? 2 : 0) };
   const innerW = spec.width - MARGIN.left - MARGIN.right;
   const innerH = spec.height - MARGIN.top - MARGIN.bottom;
   let xAxis = spec.x;
@@ -106,11 +108,10 @@ export function plotSvg(spec: PlotSpec): string {
   parts.push(el('g', { 'clip-path': `url(#${clipId})` }, ...drawn));
 
   // Legend: top right (or in a row below), one entry per labelled layer, each with its own dash as well as colour.
-  let rowX = MARGIN.left;
   legend.forEach((item, i) => {
-    const ly = spec.legendBelow ? spec.height - 6 : MARGIN.top + 12 + i * 15;
-    const lx = spec.legendBelow ? rowX + 154 : MARGIN.left + innerW - 8;
-    rowX += 30 + item.label.length * 6.2;
+    const slot = below.flatMap((row, r) => row.map((x) => ({ r, x })))[i];
+    const ly = slot ? spec.height - 6 - 16 * (below.length - 1 - slot.r) : MARGIN.top + 12 + i * 15;
+    const lx = slot ? slot.x + 154 : MARGIN.left + innerW - 8;
     const swatch =
       item.kind === 'band' || item.kind === 'rects'
         ? el('rect', { x: lx - 150, y: ly - 6, width: 18, height: 9, fill: item.color, 'fill-opacity': item.kind === 'band' ? 0.3 : 1 })
@@ -203,6 +204,28 @@ function drawLayer(layer: Layer, x: Scale, y: Scale): string {
     case 'text':
       return el('text', { x: x(layer.x), y: y(layer.y), fill: layer.color ?? INK, 'font-size': 11, 'text-anchor': layer.anchor ?? 'start' }, escapeXml(layer.text));
   }
+}
+
+/** Approximate width (px) of a legend entry at 11 px type: swatch, gap and text. */
+function entryWidth(label: string): number {
+  return 30 + label.length * 6.2;
+}
+
+/** Left x of each labelled layer's legend entry, wrapped into rows that fit `width`. */
+function legendRows(layers: readonly Layer[], width: number): number[][] {
+  const rows: number[][] = [];
+  let x = Infinity;
+  for (const layer of layers) {
+    if (!('label' in layer) || !layer.label) continue;
+    const w = entryWidth(layer.label);
+    if (x + w > width) {
+      rows.push([]);
+      x = 14;
+    }
+    rows[rows.length - 1]!.push(x);
+    x += w;
+  }
+  return rows;
 }
 
 function hash(text: string): number {

@@ -18,6 +18,12 @@ const MULTIPLIERS = ['0.25', '0.5', '1', '2', '4'].map((v) => ({ value: v, label
 
 type ReplayState = JobState<ReplayOutput>;
 
+/** A legend-sized name of an innovation series ("odometry innovation vx / sqrt(S)" -> "odometry vx"). */
+function shortSeries(series: string): string {
+  const head = series.replace(' innovation', '').split(/ \/| \(| sequence/)[0]!.trim();
+  return head.length > 16 ? head.slice(0, 15) + '…' : head;
+}
+
 function logChoice(log: string, files: ReadonlyMap<string, LogFile> | null): LogChoice {
   return files && files.size > 0 ? { kind: 'files', files, name: 'dropped folder' } : { kind: 'demo', name: log };
 }
@@ -112,6 +118,35 @@ export const replayStudy: Study = {
         }),
     },
     {
+      name: 'whiteness',
+      title: 'Innovation whiteness',
+      caption: 'Sample autocorrelation of each normalized innovation sequence against its lag; a white sequence stays inside ±1.96/√N (band: the widest of them) and passes the Ljung–Box test (✗: it fails).',
+      inputs: ['replay'],
+      compute: (state: ReplayState) =>
+        fromState(state, 'log', (value) => {
+          const tests = value.report.whiteness.tests;
+          const bound = Math.max(0, ...tests.map((t) => t.bound));
+          const lagsAxis = Math.max(1, ...tests.map((t) => t.lags));
+          const layers: Layer[] = [
+            { kind: 'band', x: [0.5, lagsAxis + 0.5], low: [-bound, -bound], high: [bound, bound], color: SERIES[5]!, opacity: 0.25, label: '±1.96/√N' },
+            ...tests.map((t, i): Layer => ({ kind: 'line', x: t.autocorrelation.map((_, k) => k + 1), y: t.autocorrelation, color: SERIES[i % 5]!, dash: i % 4, width: 1.4, label: `${shortSeries(t.series)}${t.white ? '' : ' ✗'}` })),
+          ];
+          const smallest = tests.length > 0 ? Math.min(...tests.map((t) => t.pValue)) : null;
+          return {
+            markup: plotSvg({
+              title: 'Innovation whiteness',
+              ...HALF,
+              legendBelow: true,
+              x: { label: 'lag (updates)', domain: [0.5, lagsAxis + 0.5] },
+              y: { label: 'autocorrelation', domain: extent([...tests.flatMap((t) => t.autocorrelation), bound, -bound], 0.1) },
+              layers,
+            }),
+            csv: toCsv(['series', 'count', 'lags', 'bound', 'outside', 'ljungBox', 'threshold', 'pValue', 'white'], tests.map((t) => [t.series, t.count, t.lags, t.bound, t.outside, t.ljungBox, t.threshold, t.pValue, t.white ? 1 : 0])),
+            numbers: [keyNumber('smallestP', 'smallest Ljung–Box p', smallest, smallest !== null && smallest < 0.001 ? '< 0.001' : formatNumber(smallest))],
+          };
+        }),
+    },
+    {
       name: 'rows',
       title: 'Rows read and used',
       caption: 'Every row is counted: used by the filter, skipped for a problem (file, line, column below), or unused.',
@@ -136,7 +171,8 @@ export const replayStudy: Study = {
     { figure: 'source' },
     { figure: 'consistency' },
     { figure: 'estimate' },
-    { prose: 'Changing Q or R replays the log again; the file list does not change. A NIS mean above its interval says the filter is over-confident about its measurements or its motion model.' },
+    { figure: 'whiteness' },
     { figure: 'rows' },
+    { prose: 'Changing Q or R replays the log again; the file list does not change. A NIS mean above its interval says the filter is over-confident about its measurements or its motion model; correlated innovations say its model misses a dynamic the data has.' },
   ],
 };

@@ -4,7 +4,7 @@
 // shared machine or a drift in clock speed does not favour either side. All four result files
 // must be byte-identical, or the section fails.
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { loadScenario } from '../../estimator/io/loadScenario.js';
 import { applyParams } from '../../estimator/study/applyParams.js';
@@ -22,13 +22,19 @@ export const sweepBench: BenchSection = {
   async run() {
     const scenario = loadScenario(new URL('../../data-demo/survey-rover.scenario.json', import.meta.url).pathname);
     const dir = mkdtempSync(join(tmpdir(), 'alight-bench-sweep-'));
+    // CPU time of the whole process (worker threads included) tells a starved run from a slow one.
+    const cpu: Record<string, number> = {};
     const timed = async (executor: TrialExecutor, name: string) => {
+      const cpuStart = process.cpuUsage();
       const started = performance.now();
       await runSweep({ scenario, vary: [parseVary('detector.pixelNoise=0.5:5:10')], design: 'grid', trials: TRIALS, seed: 2026, out: join(dir, name), resume: false, executor });
       const seconds = (performance.now() - started) / 1000;
+      const used = process.cpuUsage(cpuStart);
+      cpu[name] = (used.user + used.system) / 1e6;
       await executor.close();
       return seconds;
     };
+    const loadBefore = loadavg()[0]!;
     try {
       const a1 = await timed(inProcessExecutor(simulateTrial, applyParams), 'one-a.jsonl');
       const a2 = await timed(workerPool({ workers: 2 }), 'two-a.jsonl');
@@ -49,6 +55,10 @@ export const sweepBench: BenchSection = {
         trialsPerSec1: round(trials / seconds1),
         trialsPerSec2: round(trials / seconds2),
         speedup: round(seconds1 / seconds2),
+        cpuSeconds1: round(Math.min(cpu['one-a.jsonl']!, cpu['one-b.jsonl']!)),
+        cpuSeconds2: round(Math.min(cpu['two-a.jsonl']!, cpu['two-b.jsonl']!)),
+        // Other processes competing for the 2 cores make the wall-clock figures unreliable.
+        loadAverage: [round(loadBefore), round(loadavg()[0]!)],
       };
     } finally {
       rmSync(dir, { recursive: true, force: true });

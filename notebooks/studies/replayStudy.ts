@@ -49,6 +49,7 @@ export const replayStudy: Study = {
     {
       name: 'source',
       title: 'The log',
+      wide: true,
       caption: 'Which files are replayed. A dropped folder replaces the demo log until the page is reloaded (it is not part of the link).',
       inputs: ['log', 'logFiles'],
       compute: (log: string, files: ReadonlyMap<string, LogFile> | null): FigureOutput => {
@@ -170,8 +171,8 @@ export const replayStudy: Study = {
     { dropzone: 'Drop a flight-log folder here' },
     { figure: 'source' },
     { figure: 'consistency' },
-    { figure: 'estimate' },
     { figure: 'whiteness' },
+    { figure: 'estimate' },
     { figure: 'rows' },
     { prose: 'Changing Q or R replays the log again; the file list does not change. A NIS mean above its interval says the filter is over-confident about its measurements or its motion model; correlated innovations say its model misses a dynamic the data has.' },
   ],

@@ -197,8 +197,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     if (supervisor.aborts > abortsSeen) {
       abortsSeen = supervisor.aborts;
       reacquire = true;
-      // optional recorder method (restarts make a bit-exact replay need it)
-      (recorder as (TrialRecorder & { reset?: (t: number) => void }) | undefined)?.reset?.(t);
+      recorder?.reset?.(t); // a bit-exact replay of a restarted trial needs it
     }
     st.phaseTimes[phase] += dt;
     for (let k = 0; k < 3; k++) st.vLTrue[k] = ls.velocity[k]!;

@@ -84,11 +84,14 @@ export function workerPool(options: PoolOptions): TrialExecutor {
             if (!dispatch(worker) && active === 0) finish();
           };
           const onError = (error: Error) => finish(new TrialError(`worker thread failed: ${error.message}`, true));
+          const onExit = (code: number) => finish(new TrialError(`worker thread stopped (exit code ${code}) during the sweep`, true));
           worker.on('message', onMessage);
           worker.on('error', onError);
+          worker.on('exit', onExit);
           listeners.push(() => {
             worker.off('message', onMessage);
             worker.off('error', onError);
+            worker.off('exit', onExit);
           });
           worker.postMessage({ type: 'init', scenario: job.scenario, seed: job.seed, points: job.points } satisfies WorkerRequest);
         }

@@ -49,6 +49,12 @@ describe('workerPool', () => {
     await expect(pool.run(job, () => {})).rejects.toThrow(/detector\.pixelNoise/);
     await pool.close();
   });
+  it('workerPool fails the job, not hangs, when a worker thread exits mid-job', async () => {
+    const pool = workerPool({ workers: 2, workerPath });
+    const job = { scenario: defaultScenario(), seed: 1, points: [{ 'detector.pixelNoise': 99 }], items: Int32Array.from([0, 0]) };
+    await expect(pool.run(job, () => {})).rejects.toMatchObject({ message: expect.stringMatching(/worker thread stopped \(exit code 3\)/), internal: true });
+    await pool.close();
+  });
   it('workerPool refuses a worker count below 1', () => {
     expect(() => workerPool({ workers: 0, workerPath })).toThrow(/--workers must be a positive integer/);
   });

@@ -1,9 +1,11 @@
 // Reads one CSV stream of a flight log row by row from text lines (browser-safe: no fs),
 // validates each row and hands out the next good one in a reused Float64Array.
 // Bad rows are skipped, counted and reported with file, line and column; nothing else is dropped.
-// Per row it allocates only what String.split does; values land in preallocated slots.
+// Per row it allocates only the field substrings; values land in preallocated slots.
 import { LogLayoutError, ProblemLog } from './LogProblem.js';
-import { BOX_SLOTS, type StreamSpec } from './logStreams.js';
+import type { StreamSpec } from './logStreams.js';
+import { checkRowValues } from './checkRowValues.js';
+import { LineBuffer } from './LineBuffer.js';
 
 /** Boxes with the same arrival time remembered for duplicate detection (frames rarely carry more). */
 const SAME_TIME_MEMORY = 32;
@@ -26,7 +28,7 @@ export class LogStreamReader {
   ignoredColumns: string[] = [];
   /** Which accepted layout the header matched (boxes: 0 = corners, 1 = x/y/w/h). */
   layout = 0;
-  private readonly iterator: AsyncIterator<string>;
+  private readonly lines: LineBuffer;
   private readonly problems: ProblemLog;
   private columnIndex = new Int32Array(0);
   /** For each header field, the value slot it fills (-1: not used). */
@@ -39,12 +41,6 @@ export class LogStreamReader {
   private fieldCount = 0;
   private readonly previous: Float64Array;
   private sameTimeRows = 0;
-  private done = false;
-  /** Chunked input: text split into lines here (the last partial line carried over). */
-  private readonly chunked: boolean;
-  private buffer: string[] = [];
-  private bufferIndex = 0;
-  private carry = '';
 
   /**
    * @param input text lines without line ends, or (chunked = true) text chunks that may split lines anywhere
@@ -52,10 +48,9 @@ export class LogStreamReader {
    */
   constructor(spec: StreamSpec, input: AsyncIterable<string>, problems: ProblemLog, offset = 0, chunked = false) {
     this.spec = spec;
-    this.chunked = chunked;
     this.offset = offset;
     this.problems = problems;
-    this.iterator = input[Symbol.asyncIterator]();
+    this.lines = new LineBuffer(input, chunked);
     const slots = 1 + spec.layouts[0]!.length + spec.optional.length;
     this.values = new Float64Array(slots);
     this.previous = new Float64Array(slots * SAME_TIME_MEMORY);
@@ -67,7 +62,8 @@ export class LogStreamReader {
 
   /** Read the header (first line that is neither blank nor a # comment) and map the columns. */
   async start(): Promise<void> {
-    const header = await this.nextLine();
+    const header = await this.lines.nextLine();
+    this.line = this.lines.line;
     if (header === null) throw new LogLayoutError(this.file, null, null, 'empty file: expected a header line naming the columns');
     // A byte-order mark some spreadsheet programs put in front of the first column is not part of its name.
     const names = (header.charCodeAt(0) === 0xfeff ? header.slice(1) : header).split(',').map((s) => s.trim());
@@ -119,64 +115,23 @@ export class LogStreamReader {
    */
   step(): number {
     for (;;) {
-      const text = this.nextBufferedLine();
-      if (text === undefined) return this.done ? this.finish() : -1;
+      const text = this.lines.next();
+      if (text === undefined) return this.lines.done ? this.finish() : -1;
+      this.line = this.lines.line;
       this.read++;
       if (this.parse(text)) return 1;
       this.skipped++;
     }
   }
 
-  /** Pull the next line (line input) or chunk (chunked input) from the source. */
-  async fill(): Promise<void> {
-    if (this.done) return;
-    const next = await this.iterator.next();
-    if (next.done) {
-      this.done = true;
-      if (this.carry.length > 0) this.buffer.push(this.carry);
-      this.carry = '';
-      return;
-    }
-    if (!this.chunked) {
-      this.buffer.push(next.value);
-      return;
-    }
-    const parts = (this.carry + next.value).split('\n');
-    this.carry = parts.pop()!;
-    this.buffer = this.bufferIndex < this.buffer.length ? this.buffer.slice(this.bufferIndex).concat(parts) : parts;
-    this.bufferIndex = 0;
+  /** Pull more text from the source (see step()). */
+  fill(): Promise<void> {
+    return this.lines.fill();
   }
 
   private finish(): number {
     this.key = Infinity;
     return 0;
-  }
-
-  /** Next non-blank, non-comment line from the buffer (line counter advanced), or undefined. */
-  private nextBufferedLine(): string | undefined {
-    while (this.bufferIndex < this.buffer.length) {
-      const text = this.buffer[this.bufferIndex++]!;
-      if (this.bufferIndex === this.buffer.length) {
-        this.buffer.length = 0;
-        this.bufferIndex = 0;
-      }
-      this.line++;
-      const end = text.charCodeAt(text.length - 1) === 13 /* \r */ ? text.length - 1 : text.length;
-      if (end === 0 || text.charCodeAt(0) === 35 /* # */) continue;
-      const first = text.charCodeAt(0);
-      if ((first === 32 || first === 9 || first === 13) && text.trim() === '') continue;
-      return end === text.length ? text : text.slice(0, end);
-    }
-    return undefined;
-  }
-
-  private async nextLine(): Promise<string | null> {
-    for (;;) {
-      const text = this.nextBufferedLine();
-      if (text !== undefined) return text;
-      if (this.done) return null;
-      await this.fill();
-    }
   }
 
   /** Parse and check one data row into `values`; on a problem, report it and return false. */
@@ -221,45 +176,7 @@ export class LogStreamReader {
       const fallback = this.spec.optional[o]!.fallback;
       v[base + o] = fallback === 'time' ? v[0]! : fallback;
     }
-    return this.checkDomain() && this.checkOrder();
-  }
-
-  private checkDomain(): boolean {
-    const v = this.values;
-    const name = this.spec.name;
-    if (name === 'boxes') {
-      if (this.layout === 1) {
-        // x, y, w, h: top-left corner and size -> corners.
-        if (v[3]! < 0 || v[4]! < 0) {
-          const column = v[3]! < 0 ? 'w' : 'h';
-          this.problems.add('box-inverted', this.file, this.line, column, `${column} ${v[column === 'w' ? 3 : 4]} is negative; row skipped`);
-          return false;
-        }
-        v[BOX_SLOTS.xMax] = v[1]! + v[3]!;
-        v[BOX_SLOTS.yMax] = v[2]! + v[4]!;
-      } else if (v[BOX_SLOTS.xMax]! < v[BOX_SLOTS.xMin]! || v[BOX_SLOTS.yMax]! < v[BOX_SLOTS.yMin]!) {
-        const x = v[BOX_SLOTS.xMax]! < v[BOX_SLOTS.xMin]!;
-        const message = x ? `xMax ${v[BOX_SLOTS.xMax]} is less than xMin ${v[BOX_SLOTS.xMin]}` : `yMax ${v[BOX_SLOTS.yMax]} is less than yMin ${v[BOX_SLOTS.yMin]}`;
-        this.problems.add('box-inverted', this.file, this.line, x ? 'xMax' : 'yMax', `${message}; row skipped`);
-        return false;
-      }
-      if (v[BOX_SLOTS.capture]! > v[BOX_SLOTS.arrival]!) {
-        this.problems.add('capture-after-arrival', this.file, this.line, 'arrival', `arrival ${v[BOX_SLOTS.arrival]} is before capture time ${v[0]}; row skipped`);
-        return false;
-      }
-      const score = v[BOX_SLOTS.score]!;
-      if (score < 0 || score > 1) {
-        this.problems.add('score-out-of-range', this.file, this.line, 'score', `score ${score} is outside [0, 1]; row skipped`);
-        return false;
-      }
-    } else if (name === 'attitude') {
-      const norm = Math.hypot(v[1]!, v[2]!, v[3]!, v[4]!);
-      if (Math.abs(norm - 1) > 1e-3) {
-        this.problems.add('quaternion-not-unit', this.file, this.line, 'qw', `quaternion norm ${norm} differs from 1 by more than 1e-3; row skipped`);
-        return false;
-      }
-    }
-    return true;
+    return checkRowValues(this.spec.name, this.layout, v, this.problems, this.file, this.line) && this.checkOrder();
   }
 
   private checkOrder(): boolean {

@@ -3,7 +3,6 @@ import { defaultScenario } from '../../estimator/io/defaultScenario.js';
 import type { TrialResult } from '../../estimator/sim/TrialResult.js';
 import type { SweepHeader, SweepRecord } from '../../estimator/study/resultsFile.js';
 import { summarize } from '../../estimator/study/summarize.js';
-import { summaryCsv } from '../../estimator/study/summaryTable.js';
 import { expectClose } from '../helpers/expectClose.js';
 import { fakeTrial } from './fakeTrial.js';
 
@@ -52,10 +51,5 @@ describe('summarize(header, records)', () => {
     const [row] = summarize(header, hot);
     expect(row!.neesVerdict).toBe('over-confident');
   });
-  it('summaryCsv has a column per path, the statistics and outcome counts', () => {
-    const csv = summaryCsv(summarize(header, records), ['a', 'b']).split('\n');
-    expect(csv[0]!.startsWith('a,b,trials,landed,successRate,wilsonLow,wilsonHigh')).toBe(true);
-    expect(csv[0]!.endsWith('outcome.diverged')).toBe(true);
-    expect(csv[1]!.startsWith('1,x,29,29,1,')).toBe(true);
-  });
+
 });

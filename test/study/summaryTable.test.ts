@@ -1,0 +1,32 @@
+import { describe, expect, it } from 'vitest';
+import { defaultScenario } from '../../estimator/io/defaultScenario.js';
+import type { SweepHeader, SweepRecord } from '../../estimator/study/resultsFile.js';
+import { summarize } from '../../estimator/study/summarize.js';
+import { summaryCsv, summaryTable } from '../../estimator/study/summaryTable.js';
+import { fakeTrial } from './fakeTrial.js';
+
+const header: SweepHeader = {
+  v: 1, kind: 'alight-sweep', tool: '0.1.0', seed: 3, trials: 30, design: 'grid',
+  vary: [{ path: 'a', values: [1, 2] }, { path: 'b', values: ['x', 'y'] }],
+  points: [{ a: 1, b: 'x' }, { a: 1, b: 'y' }, { a: 2, b: 'x' }, { a: 2, b: 'y' }],
+  scenario: defaultScenario(),
+};
+const records: SweepRecord[] = [];
+for (let t = 0; t < 29; t++) records.push({ v: 1, point: 0, trial: t, params: header.points[0]!, ...fakeTrial(defaultScenario(), { seed: 1, point: 0, trial: t }), outcome: 'landed' });
+for (let t = 0; t < 30; t++) records.push({ v: 1, point: 2, trial: t, params: header.points[2]!, ...fakeTrial(defaultScenario(), { seed: 1, point: 2, trial: t }), outcome: t < 15 ? 'landed' : 'aborted' });
+
+describe('summaryTable and summaryCsv', () => {
+  it('summaryCsv has a column per path, the statistics and outcome counts', () => {
+    const csv = summaryCsv(summarize(header, records), ['a', 'b']).split('\n');
+    expect(csv[0]!.startsWith('a,b,trials,landed,successRate,wilsonLow,wilsonHigh')).toBe(true);
+    expect(csv[0]!.endsWith('outcome.diverged')).toBe(true);
+    expect(csv[1]!.startsWith('1,x,29,29,1,')).toBe(true);
+  });  it('summaryTable shows each point with its Wilson interval, the rule-of-three bound and outcome totals', () => {
+    const text = summaryTable(summarize(header, records));
+    const lines = text.trim().split('\n');
+    expect(lines[0]).toMatch(/^point\s+trials\s+landed\s+success\s+wilson95/);
+    expect(lines[1]).toMatch(/^a=1 b=x\s+29\s+29\s+1\.000\s+0\.883-1\.000 \(r3 >= 0\.897\)/); // Newcombe 1998: 29/29 -> 0.8830
+    expect(lines[2]).toMatch(/^a=2 b=x\s+30\s+15\s+0\.500/);
+    expect(text).toContain('outcomes: landed 44, off-pad 0, hard-contact 0, aborted 15');
+  });
+});

@@ -122,6 +122,15 @@ export const replayCommand: Command = {
         }
       };
     }
+    if (io.interactive) {
+      let shown = 0;
+      settings.onProgress = (rows, time) => {
+        const now = Date.now();
+        if (now - shown < 500) return;
+        shown = now;
+        io.stderr(`\r  replaying: ${(rows / 1e6).toFixed(1)} M rows, log time ${time.toFixed(1)} s   `);
+      };
+    }
     let report: ReplayReport;
     try {
       report = await replayLog(logSourceFromFolder(isAbsolute(folder) ? folder : join(io.cwd, folder), folder), settings);
@@ -133,6 +142,7 @@ export const replayCommand: Command = {
         closeSync(fd);
       }
     }
+    if (io.interactive) io.stderr('\r\x1b[K');
     io.stdout(parsed.flags.has('json') ? JSON.stringify(report) + '\n' : formatReplay(report));
     return 0;
   },

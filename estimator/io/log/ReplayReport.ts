@@ -29,6 +29,8 @@ export interface ReplaySettings {
   onEstimate?: (t: number, x: Float64Array, P: Float64Array, n: number) => void;
   /** Called after every box/odometry update the filter evaluated: measurement time (s), status, NIS (NaN unless accepted or gated). */
   onUpdate?: (time: number, stream: 'boxes' | 'odometry', status: UpdateStatus, nis: number) => void;
+  /** Called every 65,536 rows with the rows merged so far and the current log time (s): progress for long logs. */
+  onProgress?: (rows: number, time: number) => void;
   /** Called for every truth row compared: [t, rx, ry, rz, vcx, vcy, vcz, vlx, vly, vlz] and the filter's x, P then (all reused: copy). */
   onTruth?: (truth: Float64Array, x: Float64Array, P: Float64Array, n: number) => void;
 }

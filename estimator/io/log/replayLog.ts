@@ -76,6 +76,7 @@ export async function replayLog(source: LogSource, settings: ReplaySettings = {}
   }
   readers.sort((a, b) => TIE_ORDER[a.spec.name] - TIE_ORDER[b.spec.name]);
   const replayer = new LogReplayer(spec, camera, settings, readers.some((r) => r.spec.name === 'odometry'));
+  let merged = 0;
 
   for (;;) {
     // k-way merge, k <= 7: a linear scan beats a heap. Readers are sorted by TIE_ORDER, so on
@@ -90,6 +91,7 @@ export async function replayLog(source: LogSource, settings: ReplaySettings = {}
       }
     }
     if (next === null) break;
+    if ((++merged & 0xffff) === 0) settings.onProgress?.(merged, nextKey);
     const outcome = apply(replayer, next.spec.name, next.values);
     if (outcome === '') next.used++;
     else {

@@ -221,3 +221,18 @@ describe('replayLog streams', () => {
     expect(lead).toBeLessThan(0.1); // s: a row or two of the slowest stream (odometry at 20 Hz = 0.05 s)
   });
 });
+
+describe('replayLog progress', () => {
+  it('reports progress every 65,536 merged rows with the log time reached', async () => {
+    const long = mkdtempSync(join(tmpdir(), 'alight-replay-long-'));
+    writeSyntheticLog(long, { duration: 170, truth: false, seed: 8 });
+    const calls: [number, number][] = [];
+    const report = await replayLog(logSourceFromFolder(long), { onProgress: (rows, time) => void calls.push([rows, time]) });
+    const total = Object.values(report.rows).reduce((a, r) => a + r.read, 0);
+    expect(total).toBeGreaterThan(65_536);
+    expect(calls.map(([rows]) => rows)).toEqual(Array.from({ length: Math.floor(total / 65_536) }, (_, i) => (i + 1) * 65_536));
+    // rows of the 200 Hz IMU and attitude streams dominate: 65,536 rows reach about 65,536 / 430 Hz of log time
+    expect(calls[0]![1]).toBeGreaterThan(100);
+    expect(calls[0]![1]).toBeLessThan(170);
+  });
+});

@@ -50,6 +50,10 @@ export const summarizeCommand: Command = {
         }
         io.stderr(`alight summarize: skipped ${results.problems.length} bad line(s), counted ${results.records.length} trials:\n${listing}\n`);
       }
+      const expected = results.header.points.length * results.header.trials;
+      const shard = results.header.shard;
+      if (shard) io.stderr(`alight summarize: ${name} is shard ${shard.index}/${shard.count} only; alight merge joins the shards\n`);
+      else if (results.records.length < expected) io.stderr(`alight summarize: ${name} holds ${results.records.length} of ${expected} trials (an unfinished sweep? alight sweep --resume completes it)\n`);
       const by = parsed.values.get('by');
       const records = results.records.map((r) => r.record);
       const summaries = summarize(results.header, records, by);

@@ -55,6 +55,7 @@ describe('alight summarize', () => {
     const io = fakeIo(dir);
     expect(await main(['summarize', 'bad.jsonl', '--json', '--skip-bad'], io)).toBe(0);
     expect(io.err.join('')).toMatch(/skipped 2 bad line\(s\), counted 119 trials/);
+    expect(io.err.join('')).toContain('bad.jsonl holds 119 of 120 trials');
     const rows = JSON.parse(io.out.join('')) as { trials: number }[];
     expect(rows.map((r) => r.trials)).toEqual([40, 40, 39]);
   });

@@ -16,7 +16,7 @@ import { cameraSummary } from './cameraCommand.js';
 
 const OPTIONS: OptionSpec[] = [
   { name: 'seed', kind: 'value', valueName: 'N', help: "master seed of the trial's random streams (default: the scenario's seed)" },
-  { name: 'trace', kind: 'value', valueName: 'FILE.csv', help: 'write one CSV row per step: t, phase, truth, estimate, sigma, box, command' },
+  { name: 'trace', kind: 'value', valueName: 'FILE.csv', help: 'write one CSV row per step: t, phase, truth, estimate, sigma, box, command, camera update (status, NIS, dim), true outline box' },
   { name: 'json', kind: 'flag', help: 'print one JSON object with every result field instead of the summary' },
   { name: 'help', kind: 'flag', help: 'show this help' },
 ];

@@ -122,6 +122,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       st.rTrue[k] = cs.position[k]! - ls.position[k]!;
       st.vCTrue[k] = cs.velocity[k]!;
     }
+    st.clearStep();
     // IMU -> filter propagation
     if (t >= nextImu - eps) {
       nextImu += imuPeriod;
@@ -149,12 +150,12 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     if (t >= nextCapture - eps) {
       nextCapture += capturePeriod;
       const frame = detector.observe(t, ls, cs);
+      st.noteOutline(detector.lastTruth.box);
       if (frame) st.boxes++;
       else if (detector.lastTruth.visible) st.dropped++;
       if (frame && pendingCount < PENDING) pending[(pendingHead + pendingCount++) % PENDING] = frame;
       for (let i = 0; i < detector.falseFrameCount && pendingCount < PENDING; i++) pending[(pendingHead + pendingCount++) % PENDING] = detector.falseFrames[i]!;
     }
-    st.lastBox = null;
     while (pendingCount > 0 && pending[pendingHead]!.arrivalTime <= t + eps) {
       const frame = pending[pendingHead]!;
       pendingHead = (pendingHead + 1) % PENDING;
@@ -162,6 +163,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       const stamp = errors.cameraTimestamp(frame.captureTime);
       recorder?.box(t, stamp, frame.box, 1);
       st.lastBox = frame.box;
+      st.lastUpdate = null; // the update (if any) of this box, not of an earlier one this step
       // (re-)acquisition: the first box, after a divergence, and after an abort (a lost target
       // may have been a false box all along, so the estimate starts afresh from the next box)
       // The filter starts at the box's arrival time (as replay does, io/log/LAYOUT.md); a box
@@ -178,6 +180,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
         continue;
       }
       const r = filter.updateBox(Math.min(stamp, filter.time), frame.box);
+      st.noteUpdate(r);
       if (r.status === 'accepted') {
         lastSeen = t;
         st.addNis(r.nis);

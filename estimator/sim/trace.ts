@@ -1,6 +1,7 @@
 // One row per simulation step, for plotting elsewhere (`alight simulate --trace`) and for
 // notebooks (runTrial's onStep). Rows are fresh objects: keep them if you like.
 import type { Box } from '../camera/Box.js';
+import type { UpdateStatus } from '../models/LandingFilter.js';
 import type { Phase } from './TrialResult.js';
 
 /** Three 3-vectors of one side (truth, estimate or its 1-sigma): r = p_carrier - p_lander (m), vC, vL (m/s), world ENU. */
@@ -22,22 +23,41 @@ export interface TraceRow {
   box: Box | null;
   /** Lander velocity command (m/s, world ENU). */
   command: [number, number, number];
+  /**
+   * Camera update of this step's box (the same box as `box`): its status ('gated' = refused by
+   * the chi-square gate), NIS = y' S^-1 y and its dimension. All null when no box updated the
+   * filter this step (none arrived, or the box started the filter); nis is NaN when the status
+   * leaves it undefined ('rejected', 'diverged').
+   */
+  update: UpdateStatus | null;
+  nis: number | null;
+  nisDim: number | null;
+  /**
+   * Noise-free box of the carrier's true 3-D outline in the true camera, clipped to the image
+   * (px), for the frame captured this step; null without a capture this step, or when none of
+   * the outline is in the image (or it is behind the camera).
+   */
+  outline: Box | null;
 }
 
 const AXES = ['x', 'y', 'z'];
 const triple = (prefix: string) => ['r', 'vC', 'vL'].flatMap((v) => AXES.map((a) => `${prefix}${v}_${a}`));
 
-/** CSV header: t, phase, truth r/vC/vL, estimate, sigma, box corners, command. */
+/** CSV header: t, phase, truth r/vC/vL, estimate, sigma, box corners, command, camera update (status, NIS, dim), true outline corners. */
 export const TRACE_COLUMNS: readonly string[] = [
   't', 'phase', ...triple(''), ...triple('est_'), ...triple('sigma_'),
   'box_xMin', 'box_yMin', 'box_xMax', 'box_yMax', 'cmd_x', 'cmd_y', 'cmd_z',
+  'update', 'nis', 'nis_dim', 'outline_xMin', 'outline_yMin', 'outline_xMax', 'outline_yMax',
 ];
 
 const num = (v: number) => (Number.isFinite(v) ? String(Number(v.toPrecision(9))) : '');
 const cells = (t: RelativeTriple | null): string[] => (t ? [...t.r, ...t.vC, ...t.vL].map(num) : new Array<string>(9).fill(''));
+const corners = (b: Box | null): string[] => (b ? [b.xMin, b.yMin, b.xMax, b.yMax].map(num) : ['', '', '', '']);
 
-/** One CSV line (no newline); empty cells where there is no estimate or box. */
+/** One CSV line (no newline); empty cells where there is no estimate, box, update or outline. */
 export function traceCsvLine(row: TraceRow): string {
-  const box = row.box ? [row.box.xMin, row.box.yMin, row.box.xMax, row.box.yMax].map(num) : ['', '', '', ''];
-  return [num(row.t), row.phase, ...cells(row.truth), ...cells(row.estimate), ...cells(row.sigma), ...box, ...row.command.map(num)].join(',');
+  return [
+    num(row.t), row.phase, ...cells(row.truth), ...cells(row.estimate), ...cells(row.sigma), ...corners(row.box), ...row.command.map(num),
+    row.update ?? '', row.nis === null ? '' : num(row.nis), row.nisDim === null ? '' : String(row.nisDim), ...corners(row.outline),
+  ].join(',');
 }

@@ -5,6 +5,7 @@
 //   neesMean     = mean relative pos+vel NEES (dim 6), nisMean = mean NIS of accepted boxes (dim 3)
 // Means over no samples are NaN (JSON null).
 import type { Box } from '../camera/Box.js';
+import type { UpdateResult, UpdateStatus } from '../models/LandingFilter.js';
 import type { Outcome, Phase, TrialResult } from './TrialResult.js';
 import type { TouchdownJudgement } from './touchdown.js';
 import type { RelativeTriple, TraceRow } from './trace.js';
@@ -35,6 +36,13 @@ export class TrialState {
   dropped = 0;
   gateRejections = 0;
   lastBox: Box | null = null;
+  /** Camera update of lastBox this step (status null: none); NIS and its dimension. */
+  lastUpdate: UpdateStatus | null = null;
+  lastNis = Number.NaN;
+  lastNisDim = 0;
+  /** True outline box of the frame captured this step (copied in place), when haveOutline. */
+  readonly outline: Box = { xMin: NaN, yMin: NaN, xMax: NaN, yMax: NaN };
+  haveOutline = false;
   readonly phaseTimes: Record<Phase, number> = { acquire: 0, trail: 0, align: 0, descend: 0, touchdown: 0 };
   private divergence: string | null = null;
   private nisSum = 0;
@@ -48,6 +56,27 @@ export class TrialState {
 
   constructor(readonly n: number) {
     this.pDiagonal = new Float64Array(n);
+  }
+
+  /** Forget this step's box, update and outline (call at the start of each step). */
+  clearStep(): void {
+    this.lastBox = null;
+    this.lastUpdate = null;
+    this.haveOutline = false;
+  }
+
+  /** Note the camera update of this step's box. */
+  noteUpdate(r: UpdateResult): void {
+    this.lastUpdate = r.status;
+    this.lastNis = r.nis;
+    this.lastNisDim = r.dim;
+  }
+
+  /** Copy the true outline of the frame captured this step, if any of it is in the image (NaN corners: behind the camera). */
+  noteOutline(box: Box): void {
+    this.haveOutline = box.xMax > box.xMin && box.yMax > box.yMin; // false for NaN corners too
+    if (!this.haveOutline) return;
+    this.outline.xMin = box.xMin; this.outline.yMin = box.yMin; this.outline.xMax = box.xMax; this.outline.yMax = box.yMax;
   }
 
   /** Keep the first named divergence event. */
@@ -101,6 +130,10 @@ export class TrialState {
       sigma: sd ? triple(sd) : null,
       box: this.lastBox ? { ...this.lastBox } : null,
       command: vec(this.command, 0),
+      update: this.lastUpdate,
+      nis: this.lastUpdate === null ? null : this.lastNis,
+      nisDim: this.lastUpdate === null ? null : this.lastNisDim,
+      outline: this.haveOutline ? { ...this.outline } : null,
     };
   }
 

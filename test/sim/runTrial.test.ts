@@ -120,6 +120,24 @@ describe('runTrial', () => {
     expect(rows[299]!.estimate).not.toBeNull();
     expect(rows[299]!.sigma!.r[0]).toBeGreaterThan(0);
     expect(rows.filter((r) => r.box !== null).length).toBeGreaterThan(50);
+    // every camera update is on a row with its box; its NIS and dimension come with it
+    const updates = rows.filter((r) => r.update !== null);
+    expect(updates.length).toBeGreaterThan(50);
+    for (const r of updates) {
+      expect(r.box).not.toBeNull();
+      expect(r.nisDim).toBe(3);
+      if (r.update === 'accepted' || r.update === 'gated') expect(r.nis!).toBeGreaterThanOrEqual(0);
+    }
+    for (const r of rows) if (r.update === null) expect([r.nis, r.nisDim]).toEqual([null, null]);
+    // the true outline comes with each capture: 30 frames per second, contains no noise, lies in the image
+    const outlines = rows.filter((r) => r.outline !== null);
+    expect(outlines.length).toBeGreaterThanOrEqual(80);
+    expect(outlines.length).toBeLessThanOrEqual(91);
+    for (const r of outlines) {
+      expect(r.outline!.xMin).toBeGreaterThanOrEqual(0);
+      expect(r.outline!.xMax).toBeGreaterThan(r.outline!.xMin);
+      expect(r.outline!.yMax).toBeGreaterThan(r.outline!.yMin);
+    }
     expect(calls.imu).toHaveLength(300); // IMU at 100 Hz
     expect(calls.odometry).toHaveLength(31); // odometry at 10 Hz: the first step, then 0.1 s ... 3 s
     expect(calls.truth).toHaveLength(300);

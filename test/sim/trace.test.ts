@@ -9,6 +9,10 @@ const row: TraceRow = {
   sigma: null,
   box: { xMin: 300.5, yMin: 200, xMax: 340, yMax: 250.25 },
   command: [3.2, 0, 0],
+  update: 'gated',
+  nis: 14.75,
+  nisDim: 3,
+  outline: { xMin: 298, yMin: 199, xMax: 342.5, yMax: 251 },
 };
 
 describe('traceCsvLine', () => {
@@ -20,6 +24,17 @@ describe('traceCsvLine', () => {
     expect(cells[TRACE_COLUMNS.indexOf('est_r_x')]).toBe('');
     expect(cells[TRACE_COLUMNS.indexOf('box_yMax')]).toBe('250.25');
     expect(cells[TRACE_COLUMNS.indexOf('cmd_x')]).toBe('3.2');
+  });
+
+  it('appends the camera update and the true outline after the original columns', () => {
+    // the original 36 columns keep their places; the new ones follow
+    expect(TRACE_COLUMNS.indexOf('cmd_z')).toBe(35);
+    expect(TRACE_COLUMNS.slice(36)).toEqual(['update', 'nis', 'nis_dim', 'outline_xMin', 'outline_yMin', 'outline_xMax', 'outline_yMax']);
+    const cells = traceCsvLine(row).split(',');
+    expect(cells.slice(36)).toEqual(['gated', '14.75', '3', '298', '199', '342.5', '251']);
+    const none = traceCsvLine({ ...row, update: null, nis: null, nisDim: null, outline: null }).split(',');
+    expect(none).toHaveLength(TRACE_COLUMNS.length);
+    expect(none.slice(36)).toEqual(['', '', '', '', '', '', '']);
   });
 
   it('leaves the box cells empty without a box and rounds to 9 significant digits', () => {

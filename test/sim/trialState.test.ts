@@ -58,4 +58,23 @@ describe('TrialState', () => {
     expect(row.box!.xMin).toBe(1); // copied, not shared
     expect(s.row(1.6, 'trail', null, null).estimate).toBeNull();
   });
+
+  it('carries this step\'s camera update and true outline into the row, and clears them per step', () => {
+    const s = new TrialState(12);
+    s.noteUpdate({ status: 'gated', nis: 21.5, dim: 3, reason: null });
+    s.noteOutline({ xMin: 10, yMin: 20, xMax: 30, yMax: 45 });
+    const row = s.row(2, 'align', null, null);
+    expect([row.update, row.nis, row.nisDim]).toEqual(['gated', 21.5, 3]);
+    expect(row.outline).toEqual({ xMin: 10, yMin: 20, xMax: 30, yMax: 45 });
+    s.noteOutline({ xMin: 11, yMin: 20, xMax: 30, yMax: 45 });
+    expect(row.outline!.xMin).toBe(10); // copied, not shared
+    s.noteOutline({ xMin: NaN, yMin: NaN, xMax: NaN, yMax: NaN }); // behind the camera
+    expect(s.row(2.01, 'align', null, null).outline).toBeNull();
+    s.noteOutline({ xMin: 640, yMin: 20, xMax: 640, yMax: 45 }); // clipped away: off the image
+    expect(s.row(2.02, 'align', null, null).outline).toBeNull();
+    s.noteOutline({ xMin: 10, yMin: 20, xMax: 30, yMax: 45 });
+    s.clearStep();
+    const next = s.row(2.03, 'align', null, null);
+    expect([next.update, next.nis, next.nisDim, next.outline, next.box]).toEqual([null, null, null, null, null]);
+  });
 });

@@ -80,11 +80,11 @@ export function tuneCost(report: ReplayReport, criterion: TuneCriterion): number
 export async function tuneLogSource(source: LogSource, options: TuneLogOptions = {}): Promise<TuneLogResult> {
   const base: ReplaySettings = { filter: options.filter, filterSource: options.filterSource, filterLines: options.filterLines, lags: options.lags };
   const spec: FilterSpec = replayFilterSpec(source, base);
-  const hasTruth = source.open('truth') !== null;
-  const criterion: TuneCriterion = options.criterion ?? (hasTruth ? 'nees' : 'nis');
-  if (criterion === 'nees' && !hasTruth) throw new RangeError('tuning by NEES needs truth.csv in the log; use the NIS criterion');
   const replayWith = (m: Multipliers) => replayLog(source, { ...base, filter: { ...spec, qScale: m.q, rScale: m.r, gateScale: m.gate }, filterSource: 'tuning' });
   const baselineReport = await replayWith({ q: spec.qScale, r: spec.rScale, gate: spec.gateScale });
+  const hasTruth = baselineReport.rows.truth !== undefined;
+  const criterion: TuneCriterion = options.criterion ?? (hasTruth ? 'nees' : 'nis');
+  if (criterion === 'nees' && !hasTruth) throw new RangeError('tuning by NEES needs truth.csv in the log; use the NIS criterion');
   const reports = new Map<string, ReplayReport>();
   const result = await searchMultipliers(
     async (m) => {

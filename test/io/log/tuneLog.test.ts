@@ -35,3 +35,11 @@ describe('tuneLog', () => {
     expect(result.caution).toMatch(/clear nothing for flight/);
   });
 });
+
+describe('tuneLog refuses', () => {
+  it('the NEES criterion on a log without truth', async () => {
+    const blind = mkdtempSync(join(tmpdir(), 'alight-tune-blind-'));
+    writeSyntheticLog(blind, { duration: 3, truth: false, seed: 6 });
+    await expect(tuneLog(blind, { criterion: 'nees', grid: 1, refine: 0 })).rejects.toThrow('tuning by NEES needs truth.csv');
+  });
+});

@@ -57,6 +57,13 @@ export class LineBuffer {
     this.index = 0;
   }
 
+  /** Let go of the source early (e.g. after a layout error): closes a file stream. */
+  async close(): Promise<void> {
+    if (this.done) return;
+    this.done = true;
+    await this.iterator.return?.();
+  }
+
   /** Next line, waiting for the source as needed; null at the end. */
   async nextLine(): Promise<string | null> {
     for (;;) {

@@ -124,6 +124,11 @@ export class LogStreamReader {
     }
   }
 
+  /** Release the source (a no-op once it is read to the end). */
+  close(): Promise<void> {
+    return this.lines.close();
+  }
+
   /** Pull more text from the source (see step()). */
   fill(): Promise<void> {
     return this.lines.fill();

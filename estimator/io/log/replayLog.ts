@@ -10,7 +10,7 @@ import { LogReplayer, type RowOutcome } from './LogReplayer.js';
 import { UnparsedJson, type LogSource } from './LogSource.js';
 import { LogStreamReader } from './LogStreamReader.js';
 import { LOG_STREAMS, REQUIRED_STREAMS, STREAM_SPECS, type LogStreamName } from './logStreams.js';
-import { parseLogCamera } from './parseLogCamera.js';
+import { parseLogCamera, type LogCamera } from './parseLogCamera.js';
 import { REPLAY_CAUTION, type ReplayReport, type ReplaySettings, type StreamRows } from './ReplayReport.js';
 import { whitenessSummary } from './ReplayStatistics.js';
 
@@ -65,14 +65,28 @@ export async function replayLog(source: LogSource, settings: ReplaySettings = {}
     const chunks = source.openChunks ? source.openChunks(name) : null;
     const lines = chunks ?? source.open(name);
     if (lines === null) {
-      if (REQUIRED_STREAMS.includes(name)) throw new LogLayoutError(source.fileName(name), null, null, 'missing: a flight log needs boxes.csv, imu.csv and attitude.csv (see the flight-log layout)');
+      if (REQUIRED_STREAMS.includes(name)) {
+        await Promise.all(readers.map((r) => r.close()));
+        throw new LogLayoutError(source.fileName(name), null, null, 'missing: a flight log needs boxes.csv, imu.csv and attitude.csv (see the flight-log layout)');
+      }
       continue;
     }
     const reader = new LogStreamReader(STREAM_SPECS[name], lines, problems, camera.timeOffsets[name] ?? 0, chunks !== null);
-    await reader.start();
-    await reader.advance();
     readers.push(reader);
     unused.set(reader, {});
+  }
+  try {
+    return await merge(source, spec, level, settings, camera, readers, unused, problems);
+  } finally {
+    // After a layout error (or any other), no file stays open; after a full read this does nothing.
+    await Promise.all(readers.map((r) => r.close()));
+  }
+}
+
+async function merge(source: LogSource, spec: FilterSpec, level: number, settings: ReplaySettings, camera: LogCamera, readers: LogStreamReader[], unused: Map<LogStreamReader, Record<string, number>>, problems: ProblemLog): Promise<ReplayReport> {
+  for (const reader of readers) {
+    await reader.start();
+    await reader.advance();
   }
   readers.sort((a, b) => TIE_ORDER[a.spec.name] - TIE_ORDER[b.spec.name]);
   const replayer = new LogReplayer(spec, camera, settings, readers.some((r) => r.spec.name === 'odometry'));

@@ -222,6 +222,30 @@ describe('replayLog streams', () => {
   });
 });
 
+describe('replayLog closes what it opened', () => {
+  it('lets go of every file after a layout error in one of them', async () => {
+    const texts = withFile('odometry.csv', (t) => t.replace('time,vx,vy,vz', 'time,vx,vy'));
+    const source = await logSourceFromFiles(texts);
+    const closed: string[] = [];
+    const original = source.openChunks!.bind(source);
+    const watched = { ...source, openChunks: (stream: Parameters<typeof original>[0]) => {
+      const chunks = original(stream);
+      if (chunks === null) return null;
+      return (async function* () {
+        try {
+          yield* chunks;
+        } finally {
+          closed.push(stream);
+        }
+      })();
+    } };
+    await expect(replayLog(watched)).rejects.toThrow('odometry.csv:1 vz: missing column "vz"');
+    // truth.csv was next in line and never started: a generator that never ran has nothing to
+    // close (a file stream is destroyed by return() all the same).
+    expect(closed.sort()).toEqual(['attitude', 'boxes', 'imu', 'odometry']);
+  });
+});
+
 describe('replayLog progress', () => {
   it('reports progress every 65,536 merged rows with the log time reached', async () => {
     const long = mkdtempSync(join(tmpdir(), 'alight-replay-long-'));

@@ -163,7 +163,6 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       const stamp = errors.cameraTimestamp(frame.captureTime);
       recorder?.box(t, stamp, frame.box, 1);
       st.lastBox = frame.box;
-      st.lastUpdate = null; // the update (if any) of this box, not of an earlier one this step
       // (re-)acquisition: the first box, after a divergence, and after an abort (a lost target
       // may have been a false box all along, so the estimate starts afresh from the next box)
       // The filter starts at the box's arrival time (as replay does, io/log/LAYOUT.md); a box
@@ -180,7 +179,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
         continue;
       }
       const r = filter.updateBox(Math.min(stamp, filter.time), frame.box);
-      st.noteUpdate(r);
+      st.noteUpdate(frame.box, r);
       if (r.status === 'accepted') {
         lastSeen = t;
         st.addNis(r.nis);

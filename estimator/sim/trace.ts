@@ -11,6 +11,14 @@ export interface RelativeTriple {
   vL: [number, number, number];
 }
 
+/** One box update of the filter: status ('gated' = refused by the chi-square gate), NIS = y' S^-1 y (NaN when undefined: 'rejected', 'diverged') and its dimension. */
+export interface CameraUpdate {
+  box: Box;
+  status: UpdateStatus;
+  nis: number;
+  dim: number;
+}
+
 export interface TraceRow {
   /** Simulation time (s). */
   t: number;
@@ -24,11 +32,11 @@ export interface TraceRow {
   /** Lander velocity command (m/s, world ENU). */
   command: [number, number, number];
   /**
-   * Camera update of this step's box (the same box as `box`): its status ('gated' = refused by
-   * the chi-square gate), NIS = y' S^-1 y and its dimension. All null when no box updated the
-   * filter this step (none arrived, or the box started the filter); nis is NaN when the status
-   * leaves it undefined ('rejected', 'diverged').
+   * Every camera update of this step, in order: usually none or one, several when a false box
+   * or a delayed frame arrives in the same step. A box that starts the filter is no update.
    */
+  updates: CameraUpdate[];
+  /** The last of `updates` (status, NIS, dimension), all null when there is none. */
   update: UpdateStatus | null;
   nis: number | null;
   nisDim: number | null;
@@ -43,21 +51,22 @@ export interface TraceRow {
 const AXES = ['x', 'y', 'z'];
 const triple = (prefix: string) => ['r', 'vC', 'vL'].flatMap((v) => AXES.map((a) => `${prefix}${v}_${a}`));
 
-/** CSV header: t, phase, truth r/vC/vL, estimate, sigma, box corners, command, camera update (status, NIS, dim), true outline corners. */
+/** CSV header: t, phase, truth r/vC/vL, estimate, sigma, box corners, command, last camera update (status, NIS, dim), true outline corners, number of camera updates. */
 export const TRACE_COLUMNS: readonly string[] = [
   't', 'phase', ...triple(''), ...triple('est_'), ...triple('sigma_'),
   'box_xMin', 'box_yMin', 'box_xMax', 'box_yMax', 'cmd_x', 'cmd_y', 'cmd_z',
-  'update', 'nis', 'nis_dim', 'outline_xMin', 'outline_yMin', 'outline_xMax', 'outline_yMax',
+  'update', 'nis', 'nis_dim', 'outline_xMin', 'outline_yMin', 'outline_xMax', 'outline_yMax', 'updates',
 ];
 
 const num = (v: number) => (Number.isFinite(v) ? String(Number(v.toPrecision(9))) : '');
 const cells = (t: RelativeTriple | null): string[] => (t ? [...t.r, ...t.vC, ...t.vL].map(num) : new Array<string>(9).fill(''));
 const corners = (b: Box | null): string[] => (b ? [b.xMin, b.yMin, b.xMax, b.yMax].map(num) : ['', '', '', '']);
 
-/** One CSV line (no newline); empty cells where there is no estimate, box, update or outline. */
+/** One CSV line (no newline); empty cells where there is no estimate, box, update or outline; the last update of a step when there are several. */
 export function traceCsvLine(row: TraceRow): string {
   return [
     num(row.t), row.phase, ...cells(row.truth), ...cells(row.estimate), ...cells(row.sigma), ...corners(row.box), ...row.command.map(num),
     row.update ?? '', row.nis === null ? '' : num(row.nis), row.nisDim === null ? '' : String(row.nisDim), ...corners(row.outline),
+    String(row.updates.length),
   ].join(',');
 }

@@ -5,10 +5,10 @@
 //   neesMean     = mean relative pos+vel NEES (dim 6), nisMean = mean NIS of accepted boxes (dim 3)
 // Means over no samples are NaN (JSON null).
 import type { Box } from '../camera/Box.js';
-import type { UpdateResult, UpdateStatus } from '../models/LandingFilter.js';
+import type { UpdateResult } from '../models/LandingFilter.js';
 import type { Outcome, Phase, TrialResult } from './TrialResult.js';
 import type { TouchdownJudgement } from './touchdown.js';
-import type { RelativeTriple, TraceRow } from './trace.js';
+import type { CameraUpdate, RelativeTriple, TraceRow } from './trace.js';
 
 export interface TrialEnd {
   touchdown: TouchdownJudgement | null;
@@ -36,10 +36,9 @@ export class TrialState {
   dropped = 0;
   gateRejections = 0;
   lastBox: Box | null = null;
-  /** Camera update of lastBox this step (status null: none); NIS and its dimension. */
-  lastUpdate: UpdateStatus | null = null;
-  lastNis = Number.NaN;
-  lastNisDim = 0;
+  /** Camera updates of this step: updatePool[0 .. updateCount - 1] (the pool only grows). */
+  updateCount = 0;
+  private readonly updatePool: CameraUpdate[] = [];
   /** True outline box of the frame captured this step (copied in place), when haveOutline. */
   readonly outline: Box = { xMin: NaN, yMin: NaN, xMax: NaN, yMax: NaN };
   haveOutline = false;
@@ -61,15 +60,22 @@ export class TrialState {
   /** Forget this step's box, update and outline (call at the start of each step). */
   clearStep(): void {
     this.lastBox = null;
-    this.lastUpdate = null;
+    this.updateCount = 0;
     this.haveOutline = false;
   }
 
-  /** Note the camera update of this step's box. */
-  noteUpdate(r: UpdateResult): void {
-    this.lastUpdate = r.status;
-    this.lastNis = r.nis;
-    this.lastNisDim = r.dim;
+  /** Note a camera update of this step (box and result copied into a reused slot). */
+  noteUpdate(box: Box, r: UpdateResult): void {
+    let u = this.updatePool[this.updateCount];
+    if (u === undefined) {
+      u = { box: { xMin: 0, yMin: 0, xMax: 0, yMax: 0 }, status: 'accepted', nis: Number.NaN, dim: 0 };
+      this.updatePool.push(u);
+    }
+    u.box.xMin = box.xMin; u.box.yMin = box.yMin; u.box.xMax = box.xMax; u.box.yMax = box.yMax;
+    u.status = r.status;
+    u.nis = r.nis;
+    u.dim = r.dim;
+    this.updateCount++;
   }
 
   /** Copy the true outline of the frame captured this step, if any of it is in the image (NaN corners: behind the camera). */
@@ -122,6 +128,8 @@ export class TrialState {
     truth.set(this.rTrue, 0);
     truth.set(this.vCTrue, 3);
     truth.set(this.vLTrue, 6);
+    const updates = this.updatePool.slice(0, this.updateCount).map((u) => ({ ...u, box: { ...u.box } }));
+    const last = updates[updates.length - 1];
     return {
       t,
       phase,
@@ -130,9 +138,10 @@ export class TrialState {
       sigma: sd ? triple(sd) : null,
       box: this.lastBox ? { ...this.lastBox } : null,
       command: vec(this.command, 0),
-      update: this.lastUpdate,
-      nis: this.lastUpdate === null ? null : this.lastNis,
-      nisDim: this.lastUpdate === null ? null : this.lastNisDim,
+      updates,
+      update: last ? last.status : null,
+      nis: last ? last.nis : null,
+      nisDim: last ? last.dim : null,
       outline: this.haveOutline ? { ...this.outline } : null,
     };
   }

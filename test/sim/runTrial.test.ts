@@ -113,22 +113,29 @@ describe('runTrial', () => {
       truth: (t) => void calls.truth!.push(t),
       estimate: (t) => void calls.estimate!.push(t),
     };
-    runTrial(s, { onStep: (row) => void rows.push(row), recorder });
+    const result = runTrial(s, { onStep: (row) => void rows.push(row), recorder });
     expect(rows).toHaveLength(300);
     expectClose(rows[299]!.t, 3, { abs: 1e-9 }, 'last step at the duration (float steps)');
     expect(rows[0]!.estimate).toBeNull();
     expect(rows[299]!.estimate).not.toBeNull();
     expect(rows[299]!.sigma!.r[0]).toBeGreaterThan(0);
     expect(rows.filter((r) => r.box !== null).length).toBeGreaterThan(50);
-    // every camera update is on a row with its box; its NIS and dimension come with it
-    const updates = rows.filter((r) => r.update !== null);
+    // every camera update is on a row with a box; its NIS and dimension come with it, and the
+    // accepted ones are exactly those the trial result averages
+    const updates = rows.flatMap((r) => r.updates);
     expect(updates.length).toBeGreaterThan(50);
-    for (const r of updates) {
-      expect(r.box).not.toBeNull();
-      expect(r.nisDim).toBe(3);
-      if (r.update === 'accepted' || r.update === 'gated') expect(r.nis!).toBeGreaterThanOrEqual(0);
+    for (const r of rows) {
+      if (r.updates.length > 0) expect(r.box).not.toBeNull();
+      if (r.updates.length === 0) expect([r.update, r.nis, r.nisDim]).toEqual([null, null, null]);
     }
-    for (const r of rows) if (r.update === null) expect([r.nis, r.nisDim]).toEqual([null, null]);
+    for (const u of updates) {
+      expect(u.dim).toBe(3);
+      if (u.status === 'accepted' || u.status === 'gated') expect(u.nis).toBeGreaterThanOrEqual(0);
+    }
+    const accepted = updates.filter((u) => u.status === 'accepted');
+    expect(accepted.length).toBe(result.nisCount);
+    expectClose(accepted.reduce((a, u) => a + u.nis, 0) / accepted.length, result.nisMean, { rel: 1e-12 }, 'mean NIS (summation order)');
+    expect(updates.filter((u) => u.status === 'gated').length).toBe(result.gateRejections);
     // the true outline comes with each capture: 30 frames per second, contains no noise, lies in the image
     const outlines = rows.filter((r) => r.outline !== null);
     expect(outlines.length).toBeGreaterThanOrEqual(80);

@@ -9,6 +9,10 @@ const row: TraceRow = {
   sigma: null,
   box: { xMin: 300.5, yMin: 200, xMax: 340, yMax: 250.25 },
   command: [3.2, 0, 0],
+  updates: [
+    { box: { xMin: 10, yMin: 10, xMax: 30, yMax: 40 }, status: 'accepted', nis: 2.5, dim: 3 },
+    { box: { xMin: 300.5, yMin: 200, xMax: 340, yMax: 250.25 }, status: 'gated', nis: 14.75, dim: 3 },
+  ],
   update: 'gated',
   nis: 14.75,
   nisDim: 3,
@@ -29,12 +33,12 @@ describe('traceCsvLine', () => {
   it('appends the camera update and the true outline after the original columns', () => {
     // the original 36 columns keep their places; the new ones follow
     expect(TRACE_COLUMNS.indexOf('cmd_z')).toBe(35);
-    expect(TRACE_COLUMNS.slice(36)).toEqual(['update', 'nis', 'nis_dim', 'outline_xMin', 'outline_yMin', 'outline_xMax', 'outline_yMax']);
+    expect(TRACE_COLUMNS.slice(36)).toEqual(['update', 'nis', 'nis_dim', 'outline_xMin', 'outline_yMin', 'outline_xMax', 'outline_yMax', 'updates']);
     const cells = traceCsvLine(row).split(',');
-    expect(cells.slice(36)).toEqual(['gated', '14.75', '3', '298', '199', '342.5', '251']);
-    const none = traceCsvLine({ ...row, update: null, nis: null, nisDim: null, outline: null }).split(',');
+    expect(cells.slice(36)).toEqual(['gated', '14.75', '3', '298', '199', '342.5', '251', '2']); // the last of two updates
+    const none = traceCsvLine({ ...row, updates: [], update: null, nis: null, nisDim: null, outline: null }).split(',');
     expect(none).toHaveLength(TRACE_COLUMNS.length);
-    expect(none.slice(36)).toEqual(['', '', '', '', '', '', '']);
+    expect(none.slice(36)).toEqual(['', '', '', '', '', '', '', '0']);
   });
 
   it('leaves the box cells empty without a box and rounds to 9 significant digits', () => {

@@ -61,10 +61,18 @@ describe('TrialState', () => {
 
   it('carries this step\'s camera update and true outline into the row, and clears them per step', () => {
     const s = new TrialState(12);
-    s.noteUpdate({ status: 'gated', nis: 21.5, dim: 3, reason: null });
+    const box = { xMin: 1, yMin: 2, xMax: 3, yMax: 4 };
+    s.noteUpdate(box, { status: 'accepted', nis: 1.5, dim: 3, reason: null });
+    box.xMin = 5;
+    s.noteUpdate(box, { status: 'gated', nis: 21.5, dim: 3, reason: null });
     s.noteOutline({ xMin: 10, yMin: 20, xMax: 30, yMax: 45 });
     const row = s.row(2, 'align', null, null);
-    expect([row.update, row.nis, row.nisDim]).toEqual(['gated', 21.5, 3]);
+    expect(row.updates.map((u) => [u.status, u.nis, u.dim, u.box.xMin])).toEqual([['accepted', 1.5, 3, 1], ['gated', 21.5, 3, 5]]);
+    expect([row.update, row.nis, row.nisDim]).toEqual(['gated', 21.5, 3]); // the last update
+    s.clearStep();
+    s.noteUpdate(box, { status: 'rejected', nis: Number.NaN, dim: 3, reason: 'r' }); // reuses the first slot
+    expect(row.updates[0]!.status).toBe('accepted'); // rows hold copies
+    expect(s.row(2.005, 'align', null, null).updates.map((u) => u.status)).toEqual(['rejected']);
     expect(row.outline).toEqual({ xMin: 10, yMin: 20, xMax: 30, yMax: 45 });
     s.noteOutline({ xMin: 11, yMin: 20, xMax: 30, yMax: 45 });
     expect(row.outline!.xMin).toBe(10); // copied, not shared
@@ -76,5 +84,6 @@ describe('TrialState', () => {
     s.clearStep();
     const next = s.row(2.03, 'align', null, null);
     expect([next.update, next.nis, next.nisDim, next.outline, next.box]).toEqual([null, null, null, null, null]);
+    expect(next.updates).toEqual([]);
   });
 });

@@ -2,18 +2,22 @@
 //   a_L = R_wb (f - ba) + g
 //   r  ← r + dt (vC - vL) - dt²/2 a_L + α aC      vC ← vC + β aC     aC ← e aC
 //   vL ← vL + dt a_L                               ba ← ba
-// F = ∂x⁺/∂x has blocks I, dt I, -dt I, (dt²/2) R_wb (r by ba), -dt R_wb (vL by ba), α I, β I, e I,
-// and is block upper triangular (state order r, vC, vL, ba, aC). Hence P⁺ = F P Fᵀ + Q needs,
-// for its upper triangle, only the upper triangle of T = F P: the row pass computes T[i][j≥i],
-// the column pass turns it into (T Fᵀ)[i][j≥i] in place (ascending blocks), Q is added and the
-// upper triangle is mirrored, so P stays exactly symmetric.
+// F = F_s F_cv: F_cv has blocks I, dt I, -dt I, (dt²/2) R_wb (r by ba), -dt R_wb (vL by ba);
+// the Singer factor F_s (identity without aC) adds α I (r by aC), β I (vC by aC), e I (aC).
+// P⁺ = F P Fᵀ + Q in two passes over P, for the upper triangle only:
+//   row pass     T = F P = F_s (F_cv P)      rows r and vL, then (Singer) r, vC, aC
+//   column pass  P⁺ = T Fᵀ = (T F_cvᵀ) F_sᵀ  columns r (rows r) and vL (rows r, vC, vL), then
+//                (Singer) r, vC, aC; rows vC and ba of F_cv are identity rows
+// Every entry a pass writes is read from the previous stage only, so it works in place; the
+// lower triangle is left stale by the passes, then Q is added and the upper triangle mirrored,
+// so P stays exactly symmetric. Straight-line inner loops, no branches per entry (hot path:
+// one call per IMU step plus one per re-propagated step of every delayed box).
 import type { ProcessCoefficients } from './ProcessCoefficients.js';
 import { STANDARD_GRAVITY } from './landingState.js';
 
 /** Returns false when x or P became non-finite (NaN or ±Infinity anywhere). */
 export function predictLanding(x: Float64Array, P: Float64Array, n: number, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
-  const dt = c.dt, h2 = 0.5 * dt * dt, singer = c.singer;
-  const alpha = c.alpha, beta = c.beta, e = c.e;
+  const dt = c.dt, h2 = 0.5 * dt * dt;
   const R00 = Rwb[0]!, R01 = Rwb[1]!, R02 = Rwb[2]!, R10 = Rwb[3]!, R11 = Rwb[4]!, R12 = Rwb[5]!, R20 = Rwb[6]!, R21 = Rwb[7]!, R22 = Rwb[8]!;
   // State.
   const f0 = f[0]! - x[9]!, f1 = f[1]! - x[10]!, f2 = f[2]! - x[11]!;
@@ -26,62 +30,49 @@ export function predictLanding(x: Float64Array, P: Float64Array, n: number, f: A
   x[6] = x[6]! + dt * a0;
   x[7] = x[7]! + dt * a1;
   x[8] = x[8]! + dt * a2;
-  if (singer) {
+  if (c.singer) {
     for (let i = 0; i < 3; i++) {
-      x[i] = x[i]! + alpha * x[12 + i]!;
-      x[3 + i] = x[3 + i]! + beta * x[12 + i]!;
-      x[12 + i] = e * x[12 + i]!;
+      x[i] = x[i]! + c.alpha * x[12 + i]!;
+      x[3 + i] = x[3 + i]! + c.beta * x[12 + i]!;
+      x[12 + i] = c.e * x[12 + i]!;
     }
   }
-  // Row pass: T = F P on the upper triangle (row i, column j >= i), in place, rows of one
-  // column in the order r, vL, vC, aC so every read sees the original P.
-  for (let j = 0; j < n; j++) {
-    const b0 = P[9 * n + j]!, b1 = P[10 * n + j]!, b2 = P[11 * n + j]!;
-    const Rb0 = R00 * b0 + R01 * b1 + R02 * b2;
-    const Rb1 = R10 * b0 + R11 * b1 + R12 * b2;
-    const Rb2 = R20 * b0 + R21 * b1 + R22 * b2;
-    for (let a = 0; a < 3 && a <= j; a++) {
-      const Rb = a === 0 ? Rb0 : a === 1 ? Rb1 : Rb2;
-      const ir = a * n + j;
-      let r = P[ir]! + dt * (P[ir + 3 * n]! - P[ir + 6 * n]!) + h2 * Rb;
-      if (singer) r += alpha * P[ir + 12 * n]!;
-      P[ir] = r;
-    }
-    for (let a = 0; a < 3 && 6 + a <= j; a++) {
-      const il = (6 + a) * n + j;
-      P[il] = P[il]! - dt * (a === 0 ? Rb0 : a === 1 ? Rb1 : Rb2);
-    }
-    if (singer) {
-      for (let a = 0; a < 3; a++) {
-        if (3 + a <= j) P[(3 + a) * n + j] = P[(3 + a) * n + j]! + beta * P[(12 + a) * n + j]!;
-        if (12 + a <= j) P[(12 + a) * n + j] = e * P[(12 + a) * n + j]!;
-      }
+  const r1 = n, r2 = 2 * n, c0 = 3 * n, c1 = 4 * n, c2 = 5 * n, l0 = 6 * n, l1 = 7 * n, l2 = 8 * n, b0 = 9 * n, b1 = 10 * n, b2 = 11 * n;
+  // Row pass, F_cv: T[r] = P[r] + dt (P[vC] - P[vL]) + h2 R_wb P[ba];  T[vL] = P[vL] - dt R_wb P[ba].
+  // Row vL is needed from column vL on only (its earlier columns are lower triangle of P⁺).
+  for (let k = 0; k < n; k++) {
+    const pb0 = P[b0 + k]!, pb1 = P[b1 + k]!, pb2 = P[b2 + k]!;
+    const y0 = R00 * pb0 + R01 * pb1 + R02 * pb2;
+    const y1 = R10 * pb0 + R11 * pb1 + R12 * pb2;
+    const y2 = R20 * pb0 + R21 * pb1 + R22 * pb2;
+    P[k] = P[k]! + dt * (P[c0 + k]! - P[l0 + k]!) + h2 * y0;
+    P[r1 + k] = P[r1 + k]! + dt * (P[c1 + k]! - P[l1 + k]!) + h2 * y1;
+    P[r2 + k] = P[r2 + k]! + dt * (P[c2 + k]! - P[l2 + k]!) + h2 * y2;
+    if (k >= 6) {
+      P[l0 + k] = P[l0 + k]! - dt * y0;
+      P[l1 + k] = P[l1 + k]! - dt * y1;
+      P[l2 + k] = P[l2 + k]! - dt * y2;
     }
   }
-  // Column pass: P = T Fᵀ on the upper triangle, blocks ascending (r, vC, vL, aC) so every
-  // read sees T. Column block r only exists for rows 0..2, vL for rows 0..8.
-  for (let i = 0; i < n; i++) {
+  if (c.singer) singerRows(P, n, c.alpha, c.beta, c.e);
+  // Column pass, F_cvᵀ: with z = R_wb T[i][ba],  P⁺[i][r] = T[i][r] + dt (T[i][vC] - T[i][vL]) + h2 z
+  // (rows r only), P⁺[i][vL] = T[i][vL] - dt z (rows r, vC, vL).
+  for (let i = 0; i < 9; i++) {
     const row = i * n;
-    if (i < 9) {
-      const b0 = P[row + 9]!, b1 = P[row + 10]!, b2 = P[row + 11]!;
-      // (T Fᵀ)[i][col] with F rows: r_a -> h2 R_wb[a] · T[i][ba]; vL_a -> -dt R_wb[a] · T[i][ba]
-      const Rb0 = R00 * b0 + R01 * b1 + R02 * b2;
-      const Rb1 = R10 * b0 + R11 * b1 + R12 * b2;
-      const Rb2 = R20 * b0 + R21 * b1 + R22 * b2;
-      for (let a = i < 3 ? i : 3; a < 3; a++) {
-        let r = P[row + a]! + dt * (P[row + 3 + a]! - P[row + 6 + a]!) + h2 * (a === 0 ? Rb0 : a === 1 ? Rb1 : Rb2);
-        if (singer) r += alpha * P[row + 12 + a]!;
-        P[row + a] = r;
-      }
-      if (singer) {
-        for (let a = i < 6 ? Math.max(i - 3, 0) : 3; a < 3; a++) P[row + 3 + a] = P[row + 3 + a]! + beta * P[row + 12 + a]!;
-      }
-      for (let a = i > 6 ? i - 6 : 0; a < 3; a++) P[row + 6 + a] = P[row + 6 + a]! - dt * (a === 0 ? Rb0 : a === 1 ? Rb1 : Rb2);
+    const t0 = P[row + 9]!, t1 = P[row + 10]!, t2 = P[row + 11]!;
+    const z0 = R00 * t0 + R01 * t1 + R02 * t2;
+    const z1 = R10 * t0 + R11 * t1 + R12 * t2;
+    const z2 = R20 * t0 + R21 * t1 + R22 * t2;
+    if (i < 3) {
+      P[row] = P[row]! + dt * (P[row + 3]! - P[row + 6]!) + h2 * z0;
+      P[row + 1] = P[row + 1]! + dt * (P[row + 4]! - P[row + 7]!) + h2 * z1;
+      P[row + 2] = P[row + 2]! + dt * (P[row + 5]! - P[row + 8]!) + h2 * z2;
     }
-    if (singer) {
-      for (let a = i > 12 ? i - 12 : 0; a < 3; a++) P[row + 12 + a] = e * P[row + 12 + a]!;
-    }
+    P[row + 6] = P[row + 6]! - dt * z0;
+    P[row + 7] = P[row + 7]! - dt * z1;
+    P[row + 8] = P[row + 8]! - dt * z2;
   }
+  if (c.singer) singerColumns(P, n, c.alpha, c.beta, c.e);
   // Q (upper triangle) then mirror.
   for (let a = 0; a < 3; a++) {
     const r = a, vc = 3 + a, vl = 6 + a, ba = 9 + a;
@@ -91,7 +82,7 @@ export function predictLanding(x: Float64Array, P: Float64Array, n: number, f: A
     P[vc * n + vc] = P[vc * n + vc]! + c.QVcVc;
     P[vl * n + vl] = P[vl * n + vl]! + c.QVlVl;
     P[ba * n + ba] = P[ba * n + ba]! + c.QBaBa;
-    if (singer) {
+    if (c.singer) {
       const ac = 12 + a;
       P[r * n + ac] = P[r * n + ac]! + c.QrAc;
       P[vc * n + ac] = P[vc * n + ac]! + c.QVcAc;
@@ -108,4 +99,38 @@ export function predictLanding(x: Float64Array, P: Float64Array, n: number, f: A
     }
   }
   return finite === 0;
+}
+
+/** Row pass of the Singer factor, T = F_s (F_cv P): rows r and vC read row aC before it is scaled. */
+function singerRows(P: Float64Array, n: number, alpha: number, beta: number, e: number): void {
+  for (let a = 0; a < 3; a++) {
+    const r = a * n, vc = (3 + a) * n, ac = (12 + a) * n;
+    for (let k = 0; k < n; k++) {
+      const pa = P[ac + k]!;
+      P[r + k] = P[r + k]! + alpha * pa;
+      P[vc + k] = P[vc + k]! + beta * pa;
+      P[ac + k] = e * pa;
+    }
+  }
+}
+
+/** Column pass of the Singer factor, P⁺ = (T F_cvᵀ) F_sᵀ: columns r (rows r), vC (rows r, vC), aC (all rows). */
+function singerColumns(P: Float64Array, n: number, alpha: number, beta: number, e: number): void {
+  for (let i = 0; i < n; i++) {
+    const row = i * n;
+    const t0 = P[row + 12]!, t1 = P[row + 13]!, t2 = P[row + 14]!;
+    if (i < 3) {
+      P[row] = P[row]! + alpha * t0;
+      P[row + 1] = P[row + 1]! + alpha * t1;
+      P[row + 2] = P[row + 2]! + alpha * t2;
+    }
+    if (i < 6) {
+      P[row + 3] = P[row + 3]! + beta * t0;
+      P[row + 4] = P[row + 4]! + beta * t1;
+      P[row + 5] = P[row + 5]! + beta * t2;
+    }
+    P[row + 12] = e * t0;
+    P[row + 13] = e * t1;
+    P[row + 14] = e * t2;
+  }
 }

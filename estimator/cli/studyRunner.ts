@@ -31,7 +31,7 @@ export function workerCount(command: string, parsed: ParsedArgs): number {
  * dist/sweep-worker.mjs, or the script named by ALIGHT_SWEEP_WORKER (tests, custom builds).
  */
 export function createExecutor(workers: number, env: Record<string, string | undefined> = {}): TrialExecutor {
-  return workers <= 1 ? inProcessExecutor(simulateTrial, applyParams) : workerPool({ workers, workerPath: env.ALIGHT_SWEEP_WORKER || undefined });
+  return workers <= 1 ? inProcessExecutor(simulateTrial, applyParams) : workerPool({ workers, apply: applyParams, workerPath: env.ALIGHT_SWEEP_WORKER || undefined });
 }
 
 export interface Progress {

@@ -1,16 +1,17 @@
-// Node-only: a pool of worker_threads running trials (dist/sweep-worker.mjs). Each worker gets
-// the scenario once per job, then small chunks of (point, trial) pairs on demand, and returns
-// compact record lines: little IPC, dynamic load balance, order-independent results.
+// Node-only: a pool of worker_threads running trials (dist/sweep-worker.mjs). The main thread
+// prepares each point's validated scenario once and sends it with the first chunk that needs it,
+// so workers load only the simulator (fast start-up); chunks of (point, trial) pairs go out on
+// demand and compact record lines come back: little IPC, dynamic load balance, any order.
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import type { Scenario } from '../sim/Scenario.js';
 import type { Params } from './sweepDesign.js';
-import { TrialError, type LineSink, type TrialExecutor, type TrialJob } from './trialExecutor.js';
+import { TrialError, type ApplyParams, type LineSink, type TrialExecutor, type TrialJob } from './trialExecutor.js';
 
 export type WorkerRequest =
-  | { type: 'init'; scenario: Scenario; seed: number; points: Params[] }
-  | { type: 'run'; items: Int32Array };
+  | { type: 'init'; seed: number; points: Params[] }
+  | { type: 'run'; items: Int32Array; scenarios: [number, Scenario][] };
 export type WorkerReply = { type: 'lines'; lines: string[] } | { type: 'error'; message: string; internal: boolean };
 
 /** The bundled worker: beside this bundle (dist/), or dist/ of the repo when run from source. */
@@ -25,12 +26,14 @@ export function defaultWorkerPath(): string {
 
 export interface PoolOptions {
   workers: number;
+  /** Sets a point's values on the scenario, validated (applyParams); runs on the main thread. */
+  apply: ApplyParams;
   /** Worker script (default: defaultWorkerPath()). */
   workerPath?: string;
 }
 
 export function workerPool(options: PoolOptions): TrialExecutor {
-  const { workers } = options;
+  const { workers, apply } = options;
   if (!Number.isInteger(workers) || workers < 1) throw new TrialError(`--workers must be a positive integer, got ${workers}`);
   const path = options.workerPath ?? defaultWorkerPath();
   const threads = Array.from({ length: workers }, () => new Worker(path));
@@ -44,6 +47,8 @@ export function workerPool(options: PoolOptions): TrialExecutor {
       busy = true;
       return new Promise<void>((resolve, reject) => {
         const total = job.items.length / 2;
+        const prepared = new Map<number, Scenario>();
+        const known = threads.map(() => new Set<number>());
         let next = 0;
         let active = 0;
         let failed = false;
@@ -59,19 +64,46 @@ export function workerPool(options: PoolOptions): TrialExecutor {
           if (error) reject(error);
           else resolve();
         };
+        const scenarioOf = (point: number): Scenario => {
+          let s = prepared.get(point);
+          if (!s) {
+            try {
+              s = apply(job.scenario, job.points[point]!);
+            } catch (error) {
+              const refused = (error as Error)?.name === 'ScenarioError';
+              throw new TrialError(`point ${point} ${JSON.stringify(job.points[point])}: ${(error as Error)?.message ?? String(error)}`, !refused);
+            }
+            prepared.set(point, s);
+          }
+          return s;
+        };
         // Chunks shrink towards the end so the last workers finish together.
-        const dispatch = (worker: Worker): boolean => {
+        const dispatch = (w: number): boolean => {
           if (next >= total) return false;
           const size = Math.max(1, Math.min(32, Math.ceil((total - next) / (workers * 8))));
-          const chunk = job.items.subarray(2 * next, 2 * (next + size));
+          const items = Int32Array.from(job.items.subarray(2 * next, 2 * (next + size)));
           next += size;
+          const scenarios: [number, Scenario][] = [];
+          for (let i = 0; i < items.length; i += 2) {
+            const point = items[i]!;
+            if (known[w]!.has(point)) continue;
+            known[w]!.add(point);
+            scenarios.push([point, scenarioOf(point)]);
+          }
           active++;
-          const items = Int32Array.from(chunk);
-          worker.postMessage({ type: 'run', items } satisfies WorkerRequest, [items.buffer]);
+          threads[w]!.postMessage({ type: 'run', items, scenarios } satisfies WorkerRequest, [items.buffer]);
           return true;
         };
+        const tryDispatch = (w: number): boolean => {
+          try {
+            return dispatch(w);
+          } catch (error) {
+            finish(error as Error);
+            return false;
+          }
+        };
         if (total === 0) return finish();
-        for (const worker of threads) {
+        threads.forEach((worker, w) => {
           const onMessage = (reply: WorkerReply) => {
             if (failed) return;
             active--;
@@ -81,7 +113,7 @@ export function workerPool(options: PoolOptions): TrialExecutor {
             } catch (error) {
               return finish(error as Error);
             }
-            if (!dispatch(worker) && active === 0) finish();
+            if (!tryDispatch(w) && active === 0 && !failed) finish();
           };
           const onError = (error: Error) => finish(new TrialError(`worker thread failed: ${error.message}`, true));
           const onExit = (code: number) => finish(new TrialError(`worker thread stopped (exit code ${code}) during the sweep`, true));
@@ -93,9 +125,9 @@ export function workerPool(options: PoolOptions): TrialExecutor {
             worker.off('error', onError);
             worker.off('exit', onExit);
           });
-          worker.postMessage({ type: 'init', scenario: job.scenario, seed: job.seed, points: job.points } satisfies WorkerRequest);
-        }
-        for (const worker of threads) dispatch(worker);
+          worker.postMessage({ type: 'init', seed: job.seed, points: job.points } satisfies WorkerRequest);
+        });
+        for (let w = 0; w < threads.length && !failed; w++) tryDispatch(w);
       });
     },
     async close() {

@@ -37,8 +37,8 @@ export const sweepBench: BenchSection = {
     const loadBefore = loadavg()[0]!;
     try {
       const a1 = await timed(inProcessExecutor(simulateTrial, applyParams), 'one-a.jsonl');
-      const a2 = await timed(workerPool({ workers: 2 }), 'two-a.jsonl');
-      const b2 = await timed(workerPool({ workers: 2 }), 'two-b.jsonl');
+      const a2 = await timed(workerPool({ workers: 2, apply: applyParams }), 'two-a.jsonl');
+      const b2 = await timed(workerPool({ workers: 2, apply: applyParams }), 'two-b.jsonl');
       const b1 = await timed(inProcessExecutor(simulateTrial, applyParams), 'one-b.jsonl');
       const reference = readFileSync(join(dir, 'one-a.jsonl'), 'utf8');
       for (const name of ['two-a.jsonl', 'two-b.jsonl', 'one-b.jsonl']) {

@@ -39,23 +39,23 @@ describe('workerPool', () => {
     const reference = await sweepWith(inProcessExecutor(fakeTrial, applyParams), 'in-process.jsonl');
     expect(reference.split('\n')).toHaveLength(1 + 300 + 1);
     for (const workers of [1, 2, 3]) {
-      expect(await sweepWith(workerPool({ workers, workerPath }), `pool-${workers}.jsonl`), `${workers} workers`).toBe(reference);
+      expect(await sweepWith(workerPool({ workers, workerPath, apply: applyParams }), `pool-${workers}.jsonl`), `${workers} workers`).toBe(reference);
     }
   });
   it('workerPool reports a failing trial with its point and parameters, and refuses later jobs', async () => {
-    const pool = workerPool({ workers: 2, workerPath });
+    const pool = workerPool({ workers: 2, workerPath, apply: applyParams });
     const job = { scenario: defaultScenario(), seed: 1, points: [{ 'detector.pixelNoise': -3 }], items: Int32Array.from([0, 0, 0, 1]) };
-    await expect(pool.run(job, () => {})).rejects.toThrow(/point 0 \{"detector.pixelNoise":-3\} trial [01]: .*detector\.pixelNoise/);
+    await expect(pool.run(job, () => {})).rejects.toThrow(/point 0 \{"detector.pixelNoise":-3\}: .*detector\.pixelNoise/);
     await expect(pool.run(job, () => {})).rejects.toThrow(/detector\.pixelNoise/);
     await pool.close();
   });
   it('workerPool fails the job, not hangs, when a worker thread exits mid-job', async () => {
-    const pool = workerPool({ workers: 2, workerPath });
+    const pool = workerPool({ workers: 2, workerPath, apply: applyParams });
     const job = { scenario: defaultScenario(), seed: 1, points: [{ 'detector.pixelNoise': 99 }], items: Int32Array.from([0, 0]) };
     await expect(pool.run(job, () => {})).rejects.toMatchObject({ message: expect.stringMatching(/worker thread stopped \(exit code 3\)/), internal: true });
     await pool.close();
   });
   it('workerPool refuses a worker count below 1', () => {
-    expect(() => workerPool({ workers: 0, workerPath })).toThrow(/--workers must be a positive integer/);
+    expect(() => workerPool({ workers: 0, workerPath, apply: applyParams })).toThrow(/--workers must be a positive integer/);
   });
 });

@@ -1,8 +1,10 @@
 // Job: one landing trial, step by step, through runTrial's onStep rows; the carrier's own
 // position and heading from the world model at the same times (for the top view), and the
 // chi-square acceptance interval of the trial's mean NIS. Rows are kept every `every` seconds
-// for the plots; every detector box is kept.
+// for the plots; every detector box, every camera update (status, NIS) and every true outline
+// of a captured frame is kept.
 import type { Box } from '../../estimator/camera/Box.js';
+import type { UpdateStatus } from '../../estimator/models/LandingFilter.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
 import type { Phase, TrialResult } from '../../estimator/sim/TrialResult.js';
 import { runTrial, type TraceRow } from '../../estimator/sim/runTrial.js';
@@ -32,7 +34,12 @@ export interface LandingOutput {
   carrierEast: number[];
   carrierNorth: number[];
   carrierHeading: number[];
+  /** Boxes at the step they reached the filter. */
   boxes: { t: number; box: Box }[];
+  /** Camera updates: status ('gated' = refused by the gate), NIS (NaN if undefined) and its dimension. */
+  updates: { t: number; status: UpdateStatus; nis: number; dim: number }[];
+  /** Noise-free box of the carrier's true outline, per captured frame (at its capture time). */
+  outlines: { t: number; box: Box }[];
   /** Acceptance interval of the mean NIS over the trial's accepted box updates (95 %), or null. */
   nisBounds: [number, number] | null;
 }
@@ -43,7 +50,7 @@ export function landingJob(input: LandingInput, progress: Progress<LandingOutput
   const trajectory = createCarrierTrajectory(input.scenario.carrier, input.scenario.carrier.path.points);
   const carrier = createCarrierState();
   const out: Omit<LandingOutput, 'result' | 'nisBounds'> = {
-    t: [], phase: [], truth: columns(), estimate: columns(), sigma: columns(), carrierEast: [], carrierNorth: [], carrierHeading: [], boxes: [],
+    t: [], phase: [], truth: columns(), estimate: columns(), sigma: columns(), carrierEast: [], carrierNorth: [], carrierHeading: [], boxes: [], updates: [], outlines: [],
   };
   let next = -Infinity;
   progress(0, 1, null);
@@ -51,6 +58,8 @@ export function landingJob(input: LandingInput, progress: Progress<LandingOutput
     key: { seed: input.seed, point: 0, trial: input.trial },
     onStep: (row: TraceRow) => {
       if (row.box) out.boxes.push({ t: row.t, box: row.box });
+      for (const u of row.updates) out.updates.push({ t: row.t, status: u.status, nis: u.nis, dim: u.dim });
+      if (row.outline) out.outlines.push({ t: row.t, box: row.outline });
       if (row.t < next) return;
       next = row.t + input.every;
       out.t.push(row.t);

@@ -14,6 +14,7 @@ import type { LandingOutput } from '../jobs/landingJob.js';
 import { fromState, HALF, keyNumber, toCsv, WIDE } from './figureOutput.js';
 import type { Study } from './Study.js';
 import { landingViews } from './landingViews.js';
+import { nisFigure } from './landingNis.js';
 
 type TrialState = JobState<LandingOutput>;
 
@@ -41,6 +42,7 @@ export const landingStudy: Study = {
   ],
   figures: [
     ...landingViews,
+    nisFigure,
     {
       name: 'error',
       title: 'Estimate error and its ±3σ',
@@ -80,7 +82,7 @@ export const landingStudy: Study = {
     },
     {
       name: 'consistency',
-      title: 'NIS against its chi-square band',
+      title: 'Mean NIS and NEES against their bands',
       caption: 'Mean NIS over the trial’s accepted box updates, with the 95 % chi-square acceptance interval for that many updates; mean NEES per its dimension beside it.',
       inputs: ['run'],
       compute: (state: TrialState) =>
@@ -89,7 +91,7 @@ export const landingStudy: Study = {
           const b = v.nisBounds;
           return {
             markup: plotSvg({
-              title: 'NIS against its chi-square band',
+              title: 'Mean NIS and NEES against their bands',
               ...HALF,
               x: { label: '', domain: [-0.6, 1.6], tickLabels: [{ value: 0, label: `NIS (dim ${r.nisDim}, ${r.nisCount} updates)` }, { value: 1, label: `NEES (dim ${r.neesDim})` }] },
               y: { label: 'mean / dimension', domain: [0, Math.max(2, ...[r.nisMean / r.nisDim, r.neesMean / r.neesDim].filter(Number.isFinite)) * 1.15] },
@@ -146,6 +148,7 @@ export const landingStudy: Study = {
     { figure: 'topView' },
     { figure: 'sideView' },
     { figure: 'error' },
+    { figure: 'nis' },
     { figure: 'consistency' },
     { figure: 'phases' },
     { prose: 'The detector’s box is the image of the carrier’s true 3-D outline, noisy, late and sometimes missing; the filter assumes a flat square target, so its size model is mismatched on purpose.' },

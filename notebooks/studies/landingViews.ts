@@ -1,5 +1,6 @@
 // The time-dependent views of the landing study: top view, side view and the camera image.
 // They depend on the inspected time; the trial itself is not rerun when it moves.
+import type { Box } from '../../estimator/camera/Box.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
 import { CARRIER, ESTIMATE, SERIES, TRUTH } from '../figures/palette.js';
 import { extent, plotSvg, type Layer } from '../figures/plot.js';
@@ -13,6 +14,10 @@ type TrialState = JobState<LandingOutput>;
 
 /** The latest box: Okabe–Ito orange, readable on the dark image. */
 const DETECTOR_BOX = SERIES[4];
+/** The true outline: Okabe–Ito sky blue, dashed, also readable on the dark image. */
+const TRUE_OUTLINE = SERIES[5];
+
+const boxPath = (b: Box) => ({ x: [b.xMin, b.xMax, b.xMax, b.xMin], y: [b.yMin, b.yMin, b.yMax, b.yMax] });
 
 /** Index of the last kept row at or before time t. */
 function rowAt(value: LandingOutput, t: number): number {
@@ -100,23 +105,37 @@ export const landingViews: StudyFigure[] = [
     {
       name: 'camera',
       title: 'What the camera reported',
-      caption: 'The image (pixels, origin top left): boxes the detector delivered in the second before the inspected time, faded by age, the latest one solid.',
+      caption: 'The image (pixels, origin top left): the carrier’s true outline in the last captured frame (dashed), and the boxes the detector delivered in the second before the inspected time, faded by age, the latest solid. Latency shows as the box trailing the outline.',
       inputs: ['run', 'time', 'flown'],
       compute: (state: TrialState, time: number, flown: Scenario) =>
         fromState(state, 'trial', (v) => {
           const recent = v.boxes.filter((b) => b.t <= time && b.t > time - 1);
           const w = flown.camera.width, h = flown.camera.height;
           const latest = recent[recent.length - 1];
+          let truth: LandingOutput['outlines'][number] | undefined;
+          for (const o of v.outlines) {
+            if (o.t > time) break;
+            if (o.t > time - 1) truth = o;
+          }
           const layers: Layer[] = [
             { kind: 'rects', rects: [{ x0: 0, x1: w, y0: 0, y1: h, fill: '#2b3138', title: `image ${w} × ${h} px` }] },
-            ...recent.slice(0, -1).map((b): Layer => ({ kind: 'outline', x: [b.box.xMin, b.box.xMax, b.box.xMax, b.box.xMin], y: [b.box.yMin, b.box.yMin, b.box.yMax, b.box.yMax], color: 'rgba(230,225,215,0.35)' })),
+            ...recent.slice(0, -1).map((b): Layer => ({ kind: 'outline', ...boxPath(b.box), color: 'rgba(230,225,215,0.35)' })),
           ];
-          if (latest) layers.push({ kind: 'outline', x: [latest.box.xMin, latest.box.xMax, latest.box.xMax, latest.box.xMin], y: [latest.box.yMin, latest.box.yMin, latest.box.yMax, latest.box.yMax], color: DETECTOR_BOX, label: `box at ${formatNumber(latest.t)} s` });
+          if (truth) layers.push({ kind: 'outline', ...boxPath(truth.box), color: TRUE_OUTLINE, dash: 1, label: `true outline, ${formatNumber(truth.t)} s` });
+          if (latest) layers.push({ kind: 'outline', ...boxPath(latest.box), color: DETECTOR_BOX, label: `box arrived ${formatNumber(latest.t)} s` });
           if (!latest) layers.push({ kind: 'text', x: w / 2, y: h / 2, text: 'no box in this second', color: '#fffdf8', anchor: 'middle' });
+          const centre = (b: Box) => [(b.xMin + b.xMax) / 2, (b.yMin + b.yMax) / 2] as const;
+          const offset = latest && truth ? Math.hypot(centre(latest.box)[0] - centre(truth.box)[0], centre(latest.box)[1] - centre(truth.box)[1]) : null;
           return {
-            markup: plotSvg({ title: 'Camera image', ...HALF, equalAspect: true, yDown: true, x: { label: 'u (px)', domain: [0, w] }, y: { label: 'v (px)', domain: [0, h] }, layers }),
-            csv: toCsv(['t', 'xMin', 'yMin', 'xMax', 'yMax'], v.boxes.map((b) => [b.t, b.box.xMin, b.box.yMin, b.box.xMax, b.box.yMax])),
-            numbers: [keyNumber('boxesInSecond', 'boxes in that second', recent.length, String(recent.length))],
+            markup: plotSvg({ title: 'Camera image', ...HALF, equalAspect: true, yDown: true, legendBelow: true, x: { label: 'u (px)', domain: [0, w] }, y: { label: 'v (px)', domain: [0, h] }, layers }),
+            csv: toCsv(['t', 'source', 'xMin', 'yMin', 'xMax', 'yMax'], [
+              ...v.boxes.map((b) => [b.t, 'detector', b.box.xMin, b.box.yMin, b.box.xMax, b.box.yMax]),
+              ...v.outlines.map((o) => [o.t, 'true outline', o.box.xMin, o.box.yMin, o.box.xMax, o.box.yMax]),
+            ].sort((a, b) => (a[0] as number) - (b[0] as number))),
+            numbers: [
+              keyNumber('boxesInSecond', 'boxes in that second', recent.length, String(recent.length)),
+              keyNumber('boxOffset', 'latest box centre to true outline centre (px)', offset),
+            ],
           };
         }),
     },

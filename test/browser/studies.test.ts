@@ -18,6 +18,7 @@ import { runTrial } from '../../estimator/sim/runTrial.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
 import { applyParams } from '../../estimator/study/applyParams.js';
 import { simulateTrial } from '../../estimator/study/simulateTrial.js';
+import { chiSquareQuantile } from '../../estimator/stats/chiSquare.js';
 import { summarizeGroup, type PointSummary } from '../../estimator/study/summarize.js';
 import type { Params } from '../../estimator/study/sweepDesign.js';
 import { main } from '../../estimator/cli/main.js';
@@ -90,13 +91,26 @@ describe.skipIf(!runBrowserTests)('studies in chromium', () => {
     expectClose(await shownValue(page, 'error', 'positionRmse'), expected.positionRmse, ACROSS_ENGINES, 'positionRmse');
     expectClose(await shownValue(page, 'consistency', 'nisMean'), expected.nisMean, ACROSS_ENGINES, 'nisMean');
     expect(await page.textContent('[data-figure="phases"] dd[data-key="outcome"]')).toBe(expected.outcome);
+    // NIS per camera update against the single-update chi-square band, composed here from the
+    // trace rows and the chi-square quantiles (95 % two-sided: common practice). A count: exact.
+    const nis: number[] = [];
+    runTrial(flown, { key: { seed: a.seed, point: 0, trial: 1 }, onStep: (row) => void row.updates.forEach((u) => Number.isFinite(u.nis) && nis.push(u.nis)) });
+    const [low, high] = [chiSquareQuantile(0.025, 3), chiSquareQuantile(0.975, 3)];
+    const inside = nis.filter((n) => n >= low && n <= high).length;
+    expect(nis.length).toBeGreaterThan(100);
+    expect(nis.length).toBe(expected.nisCount + expected.gateRejections); // accepted and gated updates have a NIS
+    expect(await shownValue(page, 'nis', 'nisUpdates')).toBe(nis.length);
+    expect(await shownValue(page, 'nis', 'nisInBand')).toBe(inside / nis.length);
+    expect(await page.textContent('[data-figure="nis"] dd[data-key="nisInBand"]')).toMatch(/^\d+(\.\d+)? %$/);
+    // the camera view draws the true outline (dashed) beside the detector's box
+    expect(await page.locator('[data-figure="camera"] svg').innerHTML()).toContain('true outline');
     const jobsBefore = await computeCounts(page);
     const { before, after } = await changeControl(page, async () => {
       await page.focus('#control-time');
       await page.keyboard.press('ArrowRight');
     }, 'camera');
     for (const moved of ['camera', 'topView', 'sideView']) expect(after[moved], moved).toBeGreaterThan(before[moved]!);
-    for (const kept of ['error', 'consistency', 'phases']) expect(after[kept], kept).toBe(before[kept]);
+    for (const kept of ['error', 'nis', 'consistency', 'phases']) expect(after[kept], kept).toBe(before[kept]);
     expect((await computeCounts(page)).run).toBe(jobsBefore.run);
     expect(await page.inputValue('#control-time')).toBe('8.5');
   });

@@ -52,6 +52,7 @@ export const sweepCommand: Command = {
     if (!DESIGN_KINDS.includes(design)) throw new CliError(`alight sweep: --design expects grid, random or lhs, got "${design}"`);
     const seed = numberOption('sweep', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
     const points = parsed.values.has('points') ? numberOption('sweep', parsed, 'points', 1, (v) => Number.isInteger(v) && v >= 1, 'a positive integer') : undefined;
+    if (points !== undefined && design === 'grid') throw new CliError('alight sweep: --points applies to --design random or lhs (a grid has one point per combination)');
     const shardCount = parsed.values.has('shard-count') ? numberOption('sweep', parsed, 'shard-count', 1, (v) => Number.isInteger(v) && v >= 1, 'a positive integer') : undefined;
     const workers = workerCount('sweep', parsed);
     let executor;

@@ -87,6 +87,7 @@ describe('alight sweep (real trials)', () => {
       [[scenario, '--trials', '2'], /--out FILE is required/],
       [[scenario, '--trials', '2', '--out', 'w1.jsonl'], /already exists: add --resume/],
       [[scenario, '--trials', '2', '--out', 'x.jsonl', '--shard', '4/3'], /1 <= I <= N/],
+      [[scenario, '--trials', '2', '--out', 'x.jsonl', '--points', '5'], /--points applies to --design random or lhs/],
     ];
     for (const [argv, message] of cases) {
       const io = fakeIo(dir);

@@ -1,7 +1,8 @@
 // Bench section `replay`: flight-log replay speed and memory.
 // seconds: replay of a generated 10-minute log (200 Hz IMU and attitude, 30 Hz boxes, 20 Hz
 //   odometry, truth at 200 Hz), the first replay in this process (JIT warm-up included);
-//   cpuSeconds: its CPU time (user + system), which other load on the machine inflates less.
+//   cpuSeconds: its CPU time (user + system), which other load on the machine inflates less;
+//   secondsWithoutTruth: the same log without truth.csv (a flight with no reference).
 // peakMB: peak resident memory (getrusage maxRSS) of a child process replaying a generated
 //   ~1 GB log: the streams are merged row by row, so memory must not grow with the log. The
 //   child runs with a 64 MB JavaScript heap limit (a leak growing with the log would die) and
@@ -64,6 +65,8 @@ export const replayBench: BenchSection = {
       const logBytes = writeSyntheticLog(tenMinutes, { duration: 600, imuRate: 200, boxRate: 30, odometryRate: 20, seed: 1 });
       const small = await timedReplay(tenMinutes);
       const smallChild = replayInChild(tenMinutes);
+      rmSync(join(tenMinutes, 'truth.csv'));
+      const blind = await timedReplay(tenMinutes);
       rmSync(tenMinutes, { recursive: true, force: true });
 
       const big = join(dir, 'big');
@@ -72,6 +75,7 @@ export const replayBench: BenchSection = {
       return {
         seconds: round(small.seconds),
         cpuSeconds: round(small.cpuSeconds),
+        secondsWithoutTruth: round(blind.seconds),
         logMB: round(logBytes / 1e6),
         rows: small.rows,
         filterSteps: small.steps,

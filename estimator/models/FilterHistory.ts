@@ -1,7 +1,10 @@
 // Ring buffer of recent filter steps for delayed measurements: per IMU step the time, the
-// input (specific force, attitude) used to reach it, the state and covariance after the step
-// and its updates, and the measurements applied in that step (so a re-propagation can
-// re-apply them). Preallocated flat typed arrays; nothing is allocated after construction.
+// input (specific force, attitude and its rotation matrix R_wb, built once at push so a
+// re-propagated step is only the mean and covariance arithmetic) used to reach it, the state
+// and covariance after the step and its updates, and the measurements applied in that step (so
+// a re-propagation can re-apply them). Preallocated flat typed arrays and per-slot views;
+// nothing is allocated after construction.
+import { rotationMatrixFromQuat } from '../frames/rotationMatrixFromQuat.js';
 
 /** Measurement kinds kept in the history. */
 export const EVENT_TIGHT = 1;
@@ -16,6 +19,8 @@ export class FilterHistory {
   readonly time: Float64Array;
   readonly force: Float64Array;
   readonly attitude: Float64Array;
+  /** R_wb of each slot's attitude (9 per slot, row-major; NaN for an unknown attitude). */
+  readonly rotation: Float64Array;
   readonly x: Float64Array;
   readonly P: Float64Array;
   readonly eventCount: Int32Array;
@@ -24,6 +29,9 @@ export class FilterHistory {
   readonly eventData: Float64Array;
   private head = -1;
   private size = 0;
+  private readonly xSlots: Float64Array[];
+  private readonly PSlots: Float64Array[];
+  private readonly rotationSlots: Float64Array[];
 
   constructor(readonly n: number, capacity: number) {
     this.capacity = Math.max(2, capacity);
@@ -31,8 +39,12 @@ export class FilterHistory {
     this.time = new Float64Array(c);
     this.force = new Float64Array(3 * c);
     this.attitude = new Float64Array(4 * c);
+    this.rotation = new Float64Array(9 * c);
     this.x = new Float64Array(n * c);
     this.P = new Float64Array(n * n * c);
+    this.xSlots = Array.from({ length: c }, (_, s) => this.x.subarray(s * n, (s + 1) * n));
+    this.PSlots = Array.from({ length: c }, (_, s) => this.P.subarray(s * n * n, (s + 1) * n * n));
+    this.rotationSlots = Array.from({ length: c }, (_, s) => this.rotation.subarray(9 * s, 9 * s + 9));
     this.eventCount = new Int32Array(c);
     this.eventKind = new Int8Array(EVENTS_PER_STEP * c);
     this.eventTime = new Float64Array(EVENTS_PER_STEP * c);
@@ -62,6 +74,7 @@ export class FilterHistory {
     this.time[s] = t;
     for (let i = 0; i < 3; i++) this.force[3 * s + i] = force[i]!;
     for (let i = 0; i < 4; i++) this.attitude[4 * s + i] = attitude[i]!;
+    rotationMatrixFromQuat(attitude, this.rotationSlots[s]!);
     this.eventCount[s] = 0;
     this.save(s, x, P);
     return s;
@@ -74,9 +87,13 @@ export class FilterHistory {
   }
 
   restore(slot: number, x: Float64Array, P: Float64Array): void {
-    const n = this.n;
-    x.set(this.x.subarray(slot * n, slot * n + n));
-    P.set(this.P.subarray(slot * n * n, (slot + 1) * n * n));
+    x.set(this.xSlots[slot]!);
+    P.set(this.PSlots[slot]!);
+  }
+
+  /** R_wb stored with a slot (a view; do not write). */
+  rotationOf(slot: number): Float64Array {
+    return this.rotationSlots[slot]!;
   }
 
   /** Age of the newest step with time <= t, or -1 when t is older than the oldest step. */

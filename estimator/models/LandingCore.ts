@@ -66,9 +66,13 @@ export class LandingCore {
 
   /** One predict step of dt (s) with specific force f (body, m/s²) and unit q_wb; false when x or P became non-finite. */
   step(dt: number, force: ArrayLike<number>, attitude: ArrayLike<number>): boolean {
-    rotationMatrixFromQuat(attitude, this.Rwb);
+    return this.stepRotated(dt, force, rotationMatrixFromQuat(attitude, this.Rwb));
+  }
+
+  /** step() with the attitude given as its rotation matrix R_wb (row-major 3x3). */
+  stepRotated(dt: number, force: ArrayLike<number>, Rwb: Float64Array): boolean {
     processCoefficients(dt, this.noise, this.coefficients);
-    return predictLanding(this.x, this.P, this.n, force, this.Rwb, this.coefficients);
+    return predictLanding(this.x, this.P, this.n, force, Rwb, this.coefficients);
   }
 
   /** The divergence event for a non-finite x or P. */

@@ -173,12 +173,17 @@ export class LandingFilter {
     return this.measureDelayed(kind, t, d0, d1, d2);
   }
 
-  /** Apply a measurement captured at t < now: from the step before t, through t, then re-propagate. */
+  /**
+   * Apply a measurement captured at t < now: from the step before t, through t, then
+   * re-propagate every younger step (re-applying its measurements) and save it for later
+   * delayed boxes. The newest step is overwritten only after the full check of P, so a
+   * divergence restores the last good step.
+   */
   private measureDelayed(kind: number, t: number, d0: number, d1: number, d2: number): UpdateResult {
     const history = this.history;
     const age = history.ageAtOrBefore(t);
     if (age < 1) return rejected('older-than-history', 3);
-    const from = history.slot(age), to = history.slot(age - 1);
+    const from = history.slot(age), to = history.slot(age - 1), head = history.slot(0);
     if (history.isFull(to)) return rejected('too-many-updates-per-step', 3);
     history.restore(from, this.x, this.P);
     let tau = history.time[from]!;
@@ -187,31 +192,31 @@ export class LandingFilter {
     let k = 0;
     for (; k < count && history.eventTime[base + k]! <= t; k++) tau = this.replayEvent(to, base + k, tau);
     this.stepWithSlotInput(t - tau, to);
-    tau = t;
     const status = this.apply(kind, to, d0, d1, d2, true);
     const nis = this.core.lastNis, reason = this.core.lastReason;
-    if (status === 'diverged') return this.diverge(reason ?? 'covariance-not-positive-definite', history.slot(0));
+    if (status === 'diverged') return this.diverge(reason ?? 'covariance-not-positive-definite', head);
     if (status !== 'accepted') {
-      history.restore(history.slot(0), this.x, this.P);
+      history.restore(head, this.x, this.P);
       return this.result(status);
     }
     history.addEvent(to, kind, t, d0, d1, d2);
+    tau = t;
     for (k = k + 1; k < count + 1; k++) tau = this.replayEvent(to, base + k, tau);
     this.stepWithSlotInput(history.time[to]! - tau, to);
-    let event = checkCovariance(this.x, this.P, this.n, this.core.check);
-    if (event) return this.diverge(event, history.slot(0));
-    history.save(to, this.x, this.P);
-    for (let a = age - 2; a >= 0; a--) {
-      const slot = history.slot(a);
-      tau = history.time[history.slot(a + 1)]!;
+    for (let a = age - 1; a > 0; a--) {
+      // x, P are at the end of step `a`: keep them, then re-propagate step a - 1
+      const done = history.slot(a), slot = history.slot(a - 1);
+      history.save(done, this.x, this.P);
+      tau = history.time[done]!;
       const slotBase = slot * EVENTS_PER_STEP;
       for (let e = 0; e < history.eventCount[slot]!; e++) tau = this.replayEvent(slot, slotBase + e, tau);
       this.stepWithSlotInput(history.time[slot]! - tau, slot);
-      if (!allFinite(this.x, this.n) || !allFinite(this.P, this.n * this.n)) return this.diverge(this.core.nonFiniteEvent(), history.slot(0));
-      history.save(slot, this.x, this.P);
     }
-    event = checkCovariance(this.x, this.P, this.n, this.core.check);
-    if (event) return this.diverge(event, history.slot(0));
+    // One full test (finite x and P, Cholesky of P) covers the whole replay: NaN and ±Infinity
+    // persist through the re-propagation, and a P that fails it stops the filter here.
+    const event = checkCovariance(this.x, this.P, this.n, this.core.check);
+    if (event) return this.diverge(event, head);
+    history.save(head, this.x, this.P);
     this.core.lastNis = nis;
     this.core.lastReason = reason;
     return this.result('accepted');
@@ -226,12 +231,14 @@ export class LandingFilter {
     return te;
   }
 
+  /** Predict by dt with the input stored in `slot` (its force and R_wb). */
   private stepWithSlotInput(dt: number, slot: number): void {
     if (dt <= 0) return;
-    const h = this.history, f = this.replayForce, q = this.replayAttitude;
-    for (let i = 0; i < 3; i++) f[i] = h.force[3 * slot + i]!;
-    for (let i = 0; i < 4; i++) q[i] = h.attitude[4 * slot + i]!;
-    this.core.step(dt, f, q);
+    const h = this.history, f = this.replayForce;
+    f[0] = h.force[3 * slot]!;
+    f[1] = h.force[3 * slot + 1]!;
+    f[2] = h.force[3 * slot + 2]!;
+    this.core.stepRotated(dt, f, h.rotationOf(slot));
   }
 
   /** One measurement update with the attitude stored in `slot`. */

@@ -2,6 +2,8 @@
 // Run by `npm ci` (prepare), `npm test`, `npm start` and `npm run bench`.
 import { build } from 'esbuild';
 import { existsSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { SCENARIO_CHECK_MODULE, writeScenarioValidator } from './notebooks/scripts/buildScenarioValidator.mjs';
 
 const node = {
   bundle: true,
@@ -31,7 +33,11 @@ for (const [source, outfile] of nodeEntries) {
   if (!existsSync(source)) { console.warn(`build: skipping missing ${source}`); continue; }
   await build({ ...node, entryPoints: [source], outfile });
 }
+// The page validates scenarios with ajv's standalone code generated here (no eval under its CSP).
+const scenarioCheck = resolve('dist/generated/scenarioSchemaCheck.mjs');
+await writeScenarioValidator(scenarioCheck);
+const pregenerated = { name: 'pregenerated-scenario-check', setup: (b) => b.onResolve({ filter: /scenarioSchemaCheck\.js$/ }, (args) => (SCENARIO_CHECK_MODULE.test(resolve(args.resolveDir, args.path)) ? { path: scenarioCheck } : undefined)) };
 for (const [source, outfile] of browserEntries) {
   if (!existsSync(source)) { console.warn(`build: skipping missing ${source}`); continue; }
-  await build({ bundle: true, platform: 'browser', format: 'esm', target: 'es2022', sourcemap: true, logLevel: 'warning', entryPoints: [source], outfile });
+  await build({ bundle: true, platform: 'browser', format: 'esm', target: 'es2022', sourcemap: true, logLevel: 'warning', entryPoints: [source], outfile, plugins: [pregenerated] });
 }

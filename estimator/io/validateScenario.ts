@@ -1,14 +1,11 @@
 // Scenario validation, once at the boundary: JSON Schema (ajv, every problem reported),
 // then defaults from defaultScenario() for omitted sections and fields, then the checks
 // that span fields. Result: a deep-frozen Scenario. Browser-safe (no Node APIs).
-import { Ajv, type ErrorObject } from 'ajv';
-import schema from './scenario.schema.json';
+import type { ErrorObject } from 'ajv';
 import type { Scenario } from '../sim/Scenario.js';
 import { defaultScenario } from './defaultScenario.js';
 import { ScenarioError } from './ScenarioError.js';
-
-const ajv = new Ajv({ allErrors: true, verbose: true, strictTypes: false, allowUnionTypes: true });
-const validateSchema = ajv.compile(schema);
+import { validateSchema } from './scenarioSchemaCheck.js'; // the page bundles a pre-generated check instead (no eval)
 
 const isObject = (v: unknown): v is Record<string, unknown> => v !== null && typeof v === 'object' && !Array.isArray(v);
 

@@ -2,7 +2,8 @@
 // demo data (data-demo/) read-only, on the loopback interface only. Refuses requests whose Host
 // is not this server's loopback address and port (DNS-rebinding guard), paths that climb out of
 // the served folders (including encoded ../ and backslashes), and anything but GET/HEAD.
-// The scenario validator (ajv) compiles its schema to a function, hence 'unsafe-eval' for scripts.
+// Scripts come from this server only and may not eval: the page's scenario check is generated
+// ahead of time (notebooks/scripts/buildScenarioValidator.mjs), not compiled in the browser.
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import { createReadStream, promises as fs } from 'node:fs';
 import { extname, join, resolve, sep } from 'node:path';
@@ -38,11 +39,11 @@ const TYPES: Record<string, string> = {
   '.md': 'text/markdown; charset=utf-8',
 };
 
-const SECURITY_HEADERS = {
+export const SECURITY_HEADERS = {
   'X-Content-Type-Options': 'nosniff',
   'Cache-Control': 'no-store',
   'Content-Security-Policy':
-    "default-src 'self'; script-src 'self' 'unsafe-eval'; img-src 'self' data: blob:; style-src 'self' 'unsafe-inline'; worker-src 'self'; connect-src 'self'; object-src 'none'; base-uri 'none'; frame-ancestors 'none'",
+    "default-src 'self'; script-src 'self'; img-src 'self' data: blob:; style-src 'self' 'unsafe-inline'; worker-src 'self'; connect-src 'self'; object-src 'none'; base-uri 'none'; frame-ancestors 'none'",
 };
 
 function refuse(res: ServerResponse, status: number, message: string): void {

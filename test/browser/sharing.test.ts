@@ -10,7 +10,9 @@ import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { defaultScenario } from '../../estimator/io/defaultScenario.js';
 import { VERSION } from '../../estimator/version.js';
-import { analysisToText, type Analysis } from '../../notebooks/analysis/Analysis.js';
+import { AnalysisError, analysisToText, type Analysis } from '../../notebooks/analysis/Analysis.js';
+import { parseAnalysis } from '../../notebooks/analysis/parseAnalysis.js';
+import { studyById } from '../../notebooks/studies/studies.js';
 import { startStaticServer, type RunningServer } from '../../notebooks/server/staticServer.node.js';
 import { launchChromium, runBrowserTests, type Browser } from '../../notebooks/scripts/launchChromium.node.js';
 import { openAnalysis, waitIdle } from './studyPage.js';
@@ -89,6 +91,25 @@ describe.skipIf(!runBrowserTests)('sharing a study in chromium', () => {
     await page.waitForSelector('.message[role="alert"]');
     expect(await page.textContent('.message[role="alert"]')).toContain('field "study" must be one of');
     await waitIdle(page);
+  });
+
+  it('checks a scenario without eval (strict CSP) and says what Node says about it', async () => {
+    const violations: string[] = [];
+    page.on('console', (m) => void (/Content Security Policy|unsafe-eval/.test(m.text()) && violations.push(m.text())));
+    const scenario = { ...JSON.parse(JSON.stringify(defaultScenario())), version: 2, detector: { ...defaultScenario().detector, pixelNoise: -1, colour: 'red' } };
+    const text = JSON.stringify({ study: 'landing', scenario, parameters: {}, seed: 1, toolVersion: VERSION });
+    let nodeProblems: readonly string[] = [];
+    try {
+      parseAnalysis(text, 'the link', (id) => studyById(id).parameters);
+    } catch (error) {
+      nodeProblems = (error as AnalysisError).problems;
+    }
+    expect(nodeProblems.length).toBeGreaterThanOrEqual(3); // version, pixelNoise and the unknown key
+    await page.goto(server.url + '#analysis=' + Buffer.from(text).toString('base64url'));
+    await page.waitForSelector('.message[role="alert"]');
+    expect(await page.textContent('.message[role="alert"]')).toBe(`This link's analysis could not be used:\n${nodeProblems.join('\n')}`);
+    await waitIdle(page);
+    expect(violations).toEqual([]);
   });
 
   it('cancels a running sweep and keeps what it had', async () => {

@@ -3,7 +3,7 @@ import { request } from 'node:http';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { safeFilePath, startStaticServer, type RunningServer } from '../../../notebooks/server/staticServer.node.js';
+import { SECURITY_HEADERS, safeFilePath, startStaticServer, type RunningServer } from '../../../notebooks/server/staticServer.node.js';
 
 interface Reply {
   status: number;
@@ -48,6 +48,15 @@ describe('startStaticServer', () => {
   afterAll(async () => {
     await server.close();
     rmSync(root, { recursive: true, force: true });
+  });
+
+  it('sends a Content-Security-Policy that allows scripts from itself only, without eval', async () => {
+    const reply = await fetch(`http://${host}/`);
+    const csp = reply.headers.get('content-security-policy') ?? '';
+    const scripts = csp.split(';').map((d) => d.trim()).find((d) => d.startsWith('script-src'));
+    expect(scripts).toBe("script-src 'self'");
+    expect(csp).not.toContain('unsafe-eval');
+    expect(SECURITY_HEADERS['Content-Security-Policy']).toBe(csp);
   });
 
   it('serves the host page and the built files to its own loopback address', async () => {

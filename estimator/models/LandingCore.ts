@@ -9,7 +9,7 @@ import type { FilterSpec } from '../sim/Scenario.js';
 import { BoxMeasurementModel } from './BoxMeasurementModel.js';
 import type { FilterCamera } from './FilterCamera.js';
 import { EVENT_ODOMETRY, EVENT_TIGHT } from './FilterHistory.js';
-import { emptyProcessCoefficients, processCoefficients, type ProcessCoefficients, type ProcessNoise } from './ProcessCoefficients.js';
+import { ProcessCoefficientCache, type ProcessNoise } from './ProcessCoefficients.js';
 import { predictLanding } from './predictLanding.js';
 import { landingStateDimension, VL_INDEX } from './landingState.js';
 import type { UpdateStatus } from './UpdateResult.js';
@@ -27,7 +27,8 @@ export class LandingCore {
   readonly P: Float64Array;
   readonly model: BoxMeasurementModel;
   readonly noise: ProcessNoise;
-  readonly coefficients: ProcessCoefficients;
+  /** Transition and process-noise coefficients per step length. */
+  readonly coefficients: ProcessCoefficientCache;
   /** Box centre and size variances (px², rScale applied). */
   readonly varPixel: number;
   readonly varSize: number;
@@ -54,7 +55,7 @@ export class LandingCore {
     this.check = new Float64Array(this.n * this.n);
     this.model = new BoxMeasurementModel(camera, targetSize);
     this.noise = { carrierAccelNoise: spec.carrierAccelNoise, singerTau: spec.singerTau, accelNoise: spec.accelNoise, accelBiasWalk: spec.accelBiasWalk, qScale: spec.qScale };
-    this.coefficients = emptyProcessCoefficients(singer);
+    this.coefficients = new ProcessCoefficientCache(singer, this.noise);
     this.ws = new UpdateWorkspace(this.n, 3);
     this.gate = gateThreshold(spec.gateProbability, 3, spec.gateScale);
     this.varPixel = spec.pixelNoise * spec.pixelNoise * spec.rScale;
@@ -71,8 +72,7 @@ export class LandingCore {
 
   /** step() with the attitude given as its rotation matrix R_wb (row-major 3x3). */
   stepRotated(dt: number, force: ArrayLike<number>, Rwb: Float64Array): boolean {
-    processCoefficients(dt, this.noise, this.coefficients);
-    return predictLanding(this.x, this.P, this.n, force, Rwb, this.coefficients);
+    return predictLanding(this.x, this.P, this.n, force, Rwb, this.coefficients.get(dt));
   }
 
   /** The divergence event for a non-finite x or P. */

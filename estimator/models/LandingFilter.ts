@@ -275,7 +275,7 @@ export class LandingFilter {
     this.divergence = null;
     this.updatesSinceCheck = 0;
     const { coefficients, noise } = this.core;
-    coefficients.dt = Number.NaN;
+    coefficients.clear();
     if (this.n === 15) {
       const tau = noise.singerTau, sigma = noise.carrierAccelNoise;
       this.setDiagonal(12, Math.max((sigma * sigma * noise.qScale) / (2 * tau), 1e-12));

@@ -95,3 +95,33 @@ export function processCoefficients(dt: number, noise: ProcessNoise, out: Proces
   out.QAcAc = qw * aa;
   return out;
 }
+
+/**
+ * A few coefficient sets keyed by their exact dt. A clock t = k Δ gives steps t - t_prev that
+ * differ from Δ in the last bits (about ten distinct values in a trial), so a single set would
+ * be recomputed at most steps — with the Singer model that is nine exponentials each time.
+ * Allocation-free after construction; entries are replaced round-robin.
+ */
+export class ProcessCoefficientCache {
+  private readonly entries: ProcessCoefficients[];
+  private next = 0;
+
+  constructor(singer: boolean, readonly noise: ProcessNoise, size = 16) {
+    this.entries = Array.from({ length: size }, () => emptyProcessCoefficients(singer));
+  }
+
+  /** The coefficients for step dt (s), computed on first use. Do not modify the result. */
+  get(dt: number): ProcessCoefficients {
+    const entries = this.entries;
+    for (let i = 0; i < entries.length; i++) if (entries[i]!.dt === dt) return entries[i]!;
+    const entry = entries[this.next]!;
+    this.next = (this.next + 1) % entries.length;
+    entry.dt = Number.NaN;
+    return processCoefficients(dt, this.noise, entry);
+  }
+
+  /** Forget every entry. */
+  clear(): void {
+    for (const entry of this.entries) entry.dt = Number.NaN;
+  }
+}

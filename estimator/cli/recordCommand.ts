@@ -56,7 +56,7 @@ export const recordCommand: Command = {
       recorded = recordTrial(scenario, folderSink(folder), { key: { seed, point: 0, trial: 0 }, truth: !parsed.flags.has('no-truth') });
     } catch (error) {
       const code = (error as { code?: string }).code;
-      if (code === 'EACCES' || code === 'ENOTDIR' || code === 'EEXIST' || code === 'EISDIR') throw new CliError(`alight record: cannot write ${out} (${code})`);
+      if (code !== undefined && ['EACCES', 'EPERM', 'EROFS', 'ENOENT', 'ENOTDIR', 'EEXIST', 'EISDIR', 'ENOSPC'].includes(code)) throw new CliError(`alight record: cannot write ${out} (${code})`);
       throw error;
     }
     const { result, rows } = recorded;

@@ -1,11 +1,13 @@
 // Node-only adapter: a LogTextSink that writes each file of a log into a folder (created if
 // missing), appending chunks with synchronous writes (runTrial is synchronous).
-import { closeSync, mkdirSync, openSync, writeSync } from 'node:fs';
-import { join } from 'node:path';
+import { closeSync, existsSync, mkdirSync, openSync, writeSync } from 'node:fs';
+import { dirname, join } from 'node:path';
 import type { LogTextSink } from './LogRecorder.js';
 
 export function folderSink(folder: string): LogTextSink {
-  mkdirSync(folder, { recursive: true });
+  // Plain mkdir when the parent exists: Node's recursive mkdir can spin forever on special
+  // file systems (/proc), and the plain one reports the real error.
+  if (!existsSync(folder)) mkdirSync(folder, { recursive: !existsSync(dirname(folder)) });
   const fds = new Map<string, number>();
   return {
     write(file, text) {

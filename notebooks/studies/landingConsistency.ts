@@ -1,12 +1,14 @@
-// The landing study's NIS over time: every camera update's NIS = y' S^-1 y against the 95 %
+// The landing study's consistency plate. Left, NIS over time: every camera update's NIS = y' S^-1 y against the 95 %
 // two-sided chi-square band of a single update, [q(0.025, m), q(0.975, m)] with m the update's
 // dimension, and the gate threshold q(gateProbability, m) * gateScale above which the filter
 // refused the box. For an honest filter about 95 % of the NIS values fall inside the band.
+// Right, the trial's mean NIS (accepted updates) and mean NEES per dimension.
 import { gateThreshold } from '../../estimator/filter/gate.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
 import { chiSquareQuantile } from '../../estimator/stats/chiSquare.js';
 import { ESTIMATE, MUTED, SERIES, TRUTH } from '../figures/palette.js';
 import { extent, plotSvg, type Layer } from '../figures/plot.js';
+import { sideBySide } from '../figures/sideBySide.js';
 import { formatNumber } from '../figures/svg.js';
 import type { JobState } from '../jobs/JobState.js';
 import type { LandingOutput } from '../jobs/landingJob.js';
@@ -40,10 +42,59 @@ export function nisBandCount(updates: LandingOutput['updates'], dim: number): Ni
 
 const percent = (v: number | null) => (v === null ? '–' : `${formatNumber(100 * v)} %`);
 
-export const nisFigure: StudyFigure = {
-  name: 'nis',
-  title: 'NIS of every camera update',
-  caption: 'NIS of each box update over time (log scale) against the band holding 95 % of single χ² values for its dimension; boxes above the gate line were refused (gated), not used.',
+/** Panel widths inside the wide plate: NIS over time, and the trial's means. */
+const OVER_TIME = 610;
+const MEANS = WIDE.width - OVER_TIME;
+
+function nisOverTime(v: LandingOutput, band: NisBandCount, dim: number, gate: number): string {
+  const accepted = v.updates.filter((u) => u.status === 'accepted' && Number.isFinite(u.nis));
+  const gated = v.updates.filter((u) => u.status === 'gated' && Number.isFinite(u.nis));
+  const values = [...accepted, ...gated].map((u) => u.nis).filter((n) => n > 0);
+  const lowest = Math.min(band.low / 3, ...values.map((n) => n / 1.5));
+  const top = Math.max(gate * 2, ...values.map((n) => n * 1.5));
+  const time = extent(v.t, 0);
+  return plotSvg({
+    title: 'NIS of every camera update',
+    width: OVER_TIME,
+    height: WIDE.height,
+    legendBelow: true,
+    x: { label: 'time (s)', domain: time },
+    y: { label: 'NIS (dimensionless)', domain: [Math.max(lowest, 1e-4), top], log: true, ticks: 4 },
+    layers: [
+      { kind: 'band', x: time, low: [band.low, band.low], high: [band.high, band.high], color: TRUTH, label: `95 % band, χ²(${dim})` },
+      { kind: 'rule', axis: 'y', value: dim, color: MUTED, dash: 2, label: `expected ${dim}` },
+      { kind: 'rule', axis: 'y', value: gate, color: SERIES[3], dash: 1, label: `gate ${formatNumber(gate)}` },
+      { kind: 'points', x: accepted.map((u) => u.t), y: accepted.map((u) => u.nis), color: ESTIMATE, radius: 2.4, label: `accepted (${accepted.length})` },
+      { kind: 'points', x: gated.map((u) => u.t), y: gated.map((u) => u.nis), color: SERIES[7], shape: 'square', radius: 2.6, label: `gated (${gated.length})` },
+    ],
+  });
+}
+
+/** Mean NIS (accepted updates) and mean NEES, each divided by its dimension; the NIS mean's acceptance interval for that many updates. */
+function means(v: LandingOutput): string {
+  const r = v.result;
+  const b = v.nisBounds;
+  const values = [r.nisMean / r.nisDim, r.neesMean / r.neesDim];
+  return plotSvg({
+    title: 'Trial means against their bands',
+    width: MEANS,
+    height: WIDE.height,
+    legendBelow: true,
+    marginLeft: 50,
+    x: { label: 'mean ÷ dimension', domain: [-0.6, 1.6], tickLabels: [{ value: 0, label: `NIS ÷ ${r.nisDim}` }, { value: 1, label: `NEES ÷ ${r.neesDim}` }] },
+    y: { label: '', domain: [0, Math.max(2, ...values.filter(Number.isFinite)) * 1.15] },
+    layers: [
+      { kind: 'rule', axis: 'y', value: 1, color: MUTED, dash: 2, label: 'expected 1' },
+      ...(b ? [{ kind: 'rects', rects: [{ x0: -0.3, x1: 0.3, y0: b[0] / r.nisDim, y1: b[1] / r.nisDim, fill: 'rgba(0,114,178,0.3)', title: `95 % band ${formatNumber(b[0])}–${formatNumber(b[1])}` }], label: `95 % band, ${r.nisCount} updates`, legendColor: 'rgba(0,114,178,0.4)' } as Layer] : []),
+      { kind: 'points', x: [0, 1], y: values, color: ESTIMATE, shape: 'diamond', radius: 6, titles: values.map((m) => formatNumber(m)), label: 'this trial' },
+    ],
+  });
+}
+
+export const consistencyFigure: StudyFigure = {
+  name: 'consistency',
+  title: 'NIS and NEES against their chi-square bands',
+  caption: 'Left: NIS of each box update (log scale) against the band holding 95 % of single χ² values for its dimension; boxes above the gate line were refused (gated). Right: the trial’s mean NIS over accepted updates with its 95 % interval for that many updates, and mean NEES, each per dimension.',
   wide: true,
   inputs: ['run', 'flown'],
   compute: (state: JobState<LandingOutput>, flown: Scenario) =>
@@ -51,33 +102,20 @@ export const nisFigure: StudyFigure = {
       const dim = v.updates.find((u) => u.dim > 0)?.dim ?? v.result.nisDim;
       const band = nisBandCount(v.updates, dim);
       const gate = gateThreshold(flown.filter.gateProbability, dim, flown.filter.gateScale);
-      const accepted = v.updates.filter((u) => u.status === 'accepted' && Number.isFinite(u.nis));
-      const gated = v.updates.filter((u) => u.status === 'gated' && Number.isFinite(u.nis));
-      const values = [...accepted, ...gated].map((u) => u.nis).filter((n) => n > 0);
-      const lowest = Math.min(band.low / 3, ...values.map((n) => n / 1.5));
-      const top = Math.max(gate * 2, ...values.map((n) => n * 1.5));
-      const time = extent(v.t, 0);
       const share = band.total > 0 ? band.inside / band.total : null;
-      const layers: Layer[] = [
-        { kind: 'band', x: time, low: [band.low, band.low], high: [band.high, band.high], color: TRUTH, label: `χ² ${formatNumber(100 * NIS_BAND_LEVEL)} % band (dim ${dim})` },
-        { kind: 'rule', axis: 'y', value: dim, color: MUTED, dash: 2, label: `expected value ${dim}` },
-        { kind: 'rule', axis: 'y', value: gate, color: SERIES[3], dash: 1, label: `gate ${formatNumber(gate)}` },
-        { kind: 'points', x: accepted.map((u) => u.t), y: accepted.map((u) => u.nis), color: ESTIMATE, radius: 2.4, label: `accepted (${accepted.length})` },
-        { kind: 'points', x: gated.map((u) => u.t), y: gated.map((u) => u.nis), color: SERIES[7], shape: 'square', radius: 3, label: `gated (${gated.length})` },
-      ];
+      const r = v.result;
       return {
-        markup: plotSvg({
-          title: 'NIS of every camera update',
-          ...WIDE,
-          x: { label: 'time (s)', domain: time },
-          y: { label: 'NIS (dimensionless)', domain: [Math.max(lowest, 1e-4), top], log: true, ticks: 4 },
-          layers,
-        }),
+        markup: sideBySide('NIS and NEES against their chi-square bands', [
+          { svg: nisOverTime(v, band, dim, gate), width: OVER_TIME, height: WIDE.height },
+          { svg: means(v), width: MEANS, height: WIDE.height },
+        ]),
         csv: toCsv(['t', 'status', 'nis', 'dim', 'bandLow', 'bandHigh', 'gate'], v.updates.map((u) => [u.t, u.status, Number.isFinite(u.nis) ? u.nis : null, u.dim, band.low, band.high, gate])),
         numbers: [
           keyNumber('nisInBand', 'NIS inside the 95 % band', share, percent(share)),
           keyNumber('nisUpdates', 'updates with a NIS', band.total, String(band.total)),
-          keyNumber('gated', 'gated', gated.length, String(gated.length)),
+          keyNumber('gateRejections', 'gated', r.gateRejections, String(r.gateRejections)),
+          keyNumber('nisMean', 'mean NIS', r.nisMean),
+          keyNumber('neesMean', 'mean NEES', r.neesMean),
         ],
       };
     }),

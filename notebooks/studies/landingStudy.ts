@@ -4,8 +4,8 @@
 import { setPath } from '../../estimator/io/scenarioPath.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
 import { PHASES } from '../../estimator/sim/TrialResult.js';
-import { ESTIMATE, MUTED, SERIES, TRUTH } from '../figures/palette.js';
-import { extent, plotSvg, type Layer } from '../figures/plot.js';
+import { ESTIMATE, SERIES, TRUTH } from '../figures/palette.js';
+import { extent, plotSvg } from '../figures/plot.js';
 import { sideBySide } from '../figures/sideBySide.js';
 import { formatNumber } from '../figures/svg.js';
 import type { JobRunner } from '../jobs/JobRunner.js';
@@ -14,7 +14,7 @@ import type { LandingOutput } from '../jobs/landingJob.js';
 import { fromState, HALF, keyNumber, toCsv, WIDE } from './figureOutput.js';
 import type { Study } from './Study.js';
 import { landingViews } from './landingViews.js';
-import { nisFigure } from './landingNis.js';
+import { consistencyFigure } from './landingConsistency.js';
 
 type TrialState = JobState<LandingOutput>;
 
@@ -42,7 +42,6 @@ export const landingStudy: Study = {
   ],
   figures: [
     ...landingViews,
-    nisFigure,
     {
       name: 'error',
       title: 'Estimate error and its ±3σ',
@@ -64,6 +63,7 @@ export const landingStudy: Study = {
                 title: `${names[i]} error`,
                 width,
                 height: WIDE.height,
+                legendBelow: true,
                 x: { label: 'time (s)', domain: extent(v.t, 0) },
                 y: { label: `${names[i]} error (m)`, domain: [-span, span] },
                 layers: [
@@ -80,32 +80,7 @@ export const landingStudy: Study = {
           };
         }),
     },
-    {
-      name: 'consistency',
-      title: 'Mean NIS and NEES against their bands',
-      caption: 'Mean NIS over the trial’s accepted box updates, with the 95 % chi-square acceptance interval for that many updates; mean NEES per its dimension beside it.',
-      inputs: ['run'],
-      compute: (state: TrialState) =>
-        fromState(state, 'trial', (v) => {
-          const r = v.result;
-          const b = v.nisBounds;
-          return {
-            markup: plotSvg({
-              title: 'Mean NIS and NEES against their bands',
-              ...HALF,
-              x: { label: '', domain: [-0.6, 1.6], tickLabels: [{ value: 0, label: `NIS (dim ${r.nisDim}, ${r.nisCount} updates)` }, { value: 1, label: `NEES (dim ${r.neesDim})` }] },
-              y: { label: 'mean / dimension', domain: [0, Math.max(2, ...[r.nisMean / r.nisDim, r.neesMean / r.neesDim].filter(Number.isFinite)) * 1.15] },
-              layers: [
-                { kind: 'rule', axis: 'y', value: 1, color: MUTED, label: 'expected value' },
-                ...(b ? [{ kind: 'rects', rects: [{ x0: -0.25, x1: 0.25, y0: b[0] / r.nisDim, y1: b[1] / r.nisDim, fill: 'rgba(0,114,178,0.25)', title: `95 % band ${formatNumber(b[0])}–${formatNumber(b[1])}` }], label: 'χ² 95 % band', legendColor: 'rgba(0,114,178,0.4)' } as Layer] : []),
-                { kind: 'points', x: [0, 1], y: [r.nisMean / r.nisDim, r.neesMean / r.neesDim], color: ESTIMATE, shape: 'diamond', radius: 6, label: 'this trial' },
-              ],
-            }),
-            csv: toCsv(['statistic', 'mean', 'dim', 'count', 'low', 'high'], [['NIS', r.nisMean, r.nisDim, r.nisCount, b?.[0] ?? null, b?.[1] ?? null], ['NEES', r.neesMean, r.neesDim, null, null, null]]),
-            numbers: [keyNumber('nisMean', 'mean NIS', r.nisMean), keyNumber('gateRejections', 'gate rejections', r.gateRejections, String(r.gateRejections))],
-          };
-        }),
-    },
+    consistencyFigure,
     {
       name: 'phases',
       title: 'Phase timeline',
@@ -147,11 +122,10 @@ export const landingStudy: Study = {
     { prose: 'The trial runs in a background worker (about a twentieth of a second of computing for a minute of flight). Changing the trial number, speed or noise flies it again; the time slider only moves markers and the camera view.' },
     { figure: 'topView' },
     { figure: 'sideView' },
-    { figure: 'error' },
-    { figure: 'nis' },
-    { figure: 'consistency' },
-    { figure: 'phases' },
     { prose: 'The detector’s box is the image of the carrier’s true 3-D outline, noisy, late and sometimes missing; the filter assumes a flat square target, so its size model is mismatched on purpose.' },
     { figure: 'camera' },
+    { figure: 'phases' },
+    { figure: 'error' },
+    { figure: 'consistency' },
   ],
 };

@@ -55,6 +55,7 @@ export const landingViews: StudyFigure[] = [
               title: 'Top view',
               ...HALF,
               equalAspect: true,
+              legendBelow: true,
               x: { label: 'east (m)', domain: extent([...v.carrierEast, ...lx]) },
               y: { label: 'north (m)', domain: extent([...v.carrierNorth, ...ly]) },
               layers: [
@@ -89,6 +90,7 @@ export const landingViews: StudyFigure[] = [
             markup: plotSvg({
               title: 'Side view',
               ...HALF,
+              legendBelow: true,
               x: { label: 'along the carrier heading (m)', domain: extent([...ta, -half, half]) },
               y: { label: 'height above deck (m)', domain: extent([...th, 0], 0.08) },
               layers: [
@@ -121,8 +123,9 @@ export const landingViews: StudyFigure[] = [
             { kind: 'rects', rects: [{ x0: 0, x1: w, y0: 0, y1: h, fill: '#2b3138', title: `image ${w} × ${h} px` }] },
             ...recent.slice(0, -1).map((b): Layer => ({ kind: 'outline', ...boxPath(b.box), color: 'rgba(230,225,215,0.35)' })),
           ];
-          if (truth) layers.push({ kind: 'outline', ...boxPath(truth.box), color: TRUE_OUTLINE, dash: 1, label: `true outline, ${formatNumber(truth.t)} s` });
+          // the true outline is drawn last, dashed, so the box shows through its gaps where they coincide
           if (latest) layers.push({ kind: 'outline', ...boxPath(latest.box), color: DETECTOR_BOX, label: `box arrived ${formatNumber(latest.t)} s` });
+          if (truth) layers.push({ kind: 'outline', ...boxPath(truth.box), color: TRUE_OUTLINE, dash: 1, label: `true outline, ${formatNumber(truth.t)} s` });
           if (!latest) layers.push({ kind: 'text', x: w / 2, y: h / 2, text: 'no box in this second', color: '#fffdf8', anchor: 'middle' });
           const centre = (b: Box) => [(b.xMin + b.xMax) / 2, (b.yMin + b.yMax) / 2] as const;
           const offset = latest && truth ? Math.hypot(centre(latest.box)[0] - centre(truth.box)[0], centre(latest.box)[1] - centre(truth.box)[1]) : null;

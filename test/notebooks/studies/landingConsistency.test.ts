@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { nisBandCount } from '../../../notebooks/studies/landingNis.js';
+import { nisBandCount } from '../../../notebooks/studies/landingConsistency.js';
 import { expectClose } from '../../helpers/expectClose.js';
 
 const update = (nis: number) => ({ t: 0, status: 'accepted' as const, nis, dim: 3 });

@@ -34,3 +34,8 @@ export function heatCells(samples: readonly HeatSample[]): { layer: Layer; xDoma
   };
   return { layer: { kind: 'rects', rects }, xDomain: all(ex), yDomain: all(ey) };
 }
+
+/** Legend entries for a colour ramp: one swatch per (position on the ramp, label), no marks drawn. */
+export function rampKey(color: (t: number) => string, stops: readonly (readonly [number, string])[]): Layer[] {
+  return stops.map(([t, label]): Layer => ({ kind: 'rects', rects: [], label, legendColor: color(t) }));
+}

@@ -40,7 +40,7 @@ export interface PlotSpec {
   note?: string;
   /** Left margin (px) for long category labels; default 58. */
   marginLeft?: number;
-  /** Legend in a row under the plot instead of over its top-right corner (maps, surfaces). */
+  /** Legend in rows under the plot (default), so it never hides data; false: over the top-right corner. */
   legendBelow?: boolean;
 }
 
@@ -59,7 +59,8 @@ function widen(domain: [number, number], span: number): [number, number] {
 
 export function plotSvg(spec: PlotSpec): string {
   // A legend below wraps into rows; each row takes 16 px off the plot's height.
-  const below = spec.legendBelow ? legendRows(spec.layers, spec.width - 20) : [];
+  const legendBelow = spec.legendBelow ?? true;
+  const below = legendBelow ? legendRows(spec.layers, spec.width - 20) : [];
   const MARGIN = { ...BASE_MARGIN, left: spec.marginLeft ?? BASE_MARGIN.left, bottom: BASE_MARGIN.bottom + 16 * below.length + (below.length > 0 ? 2 : 0) };
   const innerW = spec.width - MARGIN.left - MARGIN.right;
   const innerH = spec.height - MARGIN.top - MARGIN.bottom;
@@ -96,12 +97,14 @@ export function plotSvg(spec: PlotSpec): string {
   // Layers, clipped to the plot area.
   const clipId = 'clip-' + Math.abs(hash(spec.title)).toString(36);
   const drawn: string[] = [];
-  const legend: { label: string; color: string; dash: number; kind: Layer['kind'] }[] = [];
+  const legend: { label: string; color: string; dash: number; kind: Layer['kind']; shape: 'circle' | 'square' | 'diamond' }[] = [];
   for (const layer of spec.layers) {
     drawn.push(drawLayer(layer, x, y));
     if ('label' in layer && layer.label) {
       const color = layer.kind === 'rects' ? (layer.legendColor ?? layer.rects[0]?.fill ?? INK) : layer.color;
-      legend.push({ label: layer.label, color, dash: 'dash' in layer ? (layer.dash ?? 0) : 0, kind: layer.kind });
+      // rules are dashed unless told otherwise (drawLayer), and the legend shows them so
+      const dash = layer.kind === 'rule' ? (layer.dash ?? 1) : 'dash' in layer ? (layer.dash ?? 0) : 0;
+      legend.push({ label: layer.label, color, dash, kind: layer.kind, shape: layer.kind === 'points' ? (layer.shape ?? 'circle') : 'circle' });
     }
   }
   parts.push(el('clipPath', { id: clipId }, el('rect', { x: MARGIN.left, y: MARGIN.top, width: innerW, height: innerH })));
@@ -114,11 +117,11 @@ export function plotSvg(spec: PlotSpec): string {
     const lx = slot ? slot.x + 154 : MARGIN.left + innerW - 8;
     const swatch =
       item.kind === 'band' || item.kind === 'rects'
-        ? el('rect', { x: lx - 150, y: ly - 6, width: 18, height: 9, fill: item.color, 'fill-opacity': item.kind === 'band' ? 0.3 : 1 })
+        ? el('rect', { x: lx - 150, y: ly - 6, width: 18, height: 9, fill: item.color, 'fill-opacity': item.kind === 'band' ? 0.3 : 1, stroke: item.kind === 'rects' ? MUTED : null, 'stroke-width': item.kind === 'rects' ? 0.5 : null })
         : item.kind === 'points'
-          ? el('circle', { cx: lx - 141, cy: ly - 2, r: 3.5, fill: item.color })
+          ? pointMark(item.shape, lx - 141, ly - 2, 3.5, { fill: item.color })
           : el('line', { x1: lx - 150, x2: lx - 132, y1: ly - 2, y2: ly - 2, stroke: item.color, 'stroke-width': 2, 'stroke-dasharray': DASHES[item.dash] || null });
-    const ground = spec.legendBelow ? '' : el('rect', { x: lx - 154, y: ly - 10, width: 154, height: 15, fill: '#fffdf8', 'fill-opacity': 0.85 });
+    const ground = legendBelow ? '' : el('rect', { x: lx - 154, y: ly - 10, width: 154, height: 15, fill: '#fffdf8', 'fill-opacity': 0.85 });
     parts.push(el('g', { class: 'legend' }, ground, swatch, el('text', { x: lx - 128, y: ly + 2, fill: INK, 'font-size': 11 }, escapeXml(item.label))));
   });
   if (spec.note) parts.push(el('text', { x: MARGIN.left + 6, y: MARGIN.top + 14, fill: MUTED, 'font-size': 11, 'font-style': 'italic' }, escapeXml(spec.note)));
@@ -159,10 +162,7 @@ function drawLayer(layer: Layer, x: Scale, y: Scale): string {
         const r = layer.radius ?? 3.5;
         const title = layer.titles?.[i] ? el('title', {}, escapeXml(layer.titles[i]!)) : '';
         const shape = layer.shape ?? 'circle';
-        const attrs = { fill: layer.color, stroke: '#fffdf8', 'stroke-width': 0.8 };
-        if (shape === 'square') marks.push(el('rect', { x: px - r, y: py - r, width: 2 * r, height: 2 * r, ...attrs }, ...(title ? [title] : [])));
-        else if (shape === 'diamond') marks.push(el('path', { d: `M${px} ${py - r * 1.3}L${px + r * 1.3} ${py}L${px} ${py + r * 1.3}L${px - r * 1.3} ${py}Z`, ...attrs }, ...(title ? [title] : [])));
-        else marks.push(el('circle', { cx: px, cy: py, r, ...attrs }, ...(title ? [title] : [])));
+        marks.push(pointMark(shape, px, py, r, { fill: layer.color, stroke: '#fffdf8', 'stroke-width': 0.8 }, title));
       }
       return marks.join('');
     }
@@ -206,9 +206,17 @@ function drawLayer(layer: Layer, x: Scale, y: Scale): string {
   }
 }
 
+/** One marker of a points layer (also its legend swatch): circle, square or diamond of radius r around (px, py). */
+function pointMark(shape: 'circle' | 'square' | 'diamond', px: number, py: number, r: number, attrs: Record<string, string | number>, title = ''): string {
+  const children = title ? [title] : [];
+  if (shape === 'square') return el('rect', { x: px - r, y: py - r, width: 2 * r, height: 2 * r, ...attrs }, ...children);
+  if (shape === 'diamond') return el('path', { d: `M${px} ${py - r * 1.3}L${px + r * 1.3} ${py}L${px} ${py + r * 1.3}L${px - r * 1.3} ${py}Z`, ...attrs }, ...children);
+  return el('circle', { cx: px, cy: py, r, ...attrs }, ...children);
+}
+
 /** Approximate width (px) of a legend entry at 11 px type: swatch, gap and text. */
 function entryWidth(label: string): number {
-  return 30 + label.length * 6.2;
+  return 30 + label.length * 6.8; // generous: wide letters (m, w) must not run into the next entry
 }
 
 /** Left x of each labelled layer's legend entry, wrapped into rows that fit `width`. */

@@ -1,5 +1,7 @@
 // `npm run screenshots`: serves the built page, opens every study in Debian's chromium at
-// 1280x800, waits until all its figures are complete, and saves dist/screenshots/<study>.png.
+// 1280x800, waits until all its figures are complete, and saves dist/screenshots/<study>.png,
+// the whole page as <study>-full.png, and each figure's plate as <study>/<figure>.png (for a
+// close look at labels and legends).
 import { mkdirSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -23,11 +25,18 @@ async function main(): Promise<void> {
       const started = Date.now();
       await page.goto(`${server.url}#study=${id}`);
       await page.waitForSelector('body[data-state="idle"]', { timeout: 180_000 });
+      // Switching study only changes the fragment: start each view at the top of the page.
+      await page.evaluate(() => window.scrollTo(0, 0));
       const file = join(out, `${id}.png`);
       await page.screenshot({ path: file });
       process.stdout.write(`screenshots: ${file} (${((Date.now() - started) / 1000).toFixed(1)} s)\n`);
       // A second, full-page view for review of everything below the fold.
       await page.screenshot({ path: join(out, `${id}-full.png`), fullPage: true });
+      mkdirSync(join(out, id), { recursive: true });
+      for (const plate of await page.locator('[data-figure]').all()) {
+        const name = await plate.getAttribute('data-figure');
+        if (name) await plate.screenshot({ path: join(out, id, `${name}.png`) });
+      }
     }
   } finally {
     await browser.close();

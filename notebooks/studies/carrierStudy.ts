@@ -7,7 +7,7 @@ import type { PointSummary } from '../../estimator/study/summarize.js';
 import type { JobRunner } from '../jobs/JobRunner.js';
 import type { JobState } from '../jobs/JobState.js';
 import type { SweepOutput } from '../jobs/sweepJob.js';
-import { DASHES, SERIES } from '../figures/palette.js';
+import { DASHES, MUTED, SERIES } from '../figures/palette.js';
 import { extent, plotSvg, type Layer } from '../figures/plot.js';
 import { formatNumber, formatPercent } from '../figures/svg.js';
 import { fromState, HALF, keyNumber, toCsv } from './figureOutput.js';
@@ -127,11 +127,15 @@ export const carrierStudy: Study = {
             markup: plotSvg({
               title: 'Speed envelope per path shape',
               ...HALF,
-              x: { label: 'highest speed meeting the target (m/s)', domain: [0, maxSwept * 1.05] },
+              x: { label: `highest speed with ${rule === 'lower' ? 'Wilson lower bound' : 'success'} ≥ ${Math.round(target * 100)} % (m/s)`, domain: [0, maxSwept * 1.05] },
               y: { label: '', domain: [0, SHAPES.length], tickLabels: SHAPES.map((s, i) => ({ value: SHAPES.length - i - 0.5, label: s })) },
               marginLeft: 92,
-              note: partial ? 'partial results' : `target ${Math.round(target * 100)} % (${rule === 'lower' ? 'Wilson lower bound' : 'success rate'})`,
-              layers: [{ kind: 'rects', rects: envelope.map((v, i) => ({ x0: 0, x1: v ?? 0, y0: SHAPES.length - i - 0.8, y1: SHAPES.length - i - 0.2, fill: SERIES[i]!, title: `${SHAPES[i]}: ${v === null ? 'none' : v + ' m/s'}` })) }],
+              note: partial ? 'partial results' : undefined,
+              layers: [
+                { kind: 'rects', rects: envelope.map((v, i) => ({ x0: 0, x1: v ?? 0, y0: SHAPES.length - i - 0.8, y1: SHAPES.length - i - 0.2, fill: SERIES[i]!, title: `${SHAPES[i]}: ${v === null ? 'none' : v + ' m/s'}` })) },
+                // an empty row says so, rather than looking like missing data
+                ...envelope.flatMap((v, i): Layer[] => (v === null && !partial ? [{ kind: 'text', x: maxSwept * 0.02, y: SHAPES.length - i - 0.5 - 0.12, text: 'none: not even the slowest speed', color: MUTED }] : [])),
+              ],
             }),
             csv: toCsv(['shape', 'envelopeSpeed', 'target', 'rule'], SHAPES.map((s, i) => [s, envelope[i] ?? null, target, rule])),
             numbers: SHAPES.map((s, i) => keyNumber(`envelope_${s}`, s, envelope[i] ?? null, envelope[i] === null ? 'none' : `${formatNumber(envelope[i]!)} m/s`)),

@@ -16,7 +16,7 @@ import type { Study, StudyCell } from './Study.js';
 interface ErrorSource {
   key: string;
   label: string;
-  /** Axis label. */
+  /** Axis label (at most about 11 characters: five sit side by side on a half-width plot). */
   short: string;
   path: string;
   unit: string;
@@ -27,8 +27,8 @@ interface ErrorSource {
 export const ERROR_SOURCES: readonly ErrorSource[] = [
   { key: 'attitude', short: 'attitude', label: 'attitude bias', path: 'localization.attitudeBiasDeg', unit: 'deg', moderate: 1.5 },
   { key: 'odometry', short: 'odometry', label: 'odometry drift', path: 'localization.odometryDrift', unit: 'm/s/√s', moderate: 0.08 },
-  { key: 'misalignment', short: 'misalignment', label: 'camera misalignment', path: 'localization.misalignmentDeg', unit: 'deg', moderate: 1.5 },
-  { key: 'focal', short: 'focal length', label: 'focal-length error', path: 'localization.focalError', unit: 'fraction', moderate: 0.05 },
+  { key: 'misalignment', short: 'mounting', label: 'camera misalignment', path: 'localization.misalignmentDeg', unit: 'deg', moderate: 1.5 },
+  { key: 'focal', short: 'focal', label: 'focal-length error', path: 'localization.focalError', unit: 'fraction', moderate: 0.05 },
   { key: 'targetSize', short: 'target size', label: 'target-size error', path: 'localization.targetSizeError', unit: 'fraction', moderate: 0.2 },
 ];
 
@@ -93,17 +93,24 @@ export const localizationStudy: Study = {
             const v = harmOf(h, rankBy);
             return { x0: Math.min(0, v), x1: Math.max(0, v), y0: list.length - i - 0.8, y1: list.length - i - 0.2, fill: v >= 0 ? SERIES[1] : SERIES[0], title: `${h.source.label}: ${formatNumber(v)}` };
           });
-          const span = Math.max(0.05, ...list.map((h) => Math.abs(harmOf(h, rankBy)) || 0));
+          // the axis covers every bar: a negative harm (the error helped, by chance with few trials) too
+          const harmValues = list.map((h) => harmOf(h, rankBy) || 0);
+          const span = Math.max(0.05, ...harmValues.map(Math.abs));
+          const lowest = Math.min(0, ...harmValues);
           const worst = list[0];
           return {
             markup: plotSvg({
               title: 'Harm per error source',
               ...HALF,
-              x: { label: rankBy === 'success' ? 'success lost (fraction of trials)' : 'CEP50 added (m)', domain: [Math.min(0, -span * 0.1), span * 1.1] },
+              x: { label: rankBy === 'success' ? 'success lost (fraction of trials)' : 'CEP50 added (m)', domain: [lowest - span * 0.1, Math.max(0, ...harmValues) + span * 0.1] },
               y: { label: '', domain: [0, Math.max(1, list.length)], tickLabels: list.map((h, i) => ({ value: list.length - i - 0.5, label: h.source.short })) },
               marginLeft: 92,
               note: partial ? 'partial results' : undefined,
-              layers: [{ kind: 'rects', rects }, { kind: 'rule', axis: 'x', value: 0, color: SERIES[7], dash: 0 }],
+              layers: [
+                { kind: 'rects', rects: rects.filter((r) => r.fill === SERIES[1]), label: 'worse with the error', legendColor: SERIES[1] },
+                { kind: 'rects', rects: rects.filter((r) => r.fill === SERIES[0]), label: rects.some((r) => r.fill === SERIES[0]) ? 'better with it (chance?)' : undefined, legendColor: SERIES[0] },
+                { kind: 'rule', axis: 'x', value: 0, color: SERIES[7], dash: 0 },
+              ],
             }),
             csv: toCsv(['source', 'path', 'value', 'successClean', 'successErred', 'cep50Clean', 'cep50Erred', 'harm'], list.map((h) => [h.source.key, h.source.path, Number(h.erred.point[h.source.path]), h.clean.successRate, h.erred.successRate, h.clean.cep50, h.erred.cep50, harmOf(h, rankBy)])),
             numbers: worst ? [keyNumber('worst', 'hurts most', null, worst.source.label), keyNumber('worstHarm', rankBy === 'success' ? 'success lost' : 'CEP50 added (m)', harmOf(worst, rankBy))] : [],
@@ -152,7 +159,7 @@ export const localizationStudy: Study = {
           for (const h of harms(values)) {
             for (const p of [h.clean, h.erred]) {
               const v = Number(p.point[h.source.path]);
-              rows.push([h.source.label, `${v} ${h.source.unit}`, `${p.landed} / ${p.trials}`, formatPercent(p.wilsonLow), formatNumber(p.cep50), formatNumber(p.neesMean), formatNumber(p.positionRmse)]);
+              rows.push([h.source.label, h.source.unit === 'fraction' ? `${formatNumber(100 * v)} %` : `${v} ${h.source.unit}`, `${p.landed} / ${p.trials}`, formatPercent(p.wilsonLow), formatNumber(p.cep50), formatNumber(p.neesMean), formatNumber(p.positionRmse)]);
               csv.push([h.source.path, v, p.trials, p.landed, p.wilsonLow, p.wilsonHigh, p.cep50, p.neesMean, p.positionRmse]);
             }
           }

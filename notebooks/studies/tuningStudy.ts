@@ -2,7 +2,7 @@
 // (then refined) with the cost of `alight tune`; the surfaces show consistency and landing.
 import { neesVerdict } from '../../estimator/study/statistics/neesVerdict.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
-import { heatCells } from '../figures/heatCells.js';
+import { heatCells, rampKey } from '../figures/heatCells.js';
 import { SERIES, sequential } from '../figures/palette.js';
 import { plotSvg } from '../figures/plot.js';
 import { formatNumber, formatPercent } from '../figures/svg.js';
@@ -60,7 +60,7 @@ export const tuningStudy: Study = {
     {
       name: 'consistency',
       title: 'Consistency surface',
-      caption: 'Average NEES over its dimension per grid setting (1 = honest covariance). Ticked cells pass the chi-square test at the chosen level; darker = further from 1.',
+      caption: 'Average NEES over its dimension (ANEES/n) per grid setting; 1 = honest covariance, darker = further from 1 either way. Cells with a green square pass the chi-square test at the chosen level.',
       inputs: ['search', 'level'],
       compute: (state: TuningState, level: string) =>
         fromState(state, 'trials', (value, partial) => {
@@ -80,7 +80,14 @@ export const tuningStudy: Study = {
               ...axes(cells, grid),
               legendBelow: true,
               note: partial ? 'partial results' : undefined,
-              layers: [cells.layer, { kind: 'points', x: passed.map((s) => s.q), y: passed.map((s) => s.r), color: SERIES[2], shape: 'square', radius: 5, label: `consistent at ${Math.round(Number(level) * 100)} %` }, ...refineMarks(value.samples), ...bestMarker(value.best)],
+              layers: [
+                cells.layer,
+                { kind: 'points', x: passed.map((s) => s.q), y: passed.map((s) => s.r), color: SERIES[2], shape: 'square', radius: 5, label: `consistent at ${Math.round(Number(level) * 100)} %` },
+                ...refineMarks(value.samples),
+                ...bestMarker(value.best),
+                // colour = |ln(ANEES/n)| / 3: 0 at 1, 0.5 at a factor e^1.5 ≈ 4.5, 1 (darkest) from e^3 ≈ 20
+                ...rampKey(sequential, [[0, 'ANEES/n = 1'], [0.5, '4.5× off'], [1, '20× off or more']]),
+              ],
             }),
             csv: toCsv(['qScale', 'rScale', 'neesMean', 'neesDim', 'low', 'high', 'verdict'], grid.map((s, i) => [s.q, s.r, s.summary.neesMean, s.summary.neesDim, verdicts[i]?.low ?? null, verdicts[i]?.high ?? null, verdicts[i]?.verdict ?? null])),
             numbers: [keyNumber('consistentCells', `settings consistent at ${Math.round(Number(level) * 100)} %`, passed.length, `${passed.length} of ${grid.length}`)],
@@ -98,7 +105,7 @@ export const tuningStudy: Study = {
           const cells = heatCells(grid.map((s) => ({ x: s.q, y: s.r, fill: sequential(s.summary.successRate), title: `qScale ${s.q}, rScale ${s.r}: ${s.summary.landed} of ${s.summary.trials} landed` })));
           const best = value.best;
           return {
-            markup: plotSvg({ title: 'Landing surface', ...HALF, legendBelow: true, ...axes(cells, grid), note: partial ? 'partial results' : undefined, layers: [cells.layer, ...refineMarks(value.samples), ...bestMarker(best)] }),
+            markup: plotSvg({ title: 'Landing surface', ...HALF, legendBelow: true, ...axes(cells, grid), note: partial ? 'partial results' : undefined, layers: [cells.layer, ...refineMarks(value.samples), ...bestMarker(best), ...rampKey(sequential, [[0, 'none landed'], [0.5, 'half'], [1, 'all landed']])] }),
             csv: toCsv(['qScale', 'rScale', 'trials', 'landed', 'successRate', 'wilsonLow', 'wilsonHigh'], grid.map((s) => [s.q, s.r, s.summary.trials, s.summary.landed, s.summary.successRate, s.summary.wilsonLow, s.summary.wilsonHigh])),
             numbers: best
               ? [
@@ -122,7 +129,7 @@ export const tuningStudy: Study = {
           kind: 'table',
           markup: htmlTable(
             ['stage', 'qScale', 'rScale', 'landed', 'ANEES', 'cost'],
-            value.samples.map((s) => [s.stage, String(s.q), String(s.r), `${s.summary.landed} / ${s.summary.trials}`, formatNumber(s.summary.neesMean), formatNumber(s.score)]),
+            value.samples.map((s) => [s.stage, formatNumber(s.q), formatNumber(s.r), `${s.summary.landed} / ${s.summary.trials}`, formatNumber(s.summary.neesMean), formatNumber(s.score)]),
           ),
           csv: toCsv(['stage', 'qScale', 'rScale', 'gateScale', 'trials', 'landed', 'neesMean', 'cost'], value.samples.map((s) => [s.stage, s.q, s.r, s.gate, s.summary.trials, s.summary.landed, s.summary.neesMean, s.score])),
         })),

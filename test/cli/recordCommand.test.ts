@@ -50,6 +50,7 @@ describe('alight record', () => {
       [['record', 'short.scenario.json'], 'alight record: say where to write the log with --out <log-folder>'],
       [['record', 'short.scenario.json', '--out', 'x', '--seed', '-1'], '--seed expects a non-negative integer'],
       [['record', 'bad.scenario.json', '--out', 'y'], 'duration'],
+      [['record', 'short.scenario.json', '--out', 'short.scenario.json/log'], 'alight record: cannot write short.scenario.json/log (ENOTDIR)'],
     ];
     for (const [argv, message] of cases) {
       const { code, err } = await run(...argv);

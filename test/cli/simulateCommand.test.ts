@@ -57,6 +57,21 @@ describe('alight simulate', () => {
     expect(lines.length - 1).toBe(Math.round(touchdown * 100) - 1); // the contact step itself is judged, not traced
     expect(lines[1]!.split(',')).toHaveLength(TRACE_COLUMNS.length);
     expect(lines[1]!.split(',')[1]).toBe('acquire');
+    // the appended columns: camera updates with their NIS, and the true outline of captured frames
+    const rows = lines.slice(1).map((l) => l.split(','));
+    const col = (name: string) => TRACE_COLUMNS.indexOf(name);
+    const result = JSON.parse(stdout) as { nisCount: number; gateRejections: number };
+    const counted = rows.reduce((n, r) => n + Number(r[col('updates')]), 0);
+    expect(counted).toBeGreaterThanOrEqual(result.nisCount + result.gateRejections); // plus any rejected ones
+    const updated = rows.filter((r) => r[col('update')] !== '');
+    for (const r of updated) {
+      expect(['accepted', 'gated', 'rejected', 'diverged']).toContain(r[col('update')]);
+      expect(r[col('nis_dim')]).toBe('3');
+      if (r[col('update')] === 'accepted') expect(Number(r[col('nis')])).toBeGreaterThanOrEqual(0);
+    }
+    const outlines = rows.filter((r) => r[col('outline_xMin')] !== '');
+    expect(outlines.length).toBeGreaterThan(rows.length / 10); // 30 frames/s over 100 steps/s, while in view
+    for (const r of outlines) expect(Number(r[col('outline_xMax')])).toBeGreaterThan(Number(r[col('outline_xMin')]));
   });
 
   it('refuses a malformed scenario with one message per problem and exit 2, no stack trace', async () => {

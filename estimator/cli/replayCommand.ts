@@ -8,7 +8,7 @@ import { FilterSettingsError } from '../io/log/filterSettings.js';
 import { logSourceFromFolder } from '../io/log/logSourceFromFolder.node.js';
 import { LogLayoutError, formatProblem } from '../io/log/LogProblem.js';
 import { replayLog, type ReplayReport, type ReplaySettings } from '../io/log/replayLog.js';
-import type { NisSummary } from '../io/log/ReplayStatistics.js';
+import type { NisSummary } from '../io/log/MeasurementStatistics.js';
 import { FilterSpecError } from '../models/LandingFilter.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';

@@ -11,7 +11,7 @@ import type { FilterSpec } from '../../sim/Scenario.js';
 import type { LogCamera } from './parseLogCamera.js';
 import { BOX_SLOTS } from './logStreams.js';
 import { DEFAULT_INITIAL_SIGMA, type ReplaySettings } from './ReplayReport.js';
-import { MeasurementStatistics } from './ReplayStatistics.js';
+import { MeasurementStatistics } from './MeasurementStatistics.js';
 import { TruthComparison } from './TruthComparison.js';
 import { WhitenessAccumulator } from './WhitenessAccumulator.js';
 

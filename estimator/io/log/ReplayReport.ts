@@ -4,7 +4,8 @@ import type { UpdateStatus } from '../../models/LandingFilter.js';
 import type { FilterSpec } from '../../sim/Scenario.js';
 import type { LogProblem, LogProblemKind } from './LogProblem.js';
 import type { LogStreamName } from './logStreams.js';
-import type { NisSummary, WhitenessSummary } from './ReplayStatistics.js';
+import type { NisSummary } from './MeasurementStatistics.js';
+import type { WhitenessSummary } from './WhitenessAccumulator.js';
 
 /** Start-up uncertainty, the same the simulator's runTrial uses. */
 export const DEFAULT_INITIAL_SIGMA = { velocity: 1, accelBias: 0.2 };

@@ -103,3 +103,24 @@ export class WhitenessAccumulator {
     };
   }
 }
+
+export interface WhitenessSummary {
+  /** The test, named with its sources. */
+  method: string;
+  lags: number;
+  /** True when every test with enough samples passed; null when none had enough. */
+  white: boolean | null;
+  tests: WhitenessResult[];
+}
+
+/** The tests of several series together: white only when every testable one is. */
+export function whitenessSummary(accumulators: readonly WhitenessAccumulator[], lags: number): WhitenessSummary {
+  const tests = accumulators.map((a) => a.result()).filter((r): r is WhitenessResult => r !== null);
+  return {
+    method:
+      'sample autocorrelation at lags 1..L against ±1.96/sqrt(N) (Box and Jenkins 1976) and the Ljung-Box portmanteau Q vs chi-square(L) at 5 % (Ljung and Box 1978)',
+    lags,
+    white: tests.length > 0 ? tests.every((t) => t.white) : null,
+    tests,
+  };
+}

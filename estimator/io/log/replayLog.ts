@@ -12,7 +12,7 @@ import { LogStreamReader } from './LogStreamReader.js';
 import { LOG_STREAMS, REQUIRED_STREAMS, STREAM_SPECS, type LogStreamName } from './logStreams.js';
 import { parseLogCamera, type LogCamera } from './parseLogCamera.js';
 import { REPLAY_CAUTION, type ReplayReport, type ReplaySettings, type StreamRows } from './ReplayReport.js';
-import { whitenessSummary } from './ReplayStatistics.js';
+import { whitenessSummary } from './WhitenessAccumulator.js';
 
 export { DEFAULT_INITIAL_SIGMA, REPLAY_CAUTION } from './ReplayReport.js';
 export type { ReplayReport, ReplaySettings, StreamRows } from './ReplayReport.js';

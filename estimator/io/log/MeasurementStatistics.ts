@@ -1,10 +1,10 @@
-// What a replay measures about the filter from its innovations alone: NIS means with
-// chi-square acceptance bounds (Bar-Shalom, Li, Kirubarajan 2001, section 5.4), gate
-// rejections, refusals by reason, and whiteness (WhitenessAccumulator). Counting only;
-// add() allocates nothing but the first entry of a new refusal reason.
+// What a replay learns about one kind of measurement (boxes or odometry) from the filter's
+// answers alone: NIS mean with chi-square acceptance bounds (Bar-Shalom, Li, Kirubarajan
+// 2001, section 5.4), gate rejections, refusals by reason, and the NIS sequence's whiteness.
+// Counting only; add() allocates nothing but the first entry of a new refusal reason.
 import { averagedChiSquareInterval } from '../../stats/chiSquare.js';
 import type { UpdateResult } from '../../models/LandingFilter.js';
-import { WhitenessAccumulator, type WhitenessResult } from './WhitenessAccumulator.js';
+import { WhitenessAccumulator } from './WhitenessAccumulator.js';
 
 export interface NisSummary {
   /** Mean NIS over accepted updates (gated ones are outside the gate by construction). */
@@ -80,24 +80,4 @@ export class MeasurementStatistics {
       refused: { ...this.refused },
     };
   }
-}
-
-export interface WhitenessSummary {
-  /** The test, named with its sources. */
-  method: string;
-  lags: number;
-  /** True when every test with enough samples passed; null when none had enough. */
-  white: boolean | null;
-  tests: WhitenessResult[];
-}
-
-export function whitenessSummary(accumulators: readonly WhitenessAccumulator[], lags: number): WhitenessSummary {
-  const tests = accumulators.map((a) => a.result()).filter((r): r is WhitenessResult => r !== null);
-  return {
-    method:
-      'sample autocorrelation at lags 1..L against ±1.96/sqrt(N) (Box and Jenkins 1976) and the Ljung-Box portmanteau Q vs chi-square(L) at 5 % (Ljung and Box 1978)',
-    lags,
-    white: tests.length > 0 ? tests.every((t) => t.white) : null,
-    tests,
-  };
 }

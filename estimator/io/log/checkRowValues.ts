@@ -1,11 +1,14 @@
 // Checks of a parsed row's values that its stream's meaning demands: boxes not inverted,
 // captured no later than they arrived, scores in [0, 1]; unit attitude quaternions. An x/y/w/h
-// box is turned into corners here. Each problem names file, line and column.
+// box is turned into corners and Euler angles into a quaternion here. Each problem names
+// file, line and column. Allocation-free.
+import { quatFromEulerDeg } from '../../frames/quatFromEulerDeg.js';
 import type { ProblemLog } from './LogProblem.js';
 import { BOX_SLOTS, type LogStreamName } from './logStreams.js';
 
 /** |q| may differ from 1 by this much (rounding in a logger's printout), no more. */
 const QUATERNION_NORM_TOLERANCE = 1e-3;
+const quaternion = new Float64Array(4);
 
 /**
  * @param v normalized row (see logStreams.ts); boxes with layout 1 hold x, y, w, h in slots 1..4
@@ -38,6 +41,12 @@ export function checkRowValues(stream: LogStreamName, layout: number, v: Float64
       return false;
     }
   } else if (stream === 'attitude') {
+    if (layout === 1) {
+      // rollDeg, pitchDeg, yawDeg (ZYX) -> q_wb in slots 1..4.
+      quatFromEulerDeg(v[1]!, v[2]!, v[3]!, quaternion);
+      for (let i = 0; i < 4; i++) v[1 + i] = quaternion[i]!;
+      return true;
+    }
     const norm = Math.hypot(v[1]!, v[2]!, v[3]!, v[4]!);
     if (Math.abs(norm - 1) > QUATERNION_NORM_TOLERANCE) {
       problems.add('quaternion-not-unit', file, line, 'qw', `quaternion norm ${norm} differs from 1 by more than ${QUATERNION_NORM_TOLERANCE}; row skipped`);

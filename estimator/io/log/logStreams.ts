@@ -48,7 +48,8 @@ const box: StreamSpec = {
 export const STREAM_SPECS: Readonly<Record<LogStreamName, StreamSpec>> = {
   boxes: box,
   imu: { name: 'imu', file: 'imu.csv', layouts: [['fx', 'fy', 'fz']], optional: [], strict: true, orderColumn: 'time' },
-  attitude: { name: 'attitude', file: 'attitude.csv', layouts: [['qw', 'qx', 'qy', 'qz']], optional: [], strict: true, orderColumn: 'time' },
+  // q_wb, or ZYX Euler angles (deg) turned into q_wb by frames/quatFromEulerDeg.
+  attitude: { name: 'attitude', file: 'attitude.csv', layouts: [['qw', 'qx', 'qy', 'qz'], ['rollDeg', 'pitchDeg', 'yawDeg']], optional: [], strict: true, orderColumn: 'time' },
   odometry: { name: 'odometry', file: 'odometry.csv', layouts: [['vx', 'vy', 'vz']], optional: [], strict: true, orderColumn: 'time' },
   truth: {
     name: 'truth',

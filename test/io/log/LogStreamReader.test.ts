@@ -123,3 +123,14 @@ describe('LogStreamReader', () => {
     expect([problems.total, problems.shown.length, reader.skipped, reader.read]).toEqual([1000, 10, 1000, 1000]);
   });
 });
+
+describe('LogStreamReader attitude as Euler angles', () => {
+  it('reads rollDeg, pitchDeg, yawDeg rows as quaternions', async () => {
+    const { rows, reader } = await readAll('attitude', 'time,yawDeg,pitchDeg,rollDeg\n0,0,0,0\n0.01,180,0,0\n');
+    expect(reader.layout).toBe(1);
+    expect(rows[0]).toEqual([0, 1, 0, 0, 0]);
+    expect(rows[1]![0]).toBe(0.01);
+    expect(rows[1]![4]).toBeCloseTo(1, 15); // yaw 180 deg: q = [0, 0, 0, 1]
+    expect(rows[1]![1]).toBeCloseTo(0, 15);
+  });
+});

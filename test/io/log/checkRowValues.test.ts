@@ -12,6 +12,15 @@ describe('checkRowValues', () => {
     expect(problems.total).toBe(0);
   });
 
+  it('turns ZYX Euler angles (deg) into the quaternion q_wb', () => {
+    const v = Float64Array.of(2, 0, 0, 90, 0); // time, rollDeg, pitchDeg, yawDeg, (slot for qz)
+    expect(checkRowValues('attitude', 1, v, new ProblemLog(), 'attitude.csv', 2)).toBe(true);
+    // yaw 90 deg about z: q = [cos 45, 0, 0, sin 45] (frames/quatFromEulerDeg example)
+    expect(v[1]).toBeCloseTo(Math.SQRT1_2, 15);
+    expect([v[2], v[3]]).toEqual([0, 0]);
+    expect(v[4]).toBeCloseTo(Math.SQRT1_2, 15);
+  });
+
   it('reports each domain problem once with its column', () => {
     const problems = new ProblemLog();
     const bad: [Parameters<typeof checkRowValues>[0], number, number[]][] = [

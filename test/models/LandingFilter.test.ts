@@ -187,6 +187,26 @@ describe('LandingFilter: updates', () => {
     expect(late.time).toBe(onTime.time);
   });
 
+  it('a delayed box is seen through the attitude at its capture, not the attitude of the next IMU step', () => {
+    // The lander tilts by degrees per step; the box captured at step 20 was projected through
+    // attitude(20). Applying it with attitude(21) shifted the innovation by many pixels.
+    const dt = 0.005;
+    const attitude = (k: number) => quatFromEulerDeg(2 + 3 * Math.sin(k / 2), -1 + 4 * Math.cos(k / 3), 25);
+    const late = started(), onTime = started();
+    const box = boxFor([0.35, -0.15, -8.7], attitude(20));
+    for (let k = 1; k <= 40; k++) {
+      const t = k * dt;
+      late.propagate(t, hoverForce, attitude(k));
+      onTime.propagate(t, hoverForce, attitude(k));
+      if (k === 20) expect(onTime.updateBox(t, box).status).toBe('accepted');
+    }
+    const result = late.updateBox(20 * dt, box);
+    expect(result.status).toBe('accepted');
+    // 1e-12: same operations; the attitude differs at most in its last bit (re-normalized).
+    expectAllClose(late.x, onTime.x, { abs: 1e-12 }, 'x');
+    expectAllClose(late.P, onTime.P, { abs: 1e-12 }, 'P');
+  });
+
   it('keeps P exactly symmetric over 20 000 predict/update pairs (upper triangle computed and mirrored)', () => {
     const filter = started();
     const q = quatFromEulerDeg(1, 2, 70);

@@ -4,9 +4,10 @@
 // their capture time and the history re-propagated to now. Hot path allocation-free except the
 // small UpdateResult object returned per measurement.
 // Divergence: NaN/Infinity is caught at every step; the full positive-definiteness test
-// (Cholesky of P) runs every PD_CHECK_INTERVAL updates, after every delayed-box replay, and
-// whenever S = H P Hᵀ + R fails to be positive definite — a non-PD P is reported within a few
-// updates, a NaN never leaves the filter (x and P are restored to the last good step).
+// (Cholesky of P) runs every PD_CHECK_INTERVAL updates (on time or delayed), after a replay
+// that met a non-finite value, and whenever S = H P Hᵀ + R fails to be positive definite — a
+// non-PD P is reported within a few updates, a NaN never leaves the filter (x and P are
+// restored to the last good step).
 import type { FilterSpec } from '../sim/Scenario.js';
 import { type Box, boxProblem } from '../camera/Box.js';
 import type { FilterCamera } from './FilterCamera.js';
@@ -14,7 +15,7 @@ import { FilterHistory, EVENT_LOOSE, EVENT_ODOMETRY, EVENT_TIGHT, EVENTS_PER_STE
 import { LandingCore } from './LandingCore.js';
 import { rejected, type InitialSigma, type UpdateResult, type UpdateStatus } from './UpdateResult.js';
 import { validateFilterSpec } from './validateFilterSpec.js';
-import { allFinite, checkCovariance } from '../filter/checkCovariance.js';
+import { checkCovariance } from '../filter/checkCovariance.js';
 import { cholesky } from '../filter/cholesky.js';
 
 export type { FilterCamera } from './FilterCamera.js';
@@ -35,6 +36,8 @@ export class LandingFilter {
   private divergence: string | null = null;
   private initialized = false;
   private updatesSinceCheck = 0;
+  /** A predict or update of the current delayed-box replay met a non-finite value or non-PD S. */
+  private replayBroken = false;
   private readonly core: LandingCore;
   private readonly history: FilterHistory;
   private readonly loose: boolean;
@@ -185,6 +188,7 @@ export class LandingFilter {
     if (age < 1) return rejected('older-than-history', 3);
     const from = history.slot(age), to = history.slot(age - 1), head = history.slot(0);
     if (history.isFull(to)) return rejected('too-many-updates-per-step', 3);
+    this.replayBroken = false;
     history.restore(from, this.x, this.P);
     let tau = history.time[from]!;
     const base = to * EVENTS_PER_STEP;
@@ -212,10 +216,13 @@ export class LandingFilter {
       for (let e = 0; e < history.eventCount[slot]!; e++) tau = this.replayEvent(done, slot, slotBase + e, tau);
       this.stepWithSlotInput(history.time[slot]! - tau, slot);
     }
-    // One full test (finite x and P, Cholesky of P) covers the whole replay: NaN and ±Infinity
-    // persist through the re-propagation, and a P that fails it stops the filter here.
-    const event = checkCovariance(this.x, this.P, this.n, this.core.check);
-    if (event) return this.diverge(event, head);
+    // Every predict and update of the replay reports NaN and ±Infinity (replayBroken); then, or
+    // at the periodic cadence, the full test runs before the newest step is overwritten.
+    if (this.replayBroken || ++this.updatesSinceCheck >= PD_CHECK_INTERVAL) {
+      this.updatesSinceCheck = 0;
+      const event = checkCovariance(this.x, this.P, this.n, this.core.check);
+      if (event) return this.diverge(event, head);
+    }
     history.save(head, this.x, this.P);
     this.core.lastNis = nis;
     this.core.lastReason = reason;
@@ -227,7 +234,8 @@ export class LandingFilter {
     const h = this.history;
     const te = h.eventTime[index]!;
     this.stepWithSlotInput(te - tau, slot);
-    this.apply(h.eventKind[index]!, previous, slot, te, h.eventData[3 * index]!, h.eventData[3 * index + 1]!, h.eventData[3 * index + 2]!, false);
+    const status = this.apply(h.eventKind[index]!, previous, slot, te, h.eventData[3 * index]!, h.eventData[3 * index + 1]!, h.eventData[3 * index + 2]!, false);
+    if (status === 'diverged') this.replayBroken = true;
     return te;
   }
 
@@ -238,7 +246,7 @@ export class LandingFilter {
     f[0] = h.force[3 * slot]!;
     f[1] = h.force[3 * slot + 1]!;
     f[2] = h.force[3 * slot + 2]!;
-    this.core.stepRotated(dt, f, h.rotationOf(slot));
+    if (!this.core.stepRotated(dt, f, h.rotationOf(slot))) this.replayBroken = true;
   }
 
   /**

@@ -19,7 +19,7 @@ export function summaryTable(summaries: readonly PointSummary[]): string {
     String(s.trials),
     String(s.landed),
     fixed(s.successRate, 3),
-    `${fixed(s.wilsonLow, 3)}-${fixed(s.wilsonHigh, 3)}` + (s.ruleOfThreeLow !== null ? ` (r3 >= ${fixed(s.ruleOfThreeLow, 3)})` : ''),
+    `${fixed(s.wilsonLow, 3)}-${fixed(s.wilsonHigh, 3)}` + (s.ruleOfThreeLow !== null && s.ruleOfThreeLow > 0 ? ` (r3 >= ${fixed(s.ruleOfThreeLow, 3)})` : ''), // vacuous below 4 trials
     fixed(s.cep50, 3),
     fixed(s.cep95, 3),
     fixed(s.timeToLandP50, 1),

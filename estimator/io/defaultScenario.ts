@@ -80,6 +80,8 @@ export function defaultScenario(): Scenario {
       accelBiasWalk: 0.01,
       pixelNoise: 2,
       sizeNoise: 2,
+      sizeNoiseFraction: 0,
+      pixelNoiseFraction: 0,
       odometryNoise: 0.1,
       gateProbability: 0.997,
       qScale: 1,

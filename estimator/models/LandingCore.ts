@@ -2,7 +2,8 @@
 // arrays (allocation-free). LandingFilter adds the clock, the history for delayed boxes and
 // divergence bookkeeping on top. Measurements (all 3-dimensional, H non-zero in one 3-column
 // block; see FilterCamera.ts for the camera models):
-//   tight    z = [u, v, s] (px),          H = [∂h/∂r 0 0 0],   R = diag(σp², σp², σs²) · rScale
+//   tight    z = [u, v, s] (px),          H = [∂h/∂r 0 0 0],   R = diag(σp² + (φc h_s)², σp² + (φc h_s)², σs² + (φ h_s)²) · rScale
+//            (φ = sizeNoiseFraction, φc = pixelNoiseFraction: errors that scale with the box, see Scenario.ts)
 //   loose    z = back-projected r (m),     H = [I 0 0 0],       R = propagated box noise
 //   odometry z = vL (m/s, world),          H = [0 0 I 0],       R = σo² I · rScale
 import type { FilterSpec } from '../sim/Scenario.js';
@@ -29,9 +30,13 @@ export class LandingCore {
   readonly noise: ProcessNoise;
   /** Transition and process-noise coefficients per step length. */
   readonly coefficients: ProcessCoefficientCache;
-  /** Box centre and size variances (px², rScale applied). */
+  /** Box centre and constant size variances (px², rScale applied). */
   readonly varPixel: number;
   readonly varSize: number;
+  /** φ² · rScale: size variance per px² of box size (sizeNoiseFraction). */
+  readonly varSizeFraction: number;
+  /** φc² · rScale: centre variance per px² of box size (pixelNoiseFraction). */
+  readonly varPixelFraction: number;
   /** NIS and reason of the last apply(). */
   lastNis = Number.NaN;
   lastReason: string | null = null;
@@ -60,6 +65,8 @@ export class LandingCore {
     this.gate = gateThreshold(spec.gateProbability, 3, spec.gateScale);
     this.varPixel = spec.pixelNoise * spec.pixelNoise * spec.rScale;
     this.varSize = spec.sizeNoise * spec.sizeNoise * spec.rScale;
+    this.varSizeFraction = spec.sizeNoiseFraction * spec.sizeNoiseFraction * spec.rScale;
+    this.varPixelFraction = spec.pixelNoiseFraction * spec.pixelNoiseFraction * spec.rScale;
     this.Rbox = new Float64Array([this.varPixel, 0, 0, 0, this.varPixel, 0, 0, 0, this.varSize]);
     const varOdometry = spec.odometryNoise * spec.odometryNoise * spec.rScale;
     this.Rodometry = new Float64Array([varOdometry, 0, 0, 0, varOdometry, 0, 0, 0, varOdometry]);
@@ -108,8 +115,11 @@ export class LandingCore {
         y[0] = d0 - this.h[0]!;
         y[1] = d1 - this.h[1]!;
         y[2] = d2 - this.h[2]!;
+        this.Rbox[0] = this.Rbox[4] = this.centreVariance(this.h[2]!);
+        this.Rbox[8] = this.sizeVariance(this.h[2]!);
       } else {
-        const problem = this.model.loose(d0, d1, d2, this.varPixel, this.varPixel, this.varSize, this.fix, this.Rfix);
+        const varCentre = this.centreVariance(d2);
+        const problem = this.model.loose(d0, d1, d2, varCentre, varCentre, this.sizeVariance(d2), this.fix, this.Rfix);
         if (problem) return this.fail(problem);
         R = this.Rfix;
         Hb = IDENTITY3;
@@ -137,6 +147,16 @@ export class LandingCore {
       return 'diverged';
     }
     return 'accepted';
+  }
+
+  /** Size variance (px²) of a box of size s (px): σs² + (φ s)², rScale applied. */
+  sizeVariance(s: number): number {
+    return this.varSize + this.varSizeFraction * s * s;
+  }
+
+  /** Centre variance per axis (px²) of a box of size s (px): σp² + (φc s)², rScale applied. */
+  centreVariance(s: number): number {
+    return this.varPixel + this.varPixelFraction * s * s;
   }
 
   private fail(reason: string): UpdateStatus {

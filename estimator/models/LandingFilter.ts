@@ -106,7 +106,7 @@ export class LandingFilter {
     const core = this.core;
     core.model.setAttitude(this.attitude);
     const u = (box.xMin + box.xMax) / 2, v = (box.yMin + box.yMax) / 2, s = Math.sqrt((box.xMax - box.xMin) * (box.yMax - box.yMin));
-    const modelProblem = core.model.loose(u, v, s, core.varPixel, core.varPixel, core.varSize, core.fix, core.Rfix);
+    const modelProblem = core.model.loose(u, v, s, core.centreVariance(s), core.centreVariance(s), core.sizeVariance(s), core.fix, core.Rfix);
     if (modelProblem) return rejected(modelProblem, 3);
     if (!cholesky(this.core.Rfix, 3, this.core.check)) return rejected('fix-covariance-not-positive-definite', 3);
     this.initialize(t, core.fix, vL, vL, { position: 1, velocity: sigma.velocity, accelBias: sigma.accelBias });

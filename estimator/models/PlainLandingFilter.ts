@@ -136,11 +136,15 @@ export class PlainLandingFilter {
       const J = Array.from(boxMeasurementJacobian(this.model.camera, this.targetSize, p));
       const Hr = new Matrix([J.slice(0, 3), J.slice(3, 6), J.slice(6, 9)]).mmul(Rcb).mmul(Rwb.transpose());
       H.setSubMatrix(Hr, 0, 0);
-      return this.update(Matrix.columnVector([u - h[0]!, v - h[1]!, s - h[2]!]), H, this.Rbox);
+      // size variance σs² + (φ h_s)²: the fractional part scales with the predicted size
+      const R = this.Rbox.clone();
+      R.set(2, 2, this.Rbox.get(2, 2) + this.spec.sizeNoiseFraction ** 2 * this.spec.rScale * h[2]! ** 2);
+      for (const i of [0, 1]) R.set(i, i, this.Rbox.get(i, i) + this.spec.pixelNoiseFraction ** 2 * this.spec.rScale * h[2]! ** 2);
+      return this.update(Matrix.columnVector([u - h[0]!, v - h[1]!, s - h[2]!]), H, R);
     }
     this.model.setAttitude(this.attitude);
     const fix = new Float64Array(3), Rfix = new Float64Array(9);
-    const vp = this.Rbox.get(0, 0), vs = this.Rbox.get(2, 2);
+    const vp = this.Rbox.get(0, 0) + this.spec.pixelNoiseFraction ** 2 * this.spec.rScale * s * s, vs = this.Rbox.get(2, 2) + this.spec.sizeNoiseFraction ** 2 * this.spec.rScale * s * s;
     const modelProblem = this.model.loose(u, v, s, vp, vp, vs, fix, Rfix);
     if (modelProblem) return { status: 'rejected', nis: Number.NaN, dim: 3, reason: modelProblem };
     H.setSubMatrix(Matrix.eye(3, 3), 0, 0);

@@ -14,7 +14,7 @@ type NumericKey = { [K in keyof FilterSpec]: FilterSpec[K] extends number ? K : 
 
 const POSITIVE: readonly NumericKey[] = ['rate', 'qScale', 'rScale', 'gateScale'];
 const POSITIVE_R: readonly NumericKey[] = ['pixelNoise', 'sizeNoise', 'odometryNoise'];
-const NON_NEGATIVE: readonly NumericKey[] = ['carrierAccelNoise', 'accelNoise', 'accelBiasWalk', 'historyLength'];
+const NON_NEGATIVE: readonly NumericKey[] = ['sizeNoiseFraction', 'pixelNoiseFraction', 'carrierAccelNoise', 'accelNoise', 'accelBiasWalk', 'historyLength'];
 
 export function validateFilterSpec(spec: FilterSpec): void {
   for (const key of POSITIVE) {

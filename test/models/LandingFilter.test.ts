@@ -187,6 +187,31 @@ describe('LandingFilter: updates', () => {
     expect(late.time).toBe(onTime.time);
   });
 
+  it('size and centre noise in proportion to the box: R = diag(σp² + (φc s)², σp² + (φc s)², σs² + (φ s)²) · rScale', () => {
+    // A nearly certain position (σ = 0.1 mm) makes S = R to ~1e-6; the box is the model's own,
+    // grown by 10 % about its centre, so only the size channel has an innovation.
+    const spec = filterSpec({ sizeNoise: 1.5, sizeNoiseFraction: 0.06, pixelNoise: 2, pixelNoiseFraction: 0.02, rScale: 2 });
+    const filter = new LandingFilter(spec, camera, targetSize);
+    filter.initialize(0, r0, [1, 0, 0], [1, 0, 0], { position: 1e-4, velocity: 0.3, accelBias: 0.05 });
+    filter.propagate(0.005, hoverForce, level); // vC = vL: r stays r0
+    const box = boxFor(r0);
+    const s = Math.sqrt((box.xMax - box.xMin) * (box.yMax - box.yMin));
+    const cu = (box.xMin + box.xMax) / 2, cv = (box.yMin + box.yMax) / 2, k = 1.1;
+    const grown = { xMin: cu - (k * (box.xMax - box.xMin)) / 2, xMax: cu + (k * (box.xMax - box.xMin)) / 2, yMin: cv - (k * (box.yMax - box.yMin)) / 2, yMax: cv + (k * (box.yMax - box.yMin)) / 2 };
+    const result = filter.updateBox(0.005, grown);
+    const expected = ((k - 1) * s) ** 2 / ((1.5 ** 2 + (0.06 * s) ** 2) * 2);
+    expect(s).toBeGreaterThan(30); // the fractional term dominates (0.06 s > 1.5 px)
+    // 1e-4 relative: H P Hᵀ with σ = 0.1 mm adds ~1e-6 of R.
+    expectClose(result.nis, expected, { rel: 1e-4 }, 'NIS of a 10 % larger box');
+    // Loose: the fix moves along the ray by Δp = p (1 - k) = (k s)(k - 1) ∂p/∂s at the measured size
+    // k s, and R_fix = J R_box Jᵀ, so NIS = (k s (k - 1))² / ((σs² + (φ k s)²) rScale).
+    const loose = new LandingFilter({ ...spec, cameraUpdate: 'loose' }, camera, targetSize);
+    loose.initialize(0, r0, [1, 0, 0], [1, 0, 0], { position: 1e-4, velocity: 0.3, accelBias: 0.05 });
+    loose.propagate(0.005, hoverForce, level);
+    const expectedLoose = (k * s * (k - 1)) ** 2 / ((1.5 ** 2 + (0.06 * k * s) ** 2) * 2);
+    expectClose(loose.updateBox(0.005, grown).nis, expectedLoose, { rel: 1e-4 }, 'loose NIS of a 10 % larger box'); // as above
+  });
+
   it('a delayed box is seen through the attitude at its capture, not the attitude of the next IMU step', () => {
     // The lander tilts by degrees per step; the box captured at step 20 was projected through
     // attitude(20). Applying it with attitude(21) shifted the innovation by many pixels.

@@ -15,7 +15,7 @@ export function filterSpec(overrides: Partial<FilterSpec> = {}): FilterSpec {
   return {
     rate: 200, cameraUpdate: 'tight', carrierModel: 'constant-velocity',
     carrierAccelNoise: 0.3, singerTau: 2, accelNoise: 0.05, accelBiasWalk: 0.002,
-    pixelNoise: 2, sizeNoise: 1.5, odometryNoise: 0.05,
+    pixelNoise: 2, sizeNoise: 1.5, sizeNoiseFraction: 0, pixelNoiseFraction: 0, odometryNoise: 0.05,
     gateProbability: 0.997, qScale: 1, rScale: 1, gateScale: 1, historyLength: 0.3,
     ...overrides,
   };

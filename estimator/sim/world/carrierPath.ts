@@ -3,7 +3,7 @@
 import type { CarrierSpec } from '../Scenario.js';
 import { CarrierPathError } from './CarrierPathError.js';
 import { createPlanarPoint, type PlanarPath } from './PlanarPath.js';
-import { ellipsePath, figureEightPath } from './parametricPath.js';
+import { ellipsePath, figureEightPath, type ParametricPath } from './parametricPath.js';
 import { RecordedPath, type RecordedSample } from './recordedPath.js';
 import { roundedRectanglePath, straightPath, surveyPath } from './segmentPath.js';
 import { SpeedProfileModel, type ProfileSample } from './speedProfile.js';
@@ -47,6 +47,23 @@ function positive(field: string, value: number): number {
   return value;
 }
 
+// Arc-length tables of the curved paths take ~0.5 ms to build and every trial of a study
+// builds the same one: keep the newest few. A ParametricPath carries nothing from one
+// evaluation to the next, so sharing it leaves every trial's numbers as they were.
+const CURVE_CACHE_SIZE = 16;
+const curveCache = new Map<string, ParametricPath>();
+
+function cachedCurve(shape: 'ellipse' | 'figure-eight', a: number, b: number): ParametricPath {
+  const key = `${shape} ${a} ${b}`;
+  let path = curveCache.get(key);
+  if (!path) {
+    path = shape === 'ellipse' ? ellipsePath(a, b) : figureEightPath(a, b);
+    if (curveCache.size >= CURVE_CACHE_SIZE) curveCache.delete(curveCache.keys().next().value!);
+    curveCache.set(key, path);
+  }
+  return path;
+}
+
 /** The plane curve of a path spec (recorded paths are handled separately). */
 export function planarPathFromSpec(spec: CarrierSpec['path']): PlanarPath {
   switch (spec.shape) {
@@ -61,9 +78,9 @@ export function planarPathFromSpec(spec: CarrierSpec['path']): PlanarPath {
       return roundedRectanglePath(length, width, spec.cornerRadius);
     }
     case 'ellipse':
-      return ellipsePath(positive('carrier.path.length', spec.length), positive('carrier.path.width', spec.width));
+      return cachedCurve('ellipse', positive('carrier.path.length', spec.length), positive('carrier.path.width', spec.width));
     case 'figure-eight':
-      return figureEightPath(positive('carrier.path.length', spec.length), positive('carrier.path.width', spec.width));
+      return cachedCurve('figure-eight', positive('carrier.path.length', spec.length), positive('carrier.path.width', spec.width));
     case 'survey':
       return surveyPath(
         positive('carrier.path.length', spec.length),

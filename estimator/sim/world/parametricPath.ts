@@ -5,14 +5,19 @@
 // reported speed is exact and the position agrees with it to ~1e-9 m.
 import type { PlanarPath, PlanarPoint } from './PlanarPath.js';
 
-/** A closed curve and its first two derivatives with respect to theta. */
+/** A point of a closed curve and its first two derivatives with respect to theta. */
+export interface CurveSample {
+  x: number;
+  y: number;
+  dx: number;
+  dy: number;
+  ddx: number;
+  ddy: number;
+}
+
+/** A closed curve: all of p, p', p'' at theta in one call (the trigonometry is shared). */
 export interface ClosedCurve {
-  x(theta: number): number;
-  y(theta: number): number;
-  dx(theta: number): number;
-  dy(theta: number): number;
-  ddx(theta: number): number;
-  ddy(theta: number): number;
+  at(theta: number, out: CurveSample): CurveSample;
 }
 
 // 8-point Gauss-Legendre nodes and weights on [-1, 1] (Abramowitz & Stegun, table 25.4).
@@ -36,6 +41,7 @@ export class ParametricPath implements PlanarPath {
   /** slope[i] = dtheta/ds = 1 / |p'(theta_i)| at the knots. */
   private readonly slope = new Float64Array(TABLE_INTERVALS + 1);
   private readonly step = (2 * Math.PI) / TABLE_INTERVALS;
+  private readonly sample: CurveSample = { x: 0, y: 0, dx: 0, dy: 0, ddx: 0, ddy: 0 };
 
   constructor(curve: ClosedCurve) {
     this.curve = curve;
@@ -47,7 +53,7 @@ export class ParametricPath implements PlanarPath {
   }
 
   private speed(theta: number): number {
-    const dx = this.curve.dx(theta), dy = this.curve.dy(theta);
+    const { dx, dy } = this.curve.at(theta, this.sample);
     return Math.sqrt(dx * dx + dy * dy);
   }
 
@@ -82,15 +88,10 @@ export class ParametricPath implements PlanarPath {
   }
 
   evaluate(s: number, out: PlanarPoint): PlanarPoint {
-    const theta = this.thetaAt(s);
-    const { curve } = this;
-    const dx = curve.dx(theta);
-    const dy = curve.dy(theta);
-    const ddx = curve.ddx(theta);
-    const ddy = curve.ddy(theta);
+    const { x, y, dx, dy, ddx, ddy } = this.curve.at(this.thetaAt(s), this.sample);
     const speed = Math.sqrt(dx * dx + dy * dy);
-    out.x = curve.x(theta);
-    out.y = curve.y(theta);
+    out.x = x;
+    out.y = y;
     out.tx = dx / speed;
     out.ty = dy / speed;
     // signed curvature kappa = (x' y'' - y' x'') / |p'|^3
@@ -105,12 +106,16 @@ export class ParametricPath implements PlanarPath {
  */
 export function ellipsePath(a: number, b: number): ParametricPath {
   return new ParametricPath({
-    x: (t) => a * Math.sin(t),
-    y: (t) => b * (1 - Math.cos(t)),
-    dx: (t) => a * Math.cos(t),
-    dy: (t) => b * Math.sin(t),
-    ddx: (t) => -a * Math.sin(t),
-    ddy: (t) => b * Math.cos(t),
+    at(t, out) {
+      const sin = Math.sin(t), cos = Math.cos(t);
+      out.x = a * sin;
+      out.y = b * (1 - cos);
+      out.dx = a * cos;
+      out.dy = b * sin;
+      out.ddx = -a * sin;
+      out.ddy = b * cos;
+      return out;
+    },
   });
 }
 
@@ -121,11 +126,15 @@ export function ellipsePath(a: number, b: number): ParametricPath {
  */
 export function figureEightPath(a: number, b: number): ParametricPath {
   return new ParametricPath({
-    x: (t) => a * Math.sin(t),
-    y: (t) => b * Math.sin(2 * t),
-    dx: (t) => a * Math.cos(t),
-    dy: (t) => 2 * b * Math.cos(2 * t),
-    ddx: (t) => -a * Math.sin(t),
-    ddy: (t) => -4 * b * Math.sin(2 * t),
+    at(t, out) {
+      const sin = Math.sin(t), cos = Math.cos(t), sin2 = Math.sin(2 * t), cos2 = Math.cos(2 * t);
+      out.x = a * sin;
+      out.y = b * sin2;
+      out.dx = a * cos;
+      out.dy = 2 * b * cos2;
+      out.ddx = -a * sin;
+      out.ddy = -4 * b * sin2;
+      return out;
+    },
   });
 }

@@ -3,7 +3,7 @@
 // follows the thrust direction. step() is allocation-free (state in preallocated arrays).
 import type { LanderSpec } from '../Scenario.js';
 import { mat3TransposeMultiplyVector, rotationMatrixFromQuat } from '../../frames/rotationMatrixFromQuat.js';
-import { attitudeFromAcceleration, GRAVITY } from './thrustAttitude.js';
+import { attitudeFromAccelerationAtHeading, GRAVITY } from './thrustAttitude.js';
 
 const DEG = Math.PI / 180;
 
@@ -46,7 +46,9 @@ export interface LanderDynamicsOptions {
 export class LanderDynamics {
   readonly spec: LanderSpec;
   readonly state: LanderState = createLanderState();
-  private readonly yaw: number;
+  /** Cosine and sine of the held yaw. */
+  private readonly cosYaw: number;
+  private readonly sinYaw: number;
   private readonly dragTime: number;
   private readonly rejectionTime: number;
   /** Wind-drag acceleration the velocity loop has learnt to cancel (m/s^2, world). */
@@ -61,7 +63,9 @@ export class LanderDynamics {
 
   constructor(spec: LanderSpec, position: ArrayLike<number>, options: LanderDynamicsOptions = {}) {
     this.spec = spec;
-    this.yaw = options.yaw ?? 0;
+    const yaw = options.yaw ?? 0;
+    this.cosYaw = Math.cos(yaw);
+    this.sinYaw = Math.sin(yaw);
     this.dragTime = options.dragTimeConstant ?? 4;
     this.rejectionTime = options.windRejectionTime ?? 1.5;
     this.tanMaxTilt = Math.tan(spec.maxTiltDeg * DEG);
@@ -139,7 +143,7 @@ export class LanderDynamics {
   // Body z along the thrust; specific force f_b = R_bw (a - g_vec) = R_wb^T (a + (0, 0, g)).
   private updateAttitude(): void {
     const s = this.state;
-    s.tilt = attitudeFromAcceleration(this.thrust, this.yaw, s.qWorldBody);
+    s.tilt = attitudeFromAccelerationAtHeading(this.thrust, this.cosYaw, this.sinYaw, s.qWorldBody);
     const f = this.specificForceWorld;
     f[0] = s.acceleration[0]!; f[1] = s.acceleration[1]!; f[2] = s.acceleration[2]! + GRAVITY;
     rotationMatrixFromQuat(s.qWorldBody, this.Rwb);

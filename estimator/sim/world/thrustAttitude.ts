@@ -14,6 +14,11 @@ const scratch = new Float64Array(9);
  * When |f| vanishes (free fall) the body is held level. Returns the tilt angle (rad) of z_b from vertical.
  */
 export function attitudeFromAcceleration(acceleration: ArrayLike<number>, yaw: number, out: Float64Array): number {
+  return attitudeFromAccelerationAtHeading(acceleration, Math.cos(yaw), Math.sin(yaw), out);
+}
+
+/** attitudeFromAcceleration with the yaw given as its cosine and sine (a held yaw: no trigonometry per step). */
+export function attitudeFromAccelerationAtHeading(acceleration: ArrayLike<number>, c: number, s: number, out: Float64Array): number {
   let zx = acceleration[0]!, zy = acceleration[1]!, zz = acceleration[2]! + GRAVITY;
   let norm = Math.sqrt(zx * zx + zy * zy + zz * zz);
   if (norm < 1e-9 || zz <= 0) {
@@ -21,7 +26,6 @@ export function attitudeFromAcceleration(acceleration: ArrayLike<number>, yaw: n
     zx = 0; zy = 0; zz = 1; norm = 1;
   }
   zx /= norm; zy /= norm; zz /= norm;
-  const c = Math.cos(yaw), s = Math.sin(yaw);
   // x_b = y_c x z_b / |.| with y_c = (-sin yaw, cos yaw, 0): x_b stays in the vertical plane of the yaw
   let xx = c * zz, xy = s * zz, xz = -s * zy - c * zx;
   const nx = Math.sqrt(xx * xx + xy * xy + xz * xz);

@@ -63,7 +63,10 @@ export function deckContact(
   const vz = lander.velocity[2]! - carrier.velocity[2]!;
   const vn = vx * nx + vy * ny + vz * nz;
   out.closingSpeed = -vn;
-  out.lateralSpeed = Math.hypot(vx - vn * nx, vy - vn * ny, vz - vn * nz);
+  // sqrt of the sum of squares, not Math.hypot: this runs every step and V8's hypot is slow
+  // and allocates; speeds are far from overflow
+  const lx = vx - vn * nx, ly = vy - vn * ny, lz = vz - vn * nz;
+  out.lateralSpeed = Math.sqrt(lx * lx + ly * ly + lz * lz);
   const b = lander.qWorldBody;
   const bw = b[0]!, bx = b[1]!, by = b[2]!, bz = b[3]!;
   const zbx = 2 * (bx * bz + bw * by), zby = 2 * (by * bz - bw * bx), zbz = 1 - 2 * (bx * bx + by * by);

@@ -25,7 +25,7 @@ export const trialBench: BenchSection = {
     const dir = join(import.meta.dirname, '..', '..', 'data-demo');
     const names = readdirSync(dir).filter((f) => f.endsWith('.scenario.json')).sort();
     const scenarios = names.map((name) => setPaths(loadScenario(join(dir, name)), { duration: 60, 'guidance.alignTime': 60 }));
-    for (let round = 0; round < 2; round++) {
+    for (let round = 0; round < 3; round++) {
       for (const scenario of scenarios) {
         runTrial(scenario, { key: { seed: 999, point: 0, trial: round } });
         runTrial(setPaths(scenario, { 'detector.latency': 0, 'detector.latencyJitter': 0 }), { key: { seed: 999, point: 0, trial: round } });

@@ -6,7 +6,7 @@
 import type { Box } from '../../camera/Box.js';
 import type { FilterSpec } from '../../sim/Scenario.js';
 import { estimatesHeader, estimatesRowFromDiagonal } from './estimatesCsv.js';
-import type { LogCameraModel } from './parseLogCamera.js';
+import type { FilterCamera } from '../../models/FilterCamera.js';
 import { LOG_FORMAT, LOG_VERSION } from './parseLogCamera.js';
 import type { TrialRecorder } from './TrialRecorder.js';
 
@@ -31,7 +31,7 @@ const HEADERS: Record<string, string> = {
 
 export interface LogRecorderOptions {
   /** The camera the filter believes in (focal error included, misalignment not). */
-  camera: LogCameraModel;
+  camera: FilterCamera;
   /** Target size the filter assumes (m). */
   targetSize: number;
   /** The filter settings flown: written to filter.json so replay uses the same. */

@@ -2,26 +2,17 @@
 // distortion, mount, image size), the assumed target size and per-stream clock offsets.
 // Validated once here; every problem names the field. Browser-safe (takes parsed JSON).
 import type { CameraMount, Distortion } from '../../sim/Scenario.js';
+import type { FilterCamera } from '../../models/FilterCamera.js';
 import { LogLayoutError } from './LogProblem.js';
 import { LOG_STREAMS, type LogStreamName } from './logStreams.js';
 
 export const LOG_FORMAT = 'alight-log';
 export const LOG_VERSION = 1;
 
-/** The camera the filter believes in (same fields as the LandingFilter's FilterCamera). */
-export interface LogCameraModel {
-  fx: number;
-  fy: number;
-  cx: number;
-  cy: number;
-  width: number;
-  height: number;
-  distortion: Distortion;
-  mount: CameraMount;
-}
 
 export interface LogCamera {
-  camera: LogCameraModel;
+  /** The camera the filter believes in. */
+  camera: FilterCamera;
   /** Target size the filter assumes: sqrt(deck length * width) (m). */
   targetSize: number;
   /** Seconds added to each stream's times to bring it onto the common clock (absent = 0). */

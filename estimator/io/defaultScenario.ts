@@ -70,18 +70,35 @@ export function defaultScenario(): Scenario {
       targetSizeError: 0.05,
       clockOffset: 0,
     },
+    // Filter noise chosen so the default scenario is consistent (mean NEES ≈ 6 for dimension 6
+    // over 100 seeded trials) and lands (100/100); measured against the simulator's truth:
+    // - carrierAccelNoise 0.2: the default carrier drives straight at constant speed; 0.5 left the
+    //   carrier-velocity estimate noise-driven (σ ≈ 0.16 m/s at the last box), and the blind last
+    //   ~1.6 m of descent turned that into ±0.34 m of miss.
+    // - pixelNoise 1.5 px: the detector's own centre noise; pixelNoiseFraction 0.02: the outline's
+    //   box centre sits 2.0 % of the box (rms) from the deck centre's image (body below the deck seen
+    //   obliquely, perspective under tilt), so it grows in px as the lander descends.
+    // - sizeNoise 1 px + sizeNoiseFraction 0.1: rms of (outline box size / sqrt(fx fy A)/Z - 1) is
+    //   4.2 % here (5 % target-size error, 1 % focal error, outline), RSS with the detector's 3 % =
+    //   5.2 %; these are biases within a trial that averaging cannot remove, so 10 % keeps the range
+    //   honest. (A carrier yawed by ψ against the camera makes it worse: the box of an L x W deck has
+    //   sqrt(area) / sqrt(LW) = sqrt((L|cosψ| + W|sinψ|)(L|sinψ| + W|cosψ|) / LW), mean 1.28 and sd
+    //   0.13 over uniform ψ for the demo aspect ratios 1 to 1.5; here the lander holds the carrier's
+    //   heading, ψ ≈ 0.)
+    // The price: NIS ≈ 0.6-1 (dim 3), because these slowly varying errors hide inside the estimate
+    // rather than the innovation; NIS near 3 would need bias states, not a white R.
     filter: {
       rate: 100,
       cameraUpdate: 'tight',
       carrierModel: 'constant-velocity',
-      carrierAccelNoise: 0.5,
+      carrierAccelNoise: 0.2,
       singerTau: 3,
       accelNoise: 0.1,
       accelBiasWalk: 0.01,
-      pixelNoise: 2,
-      sizeNoise: 2,
-      sizeNoiseFraction: 0,
-      pixelNoiseFraction: 0,
+      pixelNoise: 1.5,
+      sizeNoise: 1,
+      sizeNoiseFraction: 0.1,
+      pixelNoiseFraction: 0.02,
       odometryNoise: 0.1,
       gateProbability: 0.997,
       qScale: 1,

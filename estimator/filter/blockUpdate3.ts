@@ -66,17 +66,36 @@ export function updateJoseph3(x: Float64Array, P: Float64Array, n: number, ws: U
     x[i] = xi;
     finite += xi * 0;
   }
-  for (let i = 0; i < n; i++) {
-    // W = K S - U (row i), so P_ij += W_i · K_j - K_i · U_j
+  // W = K S - U, so P_ij += W_i · K_j - K_i · U_j, upper triangle, mirrored. Rows go in pairs
+  // so each K_j, U_j is loaded once for two rows (the entries and their order are unchanged).
+  let i = 0;
+  for (; i + 1 < n; i += 2) {
     const w0 = KS[3 * i]! - U[3 * i]!, w1 = KS[3 * i + 1]! - U[3 * i + 1]!, w2 = KS[3 * i + 2]! - U[3 * i + 2]!;
     const k0 = K[3 * i]!, k1 = K[3 * i + 1]!, k2 = K[3 * i + 2]!;
-    const row = i * n;
-    for (let j = i; j < n; j++) {
-      const value = P[row + j]! + (w0 * K[3 * j]! + w1 * K[3 * j + 1]! + w2 * K[3 * j + 2]!) - (k0 * U[3 * j]! + k1 * U[3 * j + 1]! + k2 * U[3 * j + 2]!);
-      P[row + j] = value;
-      P[j * n + i] = value;
-      finite += value * 0;
+    const v0 = KS[3 * i + 3]! - U[3 * i + 3]!, v1 = KS[3 * i + 4]! - U[3 * i + 4]!, v2 = KS[3 * i + 5]! - U[3 * i + 5]!;
+    const m0 = K[3 * i + 3]!, m1 = K[3 * i + 4]!, m2 = K[3 * i + 5]!;
+    const row = i * n, next = row + n;
+    const diagonal = P[row + i]! + (w0 * k0 + w1 * k1 + w2 * k2) - (k0 * U[3 * i]! + k1 * U[3 * i + 1]! + k2 * U[3 * i + 2]!);
+    P[row + i] = diagonal;
+    let pairFinite = diagonal * 0;
+    for (let j = i + 1; j < n; j++) {
+      const a0 = K[3 * j]!, a1 = K[3 * j + 1]!, a2 = K[3 * j + 2]!, b0 = U[3 * j]!, b1 = U[3 * j + 1]!, b2 = U[3 * j + 2]!;
+      const upper = P[row + j]! + (w0 * a0 + w1 * a1 + w2 * a2) - (k0 * b0 + k1 * b1 + k2 * b2);
+      P[row + j] = upper;
+      P[j * n + i] = upper;
+      const lower = P[next + j]! + (v0 * a0 + v1 * a1 + v2 * a2) - (m0 * b0 + m1 * b1 + m2 * b2);
+      P[next + j] = lower;
+      if (j > i + 1) P[j * n + i + 1] = lower;
+      pairFinite += upper * 0 + lower * 0;
     }
+    finite += pairFinite;
+  }
+  if (i < n) {
+    // last row of an odd n: its diagonal only
+    const value = P[i * n + i]! + ((KS[3 * i]! - U[3 * i]!) * K[3 * i]! + (KS[3 * i + 1]! - U[3 * i + 1]!) * K[3 * i + 1]! + (KS[3 * i + 2]! - U[3 * i + 2]!) * K[3 * i + 2]!)
+      - (K[3 * i]! * U[3 * i]! + K[3 * i + 1]! * U[3 * i + 1]! + K[3 * i + 2]! * U[3 * i + 2]!);
+    P[i * n + i] = value;
+    finite += value * 0;
   }
   return finite === 0;
 }

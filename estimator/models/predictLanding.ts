@@ -90,11 +90,28 @@ export function predictLanding(x: Float64Array, P: Float64Array, n: number, f: A
     }
   }
   let finite = 0;
-  for (let i = 0; i < n; i++) {
-    finite += x[i]! * 0 + P[i * n + i]! * 0;
+  for (let i = 0; i < n; i++) finite += x[i]! * 0 + P[i * n + i]! * 0;
+  // Mirror two rows at a time: their sources (j, i) and (j, i + 1) sit side by side.
+  let i = 1;
+  for (; i + 1 < n; i += 2) {
+    const row = i * n, next = row + n;
+    let a = 0, b = 0;
+    for (let j = 0; j < i; j++) {
+      const u = P[j * n + i]!, v = P[j * n + i + 1]!;
+      P[row + j] = u;
+      P[next + j] = v;
+      a += u * 0;
+      b += v * 0;
+    }
+    const d = P[row + i + 1]!;
+    P[next + i] = d;
+    finite += a + b + d * 0;
+  }
+  for (; i < n; i++) {
+    const row = i * n;
     for (let j = 0; j < i; j++) {
       const value = P[j * n + i]!;
-      P[i * n + j] = value;
+      P[row + j] = value;
       finite += value * 0;
     }
   }

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { EVENTS_PER_STEP, FilterHistory } from '../../estimator/models/FilterHistory.js';
+import { quatFromEulerDeg } from '../../estimator/frames/quatFromEulerDeg.js';
+import { rotationMatrixFromQuat } from '../../estimator/frames/rotationMatrixFromQuat.js';
 
 describe('FilterHistory', () => {
   it('keeps the newest steps of a ring and finds the step at or before a time', () => {
@@ -25,5 +27,14 @@ describe('FilterHistory', () => {
     for (let k = 2; k < EVENTS_PER_STEP; k++) expect(h.addEvent(slot, 1, 0.99, 0, 0, 0)).toBe(true);
     expect(h.isFull(slot)).toBe(true);
     expect(h.addEvent(slot, 1, 0.99, 0, 0, 0)).toBe(false);
+  });
+
+  it('stores the R_wb of each step with its attitude, so a re-propagation needs no quaternion work', () => {
+    const h = new FilterHistory(1, 3);
+    const q = quatFromEulerDeg(5, -10, 120);
+    const slot = h.push(0.01, [0, 0, 9.8], q, [0], [1]);
+    expect(Array.from(h.rotationOf(slot))).toEqual(Array.from(rotationMatrixFromQuat(q)));
+    const unknown = h.push(0.02, [0, 0, 9.8], [Number.NaN, Number.NaN, Number.NaN, Number.NaN], [0], [1]);
+    expect(h.rotationOf(unknown).every(Number.isNaN)).toBe(true);
   });
 });

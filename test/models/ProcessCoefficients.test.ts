@@ -1,5 +1,5 @@
-import { describe, it } from 'vitest';
-import { emptyProcessCoefficients, processCoefficients } from '../../estimator/models/ProcessCoefficients.js';
+import { describe, expect, it } from 'vitest';
+import { emptyProcessCoefficients, processCoefficients, ProcessCoefficientCache } from '../../estimator/models/ProcessCoefficients.js';
 import { expectClose } from '../helpers/expectClose.js';
 
 describe('processCoefficients', () => {
@@ -37,5 +37,36 @@ describe('processCoefficients', () => {
     expectClose(singer.QVcVc, cv.QVcVc, { rel: 1e-2 }, 'Q_vCvC');
     expectClose(singer.Qrr, cv.Qrr, { rel: 1e-2 }, 'Q_rr');
     expectClose(singer.QrVc, cv.QrVc, { rel: 1e-2 }, 'Q_rvC');
+  });
+});
+
+describe('ProcessCoefficientCache', () => {
+  const noise = { carrierAccelNoise: 0.4, singerTau: 1.5, accelNoise: 0.06, accelBiasWalk: 0.003, qScale: 1.7 };
+
+  it('returns exactly what processCoefficients computes for each dt, keeping steps that differ in the last bits apart', () => {
+    const cache = new ProcessCoefficientCache(true, noise, 4);
+    // t - t_prev for t = k / 100: values a clock really produces, all ≈ 0.01
+    const steps = [0.03 - 0.02, 0.01, 0.07 - 0.06, 0.02 - 0.01];
+    expect(new Set(steps).size).toBeGreaterThan(1);
+    for (let round = 0; round < 2; round++) {
+      for (const dt of steps) {
+        const expected = processCoefficients(dt, noise, emptyProcessCoefficients(true));
+        expect({ ...cache.get(dt) }).toEqual({ ...expected });
+      }
+    }
+    expect(cache.get(steps[0]!)).toBe(cache.get(steps[0]!)); // kept, not recomputed
+  });
+
+  it('replaces entries round-robin when more step lengths come than it holds, and clear() forgets all', () => {
+    const cache = new ProcessCoefficientCache(false, noise, 2);
+    const a = cache.get(0.01), b = cache.get(0.02);
+    expect(cache.get(0.01)).toBe(a);
+    const c = cache.get(0.03); // replaces the oldest entry (a's)
+    expect(c).toBe(a);
+    expect(c.dt).toBe(0.03);
+    expect(cache.get(0.02)).toBe(b);
+    cache.clear();
+    expect(b.dt).toBeNaN();
+    expect(cache.get(0.02).QVlVl).toBe(processCoefficients(0.02, noise, emptyProcessCoefficients(false)).QVlVl);
   });
 });

@@ -161,3 +161,23 @@ describe('createCarrierTrajectory', () => {
       .toThrow(/carrier.path.cornerRadius/);
   });
 });
+
+describe('createCarrierTrajectory shares the arc-length table of a curved path between trials', () => {
+  it('gives bit-identical states whatever another trajectory on the same cached path evaluated in between', () => {
+    for (const shape of ['ellipse', 'figure-eight'] as const) {
+      const a = createCarrierTrajectory(spec(shape)), b = createCarrierTrajectory(spec(shape));
+      const sa = createCarrierState(), sb = createCarrierState();
+      for (let k = 0; k < 200; k++) {
+        const t = k * 0.37;
+        a.stateAt(t, sa);
+        b.stateAt(1000 - t, sb); // disturb any state the shared path could carry
+        const again = createCarrierState();
+        b.stateAt(t, again);
+        expect(Array.from(again.position)).toEqual(Array.from(sa.position));
+        expect(Array.from(again.velocity)).toEqual(Array.from(sa.velocity));
+        expect(again.heading).toBe(sa.heading);
+      }
+      expect(b.pathLength).toBe(a.pathLength);
+    }
+  });
+});

@@ -63,7 +63,8 @@ export class FilterHistory {
 
   /** Physical slot of the step `age` steps back from the newest (age 0). */
   slot(age: number): number {
-    return (this.head - age + this.capacity) % this.capacity;
+    const s = this.head - age; // age < capacity: one wrap at most (no integer division)
+    return s < 0 ? s + this.capacity : s;
   }
 
   /** Append a step (overwriting the oldest when full); returns its slot. */

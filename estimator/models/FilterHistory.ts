@@ -69,7 +69,7 @@ export class FilterHistory {
 
   /** Append a step (overwriting the oldest when full); returns its slot. */
   push(t: number, force: ArrayLike<number>, attitude: ArrayLike<number>, x: ArrayLike<number>, P: ArrayLike<number>): number {
-    this.head = (this.head + 1) % this.capacity;
+    this.head = this.head + 1 === this.capacity ? 0 : this.head + 1;
     if (this.size < this.capacity) this.size++;
     const s = this.head;
     this.time[s] = t;

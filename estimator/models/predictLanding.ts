@@ -118,15 +118,27 @@ export function predictLanding(x: Float64Array, P: Float64Array, n: number, f: A
   return finite === 0;
 }
 
-/** Row pass of the Singer factor, T = F_s (F_cv P): rows r and vC read row aC before it is scaled. */
+/**
+ * Row pass of the Singer factor, T = F_s (F_cv P), one sweep over the columns: rows r and vC
+ * read row aC before it is scaled. Row vC is needed from column vC on and row aC from column
+ * aC on (their earlier columns are lower triangle, overwritten by the mirror).
+ */
 function singerRows(P: Float64Array, n: number, alpha: number, beta: number, e: number): void {
-  for (let a = 0; a < 3; a++) {
-    const r = a * n, vc = (3 + a) * n, ac = (12 + a) * n;
-    for (let k = 0; k < n; k++) {
-      const pa = P[ac + k]!;
-      P[r + k] = P[r + k]! + alpha * pa;
-      P[vc + k] = P[vc + k]! + beta * pa;
-      P[ac + k] = e * pa;
+  const r1 = n, r2 = 2 * n, c0 = 3 * n, c1 = 4 * n, c2 = 5 * n, a0 = 12 * n, a1 = 13 * n, a2 = 14 * n;
+  for (let k = 0; k < n; k++) {
+    const p0 = P[a0 + k]!, p1 = P[a1 + k]!, p2 = P[a2 + k]!;
+    P[k] = P[k]! + alpha * p0;
+    P[r1 + k] = P[r1 + k]! + alpha * p1;
+    P[r2 + k] = P[r2 + k]! + alpha * p2;
+    if (k >= 3) {
+      P[c0 + k] = P[c0 + k]! + beta * p0;
+      P[c1 + k] = P[c1 + k]! + beta * p1;
+      P[c2 + k] = P[c2 + k]! + beta * p2;
+    }
+    if (k >= 12) {
+      P[a0 + k] = e * p0;
+      P[a1 + k] = e * p1;
+      P[a2 + k] = e * p2;
     }
   }
 }

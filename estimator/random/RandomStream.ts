@@ -167,21 +167,32 @@ export class RandomStream {
    * Rejections use uniform(); the tail beyond r uses Marsaglia's exponential method.
    */
   gaussian(): number {
-    if (this.spareNormal !== null) {
-      const v = this.spareNormal;
-      this.spareNormal = null;
-      return v;
-    }
+    if (this.spareNormal !== null) return this.takeSpare();
+    // the ~99 % fast path stays small so callers can inline it (no boxed return value)
+    const i = (this.next() >>> 8) & 255;
+    const j = this.high;
+    if (Math.abs(j) < ZIGGURAT_K[i]!) return j * ZIGGURAT_W[i]!;
+    return this.gaussianSlow(i, j);
+  }
+
+  /** The rest of the ziggurat loop for a draw (layer i, abscissa j) outside the fast region. */
+  private gaussianSlow(i: number, j: number): number {
     for (;;) {
-      const i = (this.next() >>> 8) & 255;
-      const j = this.high;
       const x = j * ZIGGURAT_W[i]!;
-      if (Math.abs(j) < ZIGGURAT_K[i]!) return x;
       if (i === 0) return this.tail(j < 0);
       // wedge: accept x when a uniform height in layer i lies under the density
       const fi = ZIGGURAT_F[i]!;
       if (fi + this.uniform() * (ZIGGURAT_F[i - 1]! - fi) < Math.exp(-0.5 * x * x)) return x;
+      i = (this.next() >>> 8) & 255;
+      j = this.high;
+      if (Math.abs(j) < ZIGGURAT_K[i]!) return j * ZIGGURAT_W[i]!;
     }
+  }
+
+  private takeSpare(): number {
+    const v = this.spareNormal!;
+    this.spareNormal = null;
+    return v;
   }
 
   /** A deviate from the normal tail beyond ZIGGURAT_R (Marsaglia 1964). */

@@ -36,7 +36,7 @@ export class PidGuidance implements HorizontalGuidance {
     out[0] = ff * e.vcx + kp * e.rx + ki * ix + kd * rvx;
     out[1] = ff * e.vcy + kp * e.ry + ki * iy + kd * rvy;
     let dx = out[0]! - e.vlx, dy = out[1]! - e.vly;
-    const dn = Math.hypot(dx, dy);
+    const dn = Math.sqrt(dx * dx + dy * dy);
     const dmax = this.maxAccel * this.tau;
     let clipped = false;
     if (dn > dmax) {

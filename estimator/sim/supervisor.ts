@@ -124,7 +124,7 @@ export class LandingSupervisor {
       }
     }
     this.guidance.command(s, dt, out);
-    const error = Math.hypot(s.rx, s.ry);
+    const error = Math.sqrt(s.rx * s.rx + s.ry * s.ry);
     const h = s.height;
     switch (this.phase) {
       case 'trail':

@@ -1,8 +1,9 @@
 // Bench section `sweep`: the same 1,000-trial demo sweep with 1 and 2 workers, timed in one run.
-// 1 worker = in-process (the single-thread baseline); 2 = the worker_threads pool (dist/sweep-worker.mjs,
-// built by `npm run bench`). Order 1, 2, 2, 1 and the faster of each pair, so a passing load on a
-// shared machine or a drift in clock speed does not favour either side. All four result files
-// must be byte-identical, or the section fails.
+// Both use the worker_threads pool (dist/sweep-worker.mjs, built by `npm run bench`), so both pay
+// the same cold start (thread, module load, JIT warm-up) and the ratio is the parallel speed-up.
+// Order 1, 2, 2, 1 and the faster of each pair, so a passing load on a shared machine or a drift
+// in clock speed does not favour either side. One in-process run (what `--workers 1` does) is
+// reported beside them. All result files must be byte-identical, or the section fails.
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -36,12 +37,13 @@ export const sweepBench: BenchSection = {
     };
     const loadBefore = loadavg()[0]!;
     try {
-      const a1 = await timed(inProcessExecutor(simulateTrial, applyParams), 'one-a.jsonl');
+      const a1 = await timed(workerPool({ workers: 1, apply: applyParams }), 'one-a.jsonl');
       const a2 = await timed(workerPool({ workers: 2, apply: applyParams }), 'two-a.jsonl');
       const b2 = await timed(workerPool({ workers: 2, apply: applyParams }), 'two-b.jsonl');
-      const b1 = await timed(inProcessExecutor(simulateTrial, applyParams), 'one-b.jsonl');
+      const b1 = await timed(workerPool({ workers: 1, apply: applyParams }), 'one-b.jsonl');
+      const inProcess = await timed(inProcessExecutor(simulateTrial, applyParams), 'in-process.jsonl');
       const reference = readFileSync(join(dir, 'one-a.jsonl'), 'utf8');
-      for (const name of ['two-a.jsonl', 'two-b.jsonl', 'one-b.jsonl']) {
+      for (const name of ['two-a.jsonl', 'two-b.jsonl', 'one-b.jsonl', 'in-process.jsonl']) {
         if (readFileSync(join(dir, name), 'utf8') !== reference) throw new Error(`sweep bench: ${name} differs from one-a.jsonl`);
       }
       const seconds1 = Math.min(a1, b1);
@@ -55,6 +57,7 @@ export const sweepBench: BenchSection = {
         trialsPerSec1: round(trials / seconds1),
         trialsPerSec2: round(trials / seconds2),
         speedup: round(seconds1 / seconds2),
+        trialsPerSecInProcess: round(trials / inProcess),
         cpuSeconds1: round(Math.min(cpu['one-a.jsonl']!, cpu['one-b.jsonl']!)),
         cpuSeconds2: round(Math.min(cpu['two-a.jsonl']!, cpu['two-b.jsonl']!)),
         // Other processes competing for the 2 cores make the wall-clock figures unreliable.

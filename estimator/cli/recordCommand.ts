@@ -18,7 +18,7 @@ const OPTIONS: OptionSpec[] = [
   { name: 'help', kind: 'flag', help: 'show this help' },
 ];
 
-/** The files of the layout (LAYOUT.md); --force removes exactly these. */
+/** The files of the layout (README.md, "Flight-log layout"); --force removes exactly these. */
 const LOG_FILES = ['camera.json', 'filter.json', ...Object.values(STREAM_SPECS).map((s) => s.file)];
 
 const USAGE = 'alight record <scenario.json> --out <log-folder> [--seed N] [--no-truth] [--force]';

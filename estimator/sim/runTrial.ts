@@ -166,7 +166,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       st.lastBox = frame.box;
       // (re-)acquisition: the first box, after a divergence, and after an abort (a lost target
       // may have been a false box all along, so the estimate starts afresh from the next box)
-      // The filter starts at the box's arrival time (as replay does, io/log/LAYOUT.md); a box
+      // The filter starts at the box's arrival time (as replay does, README.md, "Flight-log layout"); a box
       // older than the filter's history could not be used as a measurement either, so it
       // starts nothing (a box 0.8 s old placed at its arrival flew the lander into the deck).
       if (!initialized || reacquire || filter.diverged) {

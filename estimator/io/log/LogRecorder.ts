@@ -1,4 +1,4 @@
-// Writes a simulated trial in the flight-log layout (LAYOUT.md) as the simulator runs: the
+// Writes a simulated trial in the flight-log layout (README.md, "Flight-log layout") as the simulator runs: the
 // TrialRecorder that `alight record` hands to runTrial. Browser-safe: text goes to a
 // LogTextSink (the Node adapter writes files); rows are buffered per file and flushed in
 // chunks, so memory stays bounded however long the trial. Numbers print in the shortest

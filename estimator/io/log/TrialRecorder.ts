@@ -1,7 +1,7 @@
 // What the simulator hands to `alight record`: every input the lander's filter saw, in the
 // order it saw it, plus the simulator's truth and the filter's own estimates. SIM-LOOP calls
 // these methods from runTrial; REPLAY's writers turn them into the flight-log layout
-// (estimator/io/log/LAYOUT.md) so a simulated trial replays like a real flight.
+// (estimator/README.md, "Flight-log layout") so a simulated trial replays like a real flight.
 // Arrays passed in may be reused by the caller after the call returns: copy, do not keep.
 
 import type { Box } from '../../camera/Box.js';

@@ -1,4 +1,4 @@
-// The CSV streams of a flight log (layout version 1, see LAYOUT.md): file names, the column
+// The CSV streams of a flight log (layout version 1, see README.md, "Flight-log layout"): file names, the column
 // sets each accepts, and the normalized row every reader produces. Column order is free;
 // the header names the columns. Units: s, m, m/s, m/s^2, px.
 

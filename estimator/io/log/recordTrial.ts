@@ -1,4 +1,4 @@
-// Fly one simulated trial and write it as a flight log (LAYOUT.md): everything the lander's
+// Fly one simulated trial and write it as a flight log (README.md, "Flight-log layout"): everything the lander's
 // sensors gave its filter (artefacts included: noise, dropouts, latency, false boxes, biased
 // IMU and odometry, attitude error), the simulator's truth and the filter's own estimates.
 // Browser-safe: the text goes to a LogTextSink (folderSink.node.ts writes files).

@@ -17,7 +17,7 @@ import { whitenessSummary } from './WhitenessAccumulator.js';
 export { DEFAULT_INITIAL_SIGMA, REPLAY_CAUTION } from './ReplayReport.js';
 export type { ReplayReport, ReplaySettings, StreamRows } from './ReplayReport.js';
 
-/** Same-time rows apply in this order (attitude first, comparisons last): see LAYOUT.md. */
+/** Same-time rows apply in this order (attitude first, comparisons last): see README.md, "Flight-log layout". */
 const TIE_ORDER: Record<LogStreamName, number> = { attitude: 0, imu: 1, odometry: 2, boxes: 3, resets: 4, truth: 5, onboard: 6 };
 
 function readCameraJson(source: LogSource) {

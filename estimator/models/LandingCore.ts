@@ -40,6 +40,13 @@ export class LandingCore {
   /** NIS and reason of the last apply(). */
   lastNis = Number.NaN;
   lastReason: string | null = null;
+  /**
+   * Views onto the workspace: innovation y (3) and its covariance S (3x3 row-major) of the last
+   * apply() that got as far as S (valid when it returned 'accepted' or 'gated'); overwritten by
+   * the next apply(), so LandingFilter copies them.
+   */
+  readonly innovation: Float64Array;
+  readonly innovationCovariance: Float64Array;
   /** Scratch for the loose fix and its covariance (also used by initializeFromBox). */
   readonly fix = new Float64Array(3);
   readonly Rfix = new Float64Array(9);
@@ -62,6 +69,8 @@ export class LandingCore {
     this.noise = { carrierAccelNoise: spec.carrierAccelNoise, singerTau: spec.singerTau, accelNoise: spec.accelNoise, accelBiasWalk: spec.accelBiasWalk, qScale: spec.qScale };
     this.coefficients = new ProcessCoefficientCache(singer, this.noise);
     this.ws = new UpdateWorkspace(this.n, 3);
+    this.innovation = this.ws.y;
+    this.innovationCovariance = this.ws.S;
     this.gate = gateThreshold(spec.gateProbability, 3, spec.gateScale);
     this.varPixel = spec.pixelNoise * spec.pixelNoise * spec.rScale;
     this.varSize = spec.sizeNoise * spec.sizeNoise * spec.rScale;

@@ -32,6 +32,17 @@ export class LandingFilter {
   /** State estimate x (see landingState.ts) and covariance P (n x n row-major). */
   readonly x: Float64Array;
   readonly P: Float64Array;
+  /**
+   * The last box or odometry update's innovation y = z - h(x) (3) and its covariance
+   * S = H P Hᵀ + R (3x3 row-major), at the measurement's own time (a delayed box: its capture
+   * time, before the re-propagation to now). Valid when that update returned 'accepted' or
+   * 'gated' (lastUpdateDim = 3); NaN with lastUpdateDim = 0 after any other outcome. Units:
+   * tight box (u, v, s) px and px²; loose box the back-projected r (ENU, m) and m²; odometry
+   * vL (ENU, m/s) and (m/s)². Read-only views, overwritten by the next update: copy to keep.
+   */
+  readonly lastInnovation = new Float64Array(3).fill(Number.NaN);
+  readonly lastInnovationCovariance = new Float64Array(9).fill(Number.NaN);
+  private innovationDim = 0;
   private clock = Number.NaN;
   private divergence: string | null = null;
   private initialized = false;
@@ -64,6 +75,11 @@ export class LandingFilter {
   /** Filter clock (s) = IMU clock; NaN before initialization. */
   get time(): number {
     return this.clock;
+  }
+
+  /** Dimension of lastInnovation: 3 after an accepted or gated update, else 0. */
+  get lastUpdateDim(): number {
+    return this.innovationDim;
   }
 
   /** The named divergence event, or null. After it every call returns 'diverged' until re-initialized. */
@@ -99,6 +115,7 @@ export class LandingFilter {
    * nis is NaN (there is no prior to compare with).
    */
   initializeFromBox(t: number, box: Box, qWorldBody: ArrayLike<number>, vL: ArrayLike<number>, sigma: { velocity: number; accelBias: number }): UpdateResult {
+    this.clearInnovation();
     const problem = boxProblem(box, this.core.model.camera.width, this.core.model.camera.height);
     if (problem) return rejected(problem, 3);
     if (!Number.isFinite(t) || !this.normalizeAttitude(qWorldBody)) return rejected('attitude-not-finite', 3);
@@ -139,6 +156,7 @@ export class LandingFilter {
 
   /** Box captured at captureTime (may be in the past: applied then and re-propagated to now). */
   updateBox(captureTime: number, box: Box): UpdateResult {
+    this.clearInnovation();
     const problem = boxProblem(box, this.core.model.camera.width, this.core.model.camera.height);
     if (problem) return rejected(problem, 3);
     const u = (box.xMin + box.xMax) / 2, v = (box.yMin + box.yMax) / 2, s = Math.sqrt((box.xMax - box.xMin) * (box.yMax - box.yMin));
@@ -147,6 +165,7 @@ export class LandingFilter {
 
   /** Lander velocity in world ENU (m/s) at time t (odometry / VIO / GNSS). */
   updateOdometry(t: number, velocityWorld: ArrayLike<number>): UpdateResult {
+    this.clearInnovation();
     const v0 = velocityWorld[0]!, v1 = velocityWorld[1]!, v2 = velocityWorld[2]!;
     if (!Number.isFinite(v0) || !Number.isFinite(v1) || !Number.isFinite(v2)) return rejected('odometry-not-finite', 3);
     return this.measure(EVENT_ODOMETRY, t, v0, v1, v2);
@@ -162,6 +181,7 @@ export class LandingFilter {
     if (t >= this.clock - TIME_EPSILON) {
       if (history.isFull(head)) return rejected('too-many-updates-per-step', 3);
       const status = this.apply(kind, head, head, this.clock, d0, d1, d2, true);
+      this.keepInnovation(status);
       if (status === 'diverged') return this.diverge(this.core.lastReason ?? 'covariance-not-positive-definite', head);
       if (status !== 'accepted') return this.result(status);
       if (++this.updatesSinceCheck >= PD_CHECK_INTERVAL) {
@@ -197,6 +217,7 @@ export class LandingFilter {
     for (; k < count && history.eventTime[base + k]! <= t; k++) tau = this.replayEvent(from, to, base + k, tau);
     this.stepWithSlotInput(t - tau, to);
     const status = this.apply(kind, from, to, t, d0, d1, d2, true);
+    this.keepInnovation(status); // before the replay of younger measurements overwrites the core's
     const nis = this.core.lastNis, reason = this.core.lastReason;
     if (status === 'diverged') return this.diverge(reason ?? 'covariance-not-positive-definite', head);
     if (status !== 'accepted') {
@@ -281,12 +302,28 @@ export class LandingFilter {
 
   private diverge(event: string, goodSlot: number): UpdateResult {
     this.divergence = event;
+    this.clearInnovation();
     this.history.restore(goodSlot, this.x, this.P);
     return this.divergedResult();
   }
 
   private divergedResult(): UpdateResult {
     return { status: 'diverged', nis: Number.NaN, dim: 0, reason: this.divergence };
+  }
+
+  /** Copy the core's y and S after an update that got as far as S (accepted or gated). */
+  private keepInnovation(status: UpdateStatus): void {
+    if (status !== 'accepted' && status !== 'gated') return;
+    this.lastInnovation.set(this.core.innovation);
+    this.lastInnovationCovariance.set(this.core.innovationCovariance);
+    this.innovationDim = 3;
+  }
+
+  private clearInnovation(): void {
+    if (this.innovationDim === 0 && Number.isNaN(this.lastInnovation[0]!)) return;
+    this.lastInnovation.fill(Number.NaN);
+    this.lastInnovationCovariance.fill(Number.NaN);
+    this.innovationDim = 0;
   }
 
   private normalizeAttitude(q: ArrayLike<number>): boolean {

@@ -27,6 +27,9 @@ export class PlainLandingFilter {
   x: Matrix;
   P: Matrix;
   time = Number.NaN;
+  /** y (3 x 1) and S (3 x 3) of the last update that reached the gate (see LandingFilter.lastInnovation), else null. */
+  lastInnovation: Matrix | null = null;
+  lastInnovationCovariance: Matrix | null = null;
   private readonly coefficients: ProcessCoefficients;
   private readonly model: BoxMeasurementModel;
   private readonly gate: number;
@@ -163,6 +166,8 @@ export class PlainLandingFilter {
   /** S = H P Hᵀ + R, K = P Hᵀ S⁻¹, gate on NIS, x += K y, P = (I - K H) P (I - K H)ᵀ + K R Kᵀ. */
   private update(y: Matrix, H: Matrix, R: Matrix): UpdateResult {
     const S = H.mmul(this.P).mmul(H.transpose()).add(R);
+    this.lastInnovation = y;
+    this.lastInnovationCovariance = S;
     const Sinv = inverse(S);
     const nis = y.transpose().mmul(Sinv).mmul(y).get(0, 0);
     if (nis > this.gate) return { status: 'gated', nis, dim: 3, reason: 'outside-gate' };

@@ -166,12 +166,15 @@ describe('LandingFilter: updates', () => {
     const force = (k: number) => [0.2 * Math.sin(k / 9), -0.1, 9.81 + 0.05 * Math.cos(k / 5)];
     const capture = 20 * dt + 0.4 * dt; // between two IMU samples
     const box = boxFor([0.35, -0.15, -8.7], q);
+    let y: number[] = [], S: number[] = [];
     for (let k = 1; k <= 40; k++) {
       const t = k * dt;
       late.propagate(t, force(k), q);
       if (k === 21) {
         onTime.propagate(capture, force(k), q); // split the IMU step at the capture time
         expect(onTime.updateBox(capture, box).status).toBe('accepted');
+        y = Array.from(onTime.lastInnovation);
+        S = Array.from(onTime.lastInnovationCovariance);
       }
       onTime.propagate(t, force(k), q);
       if (k % 4 === 0) {
@@ -185,6 +188,10 @@ describe('LandingFilter: updates', () => {
     expectAllClose(late.x, onTime.x, { abs: 1e-12 }, 'x');
     expectAllClose(late.P, onTime.P, { abs: 1e-12 }, 'P');
     expect(late.time).toBe(onTime.time);
+    // the kept innovation is the one at the capture time, not overwritten by the replayed odometry
+    expect(late.lastUpdateDim).toBe(3);
+    expectAllClose(late.lastInnovation, y, { abs: 1e-12 }, 'y'); // same operations as x, P above
+    expectAllClose(late.lastInnovationCovariance, S, { abs: 1e-12 }, 'S');
   });
 
   it('size and centre noise in proportion to the box: R = diag(σp² + (φc s)², σp² + (φc s)², σs² + (φ s)²) · rScale', () => {
@@ -279,5 +286,29 @@ describe('LandingFilter: NIS', () => {
     expect(result.status).toBe('accepted');
     // 1e-12: the innovation is round-off only.
     expectClose(result.nis, 0, { abs: 1e-12 }, 'NIS');
+  });
+
+  it('keeps y and S of the last accepted or gated update (NIS = yᵀ S⁻¹ y from them), NaN after a refused one', () => {
+    const filter = started();
+    filter.propagate(0.005, hoverForce, level);
+    const result = filter.updateBox(0.005, boxFor([r0[0]! + 2.5, r0[1]!, r0[2]!]));
+    expect(result.status).toBe('gated');
+    expect(filter.lastUpdateDim).toBe(3);
+    const y = filter.lastInnovation, S = filter.lastInnovationCovariance;
+    // px: 2.5 m further east at 9 m below is about fy · 2.5 / 9 = 144 px up the image (nominal mount: y_cam = -x_body)
+    expectClose(y[1]!, -518 * 2.5 / 9, { rel: 0.05 }, 'v innovation'); // 5 %: the prior's r and the mount offset shift it a little
+    expect(Math.abs(y[0]!)).toBeLessThan(1);
+    expect(S[1]).toBe(S[3]);
+    // NIS from y and S by Cramer's rule (independent of the filter's cofactor code)
+    const det = (m: number[]) => m[0]! * (m[4]! * m[8]! - m[5]! * m[7]!) - m[1]! * (m[3]! * m[8]! - m[5]! * m[6]!) + m[2]! * (m[3]! * m[7]! - m[4]! * m[6]!);
+    const d = det(Array.from(S));
+    const solved = [0, 1, 2].map((c) => det(Array.from(S, (v, k) => (k % 3 === c ? y[Math.floor(k / 3)]! : v))) / d);
+    // 1e-9 relative: two ways of solving one well-conditioned 3x3 system
+    expectClose(y[0]! * solved[0]! + y[1]! * solved[1]! + y[2]! * solved[2]!, result.nis, { rel: 1e-9 }, 'NIS from y, S');
+    filter.updateOdometry(0.005, [1.1, 0, 0]);
+    expectClose(filter.lastInnovation[0]!, 0.1, { abs: 1e-12 }, 'odometry y = vL - x_vL'); // round-off only
+    expect(filter.updateBox(0.005, { xMin: 10, yMin: 10, xMax: 5, yMax: 20 }).status).toBe('rejected');
+    expect(filter.lastUpdateDim).toBe(0);
+    expect(Array.from(filter.lastInnovation).every(Number.isNaN)).toBe(true);
   });
 });

@@ -9,6 +9,16 @@ import type { CameraUpdateMode, CarrierModel } from '../../estimator/sim/Scenari
 import { expectClose } from '../helpers/expectClose.js';
 import { camera, filterSpec, targetSize } from './landingFixture.js';
 
+/** The fast filter's kept y and S equal the plain filter's (1e-9 relative: same numbers, different operation order). */
+function expectSameInnovation(fast: LandingFilter, plain: PlainLandingFilter, label: string): void {
+  expect(fast.lastUpdateDim).toBe(3);
+  const y = plain.lastInnovation!, S = plain.lastInnovationCovariance!;
+  for (let i = 0; i < 3; i++) {
+    expectClose(fast.lastInnovation[i]!, y.get(i, 0), { rel: 1e-9, abs: 1e-12 }, `${label}: y[${i}]`);
+    for (let j = 0; j < 3; j++) expectClose(fast.lastInnovationCovariance[3 * i + j]!, S.get(i, j), { rel: 1e-9, abs: 1e-12 }, `${label}: S[${i}][${j}]`);
+  }
+}
+
 // Two implementations of one filter: block-structured typed arrays vs dense ml-matrix objects.
 describe('PlainLandingFilter and LandingFilter give the same state to 1e-9', () => {
   const cases: [CarrierModel, CameraUpdateMode][] = [['constant-velocity', 'tight'], ['constant-velocity', 'loose'], ['singer', 'tight'], ['singer', 'loose']];
@@ -38,11 +48,13 @@ describe('PlainLandingFilter and LandingFilter give the same state to 1e-9', () 
             accepted++;
             // 1e-9 relative on NIS: same numbers, different operation order.
             expectClose(a.nis, b.nis, { rel: 1e-9, abs: 1e-12 }, `NIS at ${t}`);
+            expectSameInnovation(fast, plain, `box at ${t}`);
           }
         }
         if (k % 11 === 0) {
-          fast.updateOdometry(t, [1.5, 0.1, 0]);
+          const a = fast.updateOdometry(t, [1.5, 0.1, 0]);
           plain.updateOdometry(t, [1.5, 0.1, 0]);
+          if (a.status === 'accepted') expectSameInnovation(fast, plain, `odometry at ${t}`);
         }
       }
       expect(accepted).toBeGreaterThan(250);

@@ -22,8 +22,10 @@ export class LogReplayer {
   readonly filter: LandingFilter;
   readonly boxes: MeasurementStatistics;
   readonly odometry: MeasurementStatistics;
-  /** Each odometry innovation component / sqrt(S_ii), for updates at the filter clock. */
+  /** Each odometry innovation component y_i / sqrt(S_ii), for accepted updates at the filter clock. */
   readonly odometryWhiteness: WhitenessAccumulator[];
+  /** Each box innovation component y_i / sqrt(S_ii) (tight: u, v, s; loose: the fix's rx, ry, rz), accepted updates, delayed ones at their capture time. */
+  readonly boxWhiteness: WhitenessAccumulator[];
   readonly truth = new TruthComparison();
   started = false;
   start: number | null = null;
@@ -36,14 +38,12 @@ export class LogReplayer {
   private readonly spec: FilterSpec;
   private readonly settings: ReplaySettings;
   private readonly hasOdometry: boolean;
-  private readonly varOdometry: number;
   private haveOdometry = false;
   private resetPending = false;
   private divergenceNoted = false;
   private readonly q = new Float64Array([Number.NaN, 0, 0, 0]);
   private readonly f = new Float64Array(3);
   private readonly vL = new Float64Array(3);
-  private readonly y = new Float64Array(3);
   private readonly box: Box = { xMin: 0, yMin: 0, xMax: 0, yMax: 0 };
 
   constructor(spec: FilterSpec, camera: LogCamera, settings: ReplaySettings, hasOdometry: boolean) {
@@ -55,7 +55,8 @@ export class LogReplayer {
     this.boxes = new MeasurementStatistics('box', lags);
     this.odometry = new MeasurementStatistics('odometry', lags);
     this.odometryWhiteness = ['vx', 'vy', 'vz'].map((c) => new WhitenessAccumulator(`odometry innovation ${c} / sqrt(S)`, lags));
-    this.varOdometry = spec.odometryNoise * spec.odometryNoise * spec.rScale;
+    const boxComponents = spec.cameraUpdate === 'loose' ? ['rx', 'ry', 'rz'] : ['u', 'v', 's'];
+    this.boxWhiteness = boxComponents.map((c) => new WhitenessAccumulator(`box innovation ${c} / sqrt(S)`, lags));
   }
 
   /** True while a started filter runs (not diverged). After a reset it runs on until a box restarts it, as on the lander. */
@@ -89,14 +90,13 @@ export class LogReplayer {
     this.haveOdometry = true;
     // Not running: the newest lander velocity only seeds the next start.
     if (!this.running) return this.idle;
-    const filter = this.filter, n = filter.n;
+    const filter = this.filter;
     const t = Math.min(v[0]!, filter.time);
     const now = t === filter.time;
-    if (now) for (let i = 0; i < 3; i++) this.y[i] = (this.vL[i]! - filter.x[6 + i]!) / Math.sqrt(filter.P[(6 + i) * n + 6 + i]! + this.varOdometry);
     const result = filter.updateOdometry(t, this.vL);
     this.noteDivergence();
     this.settings.onUpdate?.(t, 'odometry', result.status, result.nis);
-    if (now && result.status === 'accepted') for (let i = 0; i < 3; i++) this.odometryWhiteness[i]!.add(this.y[i]!);
+    if (now && result.status === 'accepted') this.addNormalizedInnovation(this.odometryWhiteness);
     return this.odometry.add(result) ? '' : `refused: ${this.odometry.lastReason}`;
   }
 
@@ -112,6 +112,7 @@ export class LogReplayer {
     const result = this.filter.updateBox(t, box);
     this.noteDivergence();
     this.settings.onUpdate?.(t, 'boxes', result.status, result.nis);
+    if (result.status === 'accepted') this.addNormalizedInnovation(this.boxWhiteness);
     return this.boxes.add(result) ? '' : `refused: ${this.boxes.lastReason}`;
   }
 
@@ -162,6 +163,12 @@ export class LogReplayer {
     this.resetPending = false;
     this.divergenceNoted = false;
     return '';
+  }
+
+  /** y_i / sqrt(S_ii) of the filter's last update into one accumulator per component. */
+  private addNormalizedInnovation(accumulators: WhitenessAccumulator[]): void {
+    const y = this.filter.lastInnovation, S = this.filter.lastInnovationCovariance;
+    for (let i = 0; i < 3; i++) accumulators[i]!.add(y[i]! / Math.sqrt(S[4 * i]!));
   }
 
   private noteDivergence(): void {

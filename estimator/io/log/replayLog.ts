@@ -152,7 +152,8 @@ function report(source: LogSource, spec: FilterSpec, level: number, readers: Log
     boxes,
     odometry,
     gateRejections: boxes.gated + odometry.gated,
-    whiteness: whitenessSummary([r.boxes.nisWhiteness, r.odometry.nisWhiteness, ...r.odometryWhiteness], lags),
+    // NIS sequences first, then each normalized innovation component (odometry, then boxes)
+    whiteness: whitenessSummary([r.boxes.nisWhiteness, r.odometry.nisWhiteness, ...r.odometryWhiteness, ...r.boxWhiteness], lags),
     neesMean: hasTruth && t.neesCount > 0 ? t.neesMean : null,
     neesDim: t.neesDim,
     neesCount: t.neesCount,

@@ -22,7 +22,7 @@ describe('the committed demo logs', () => {
     expect(report.problems.total).toBe(0);
     expect(report.rows.truth).toBeUndefined();
     expect(report.neesMean).toBeNull();
-    expect(report.whiteness.tests.length).toBe(5);
+    expect(report.whiteness.tests.length).toBe(8); // 2 NIS sequences, odometry vx vy vz, box u v s
     expect(report.nisCount).toBeGreaterThan(100);
   });
 });

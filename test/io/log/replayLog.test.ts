@@ -57,7 +57,7 @@ describe('replayLog on a synthetic log with truth', () => {
     expect(clean.nisBounds).toEqual([lo, hi]);
     // Simulated box noise 1.5 px on centre and size, the filter assumes 1.5 px: NIS near 3.
     expectClose(clean.nisMean!, 3, { abs: 0.6 }, 'NIS mean'); // box model and delay add a little
-    expect(clean.whiteness.tests.length).toBe(5);
+    expect(clean.whiteness.tests.length).toBe(8); // 2 NIS sequences, odometry vx vy vz, box u v s
   });
 
   it('compares with truth: small errors and a NEES near its dimension', () => {

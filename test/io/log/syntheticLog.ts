@@ -21,6 +21,10 @@ export interface SyntheticLogOptions {
   /** Write truth.csv (default true). */
   truth?: boolean;
   seed?: number;
+  /** Amplitude (m) of the carrier's sway along x (default 0.5; 0 = constant velocity, the filter's own model). */
+  sway?: number;
+  /** Error (px) added to each box centre u at capture time t, on top of the white noise (default none). */
+  boxUError?: (t: number) => number;
 }
 
 export const SYNTHETIC_CAMERA = {
@@ -78,7 +82,7 @@ export function writeSyntheticLog(folder: string, options: SyntheticLogOptions):
   const identity = [1, 0, 0, 0, 1, 0, 0, 0, 1];
   const camera = { ...SYNTHETIC_CAMERA.intrinsics, width: 640, height: 480, distortion: SYNTHETIC_CAMERA.distortion };
   const pCam = new Float64Array(3), m = new Float64Array(3), r = new Float64Array(3);
-  const A = 0.5, w = (2 * Math.PI) / 20;
+  const A = options.sway ?? 0.5, w = (2 * Math.PI) / 20;
   const vC = [2, 0.5, 0];
   const bias = [0.03, -0.02, 0.01];
   const steps = Math.floor(options.duration * imuRate);
@@ -101,7 +105,7 @@ export function writeSyntheticLog(folder: string, options: SyntheticLogOptions):
       nextBox += boxEvery;
       cameraPointFromWorldVector(identity, Rcb, SYNTHETIC_CAMERA.mount.offset, r, pCam);
       boxMeasurement(camera, SYNTHETIC_CAMERA.targetSize, pCam, m);
-      const b = boxFromCentreSize(m[0]! + 1.5 * noise.gaussian(), m[1]! + 1.5 * noise.gaussian(), m[2]! + 1.5 * noise.gaussian());
+      const b = boxFromCentreSize(m[0]! + 1.5 * noise.gaussian() + (options.boxUError?.(t) ?? 0), m[1]! + 1.5 * noise.gaussian(), m[2]! + 1.5 * noise.gaussian());
       const arrival = Math.ceil((t + latency) * imuRate - 1e-9) / imuRate;
       queue.push({ capture: t, arrival, line: `${t},${arrival},${b.xMin},${b.yMin},${b.xMax},${b.yMax},${Math.round(900 + 99 * noise.uniform()) / 1000}` });
     }

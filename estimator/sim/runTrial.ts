@@ -116,7 +116,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       if (!onDeckContact) contact.onDeck = false;
       touchdown = judgeTouchdown(scenario.envelope, contact);
       touchdownTime = t;
-      st.phaseTimes[phase] += dt;
+      st.addPhaseTime(phase, dt);
       break;
     }
     for (let k = 0; k < 3; k++) {
@@ -202,7 +202,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       reacquire = true;
       recorder?.reset?.(t); // a bit-exact replay of a restarted trial needs it
     }
-    st.phaseTimes[phase] += dt;
+    st.addPhaseTime(phase, dt);
     for (let k = 0; k < 3; k++) st.vLTrue[k] = ls.velocity[k]!;
     if (input.valid && Math.abs(filter.time - t) < eps + 1e-12) {
       st.addError(x, st.rTrue, st.vCTrue, st.vLTrue, relativeNees(x, filter.P, filter.n, st.rTrue, st.vCTrue, st.vLTrue));

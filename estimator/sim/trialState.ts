@@ -6,7 +6,7 @@
 // Means over no samples are NaN (JSON null).
 import type { Box } from '../camera/Box.js';
 import type { UpdateResult } from '../models/LandingFilter.js';
-import type { Outcome, Phase, TrialResult } from './TrialResult.js';
+import { PHASES, type Outcome, type Phase, type TrialResult } from './TrialResult.js';
 import type { TouchdownJudgement } from './touchdown.js';
 import type { CameraUpdate, RelativeTriple, TraceRow } from './trace.js';
 
@@ -19,6 +19,17 @@ export interface TrialEnd {
 }
 
 const vec = (a: ArrayLike<number>, o: number): [number, number, number] => [a[o]!, a[o + 1]!, a[o + 2]!];
+
+/** Position of a phase in PHASES, without a lookup object. */
+function phaseIndex(phase: Phase): number {
+  switch (phase) {
+    case 'acquire': return 0;
+    case 'trail': return 1;
+    case 'align': return 2;
+    case 'descend': return 3;
+    default: return 4;
+  }
+}
 
 export class TrialState {
   readonly wind = new Float64Array(3);
@@ -42,7 +53,8 @@ export class TrialState {
   /** True outline box of the frame captured this step (copied in place), when haveOutline. */
   readonly outline: Box = { xMin: NaN, yMin: NaN, xMax: NaN, yMax: NaN };
   haveOutline = false;
-  readonly phaseTimes: Record<Phase, number> = { acquire: 0, trail: 0, align: 0, descend: 0, touchdown: 0 };
+  /** Seconds per phase, indexed as PHASES (a string-keyed store per step allocated a number each time). */
+  private readonly phaseSeconds = new Float64Array(PHASES.length);
   private divergence: string | null = null;
   private nisSum = 0;
   private nisCount = 0;
@@ -83,6 +95,11 @@ export class TrialState {
     this.haveOutline = box.xMax > box.xMin && box.yMax > box.yMin; // false for NaN corners too
     if (!this.haveOutline) return;
     this.outline.xMin = box.xMin; this.outline.yMin = box.yMin; this.outline.xMax = box.xMax; this.outline.yMax = box.yMax;
+  }
+
+  /** Add dt seconds to a phase's time. */
+  addPhaseTime(phase: Phase, dt: number): void {
+    this.phaseSeconds[phaseIndex(phase)] += dt;
   }
 
   /** Keep the first named divergence event. */
@@ -171,7 +188,7 @@ export class TrialState {
       nisMean: mean(this.nisSum, this.nisCount),
       nisDim: 3,
       nisCount: this.nisCount,
-      phaseTimes: { ...this.phaseTimes },
+      phaseTimes: { acquire: this.phaseSeconds[0]!, trail: this.phaseSeconds[1]!, align: this.phaseSeconds[2]!, descend: this.phaseSeconds[3]!, touchdown: this.phaseSeconds[4]! },
       boxes: this.boxes,
       dropped: this.dropped,
       falseBoxes: end.falseBoxes,

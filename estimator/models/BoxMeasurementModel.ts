@@ -5,7 +5,7 @@
 //   R_r = C J R_box Jᵀ Cᵀ, J = ∂p_cam/∂(u, v, s), C = R_wb R_cbᵀ (camera -> world); then H = [I 0 …].
 // Preallocated; the methods allocate nothing.
 import type { FilterCamera } from './FilterCamera.js';
-import { type PinholeCamera, validateCamera, CameraError } from '../camera/PinholeCamera.js';
+import { type PinholeCamera, pinholeCamera, validateCamera, CameraError } from '../camera/PinholeCamera.js';
 import { boxMeasurement, boxMeasurementJacobian, relativePositionFromMeasurement, relativePositionJacobian } from '../camera/boxGeometry.js';
 import { UndistortionError } from '../camera/distortion.js';
 import { cameraFromBody } from '../frames/cameraFromBody.js';
@@ -33,7 +33,7 @@ export class BoxMeasurementModel {
   constructor(camera: FilterCamera, readonly targetSize: number) {
     validateCamera(camera);
     if (!(targetSize > 0) || !Number.isFinite(targetSize)) throw new CameraError('targetSize', `must be a positive number of metres, got ${targetSize}`);
-    this.camera = { fx: camera.fx, fy: camera.fy, cx: camera.cx, cy: camera.cy, width: camera.width, height: camera.height, distortion: { ...camera.distortion } };
+    this.camera = pinholeCamera(camera); // the one camera shape (PinholeCamera.ts)
     this.Rcb = cameraFromBody(camera.mount);
     this.offset = Float64Array.from(camera.mount.offset);
   }

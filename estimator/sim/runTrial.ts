@@ -4,6 +4,7 @@
 // from (key.seed, key.point, key.trial) and a stream name, one per subsystem.
 // The inner loop allocates nothing of its own (preallocated typed arrays); the filter returns
 // a small result object per measurement, and onStep rows are built only when asked for.
+import type { Box } from '../camera/Box.js';
 import { LandingFilter } from '../models/LandingFilter.js';
 import { RandomStream, streamId } from '../random/RandomStream.js';
 import type { TrialRecorder } from '../io/log/TrialRecorder.js';
@@ -16,7 +17,7 @@ import { relativeNees } from './relativeNees.js';
 import { TrialState } from './trialState.js';
 import type { TraceRow } from './trace.js';
 import { createCarrierState, createCarrierTrajectory } from './world/carrierPath.js';
-import { createDeckContact, deckContact } from './world/deckContact.js';
+import { createDeckContact, deckContact, type DeckContact } from './world/deckContact.js';
 import { Detector, type DetectorFrame } from './world/detector.js';
 import { DrydenGust } from './world/dryden.js';
 import { LanderDynamics } from './world/landerDynamics.js';
@@ -94,7 +95,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   const imuPeriod = 1 / localization.imuRate, odometryPeriod = 1 / localization.odometryRate;
   const capturePeriod = 1 / detectorSpec.rate;
   let nextImu = 0, nextOdometry = 0, nextCapture = 0;
-  let initialized = false, reacquire = false, abortsSeen = 0, lastSeen = -Infinity, touchdown: ReturnType<typeof judgeTouchdown> | null = null, touchdownTime: number | null = null;
+  let initialized = false, reacquire = false, abortsSeen = 0, lastSeen = -Infinity, touchdownTime: number | null = null;
   let phase: Phase = 'acquire';
   const eps = 1e-9 * dt;
 
@@ -108,13 +109,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     lander.step(dt, st.command, st.wind, ls);
     carrier.stateAt(t, cs);
     deckContact(ls, cs, carrierSpec.deckLength, carrierSpec.deckWidth, contact);
-    // Contact with the deck: on its outline and at most one step's travel below its plane.
-    // A lander that sinks past the deck plane beside the deck has missed it and is judged
-    // there (off-pad), as is one touching the ground.
-    const onDeckContact = contact.inContact && contact.onDeck && contact.height > -CONTACT_DEPTH;
-    if (onDeckContact || contact.height <= -CONTACT_DEPTH || contact.groundHeight <= 0) {
-      if (!onDeckContact) contact.onDeck = false;
-      touchdown = judgeTouchdown(scenario.envelope, contact);
+    if (contactEnds(contact)) { // judged after the loop (contact is left as it is here)
       touchdownTime = t;
       st.addPhaseTime(phase, dt);
       break;
@@ -155,7 +150,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       if (frame) st.boxes++;
       else if (detector.lastTruth.visible) st.dropped++;
       if (frame && pendingCount < PENDING) pending[(pendingHead + pendingCount++) % PENDING] = frame;
-      for (let i = 0; i < detector.falseFrameCount && pendingCount < PENDING; i++) pending[(pendingHead + pendingCount++) % PENDING] = detector.falseFrames[i]!;
+      if (detector.falseFrameCount > 0) pendingCount = enqueueFalseFrames(detector, pending, pendingHead, pendingCount);
     }
     while (pendingCount > 0 && pending[pendingHead]!.arrivalTime <= t + eps) {
       const frame = pending[pendingHead]!;
@@ -170,22 +165,15 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       // older than the filter's history could not be used as a measurement either, so it
       // starts nothing (a box 0.8 s old placed at its arrival flew the lander into the deck).
       if (!initialized || reacquire || filter.diverged) {
-        if (!st.haveOdometry || t - stamp > filterSpec.historyLength) continue;
-        const r = filter.initializeFromBox(t, frame.box, st.qEstimate, st.odometry, INITIAL_SIGMA);
-        if (r.status !== 'accepted') continue;
-        initialized = true;
-        reacquire = false;
-        guidance.reset();
-        lastSeen = t;
+        if (acquire(filter, st, frame.box, t, stamp, filterSpec.historyLength)) {
+          initialized = true;
+          reacquire = false;
+          guidance.reset();
+          lastSeen = t;
+        }
         continue;
       }
-      const r = filter.updateBox(Math.min(stamp, filter.time), frame.box);
-      st.noteUpdate(frame.box, r);
-      if (r.status === 'accepted') {
-        lastSeen = t;
-        st.addNis(r.nis);
-      } else if (r.status === 'gated') st.gateRejections++;
-      else if (r.status === 'diverged') st.noteDivergence(filter.diverged);
+      if (updateWithBox(filter, st, frame.box, stamp)) lastSeen = t;
     }
     // estimate -> supervisor -> command for the next step
     const x = filter.x;
@@ -207,18 +195,61 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     if (input.valid && Math.abs(filter.time - t) < eps + 1e-12) {
       st.addError(x, st.rTrue, st.vCTrue, st.vLTrue, relativeNees(x, filter.P, filter.n, st.rTrue, st.vCTrue, st.vLTrue));
     }
-    if (recorder) {
-      recorder.truth(t, st.rTrue, st.vCTrue, st.vLTrue);
-      if (initialized) recorder.estimate(t, x, st.diagonal(filter.P));
-    }
+    if (recorder) recordStep(recorder, st, t, initialized ? filter : null);
     if (onStep) onStep(st.row(t, phase, input.valid ? x : null, input.valid ? filter.P : null));
   }
 
   return st.result({
-    touchdown,
+    touchdown: touchdownTime === null ? null : judgeTouchdown(scenario.envelope, contact),
     touchdownTime,
     aborts: supervisor.aborts,
     lastAbort: supervisor.lastAbort,
     falseBoxes: detector.falseBoxTotal,
   });
+}
+
+// The step loop's less common paths live in these small functions, so runTrial itself stays
+// small for the JIT (compiled once per worker, not again each time a rare branch first runs).
+
+/**
+ * Does this step end the trial? Contact with the deck: on its outline and at most one step's
+ * travel below its plane. A lander that sinks past the deck plane beside the deck has missed
+ * it and is judged there (off-pad: contact.onDeck cleared), as is one touching the ground.
+ */
+function contactEnds(contact: DeckContact): boolean {
+  const onDeckContact = contact.inContact && contact.onDeck && contact.height > -CONTACT_DEPTH;
+  if (!(onDeckContact || contact.height <= -CONTACT_DEPTH || contact.groundHeight <= 0)) return false;
+  if (!onDeckContact) contact.onDeck = false;
+  return true;
+}
+
+/** (Re-)start the filter from a box; true when it started (needs odometry and a box the history still covers). */
+function acquire(filter: LandingFilter, st: TrialState, box: Box, t: number, stamp: number, historyLength: number): boolean {
+  if (!st.haveOdometry || t - stamp > historyLength) return false;
+  return filter.initializeFromBox(t, box, st.qEstimate, st.odometry, INITIAL_SIGMA).status === 'accepted';
+}
+
+/** Box update at its (clamped) capture stamp, tallied in st; true when the filter accepted it. */
+function updateWithBox(filter: LandingFilter, st: TrialState, box: Box, stamp: number): boolean {
+  const r = filter.updateBox(Math.min(stamp, filter.time), box);
+  st.noteUpdate(box, r);
+  if (r.status === 'accepted') {
+    st.addNis(r.nis);
+    return true;
+  }
+  if (r.status === 'gated') st.gateRejections++;
+  else if (r.status === 'diverged') st.noteDivergence(filter.diverged);
+  return false;
+}
+
+/** Queue this capture's false boxes behind the pending frames (as room allows); returns the new count. */
+function enqueueFalseFrames(detector: Detector, pending: DetectorFrame[], head: number, count: number): number {
+  for (let i = 0; i < detector.falseFrameCount && count < PENDING; i++) pending[(head + count++) % PENDING] = detector.falseFrames[i]!;
+  return count;
+}
+
+/** Truth, and the estimate once the filter runs (null before), to the recorder. */
+function recordStep(recorder: TrialRecorder, st: TrialState, t: number, filter: LandingFilter | null): void {
+  recorder.truth(t, st.rTrue, st.vCTrue, st.vLTrue);
+  if (filter) recorder.estimate(t, filter.x, st.diagonal(filter.P));
 }

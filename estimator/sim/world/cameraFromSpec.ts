@@ -1,6 +1,6 @@
 // Camera intrinsics from a scenario's camera spec (given directly or from lens and sensor),
 // and the numbers an engineer sizes a camera by: field of view and pixels per metre.
-import type { PinholeCamera } from '../../camera/PinholeCamera.js';
+import { type PinholeCamera, pinholeCamera } from '../../camera/PinholeCamera.js';
 import type { CameraSpec, Intrinsics } from '../Scenario.js';
 
 const DEG = Math.PI / 180;
@@ -38,7 +38,7 @@ export function intrinsicsFromSpec(camera: CameraSpec): Intrinsics {
 /** The spec as a pinhole camera (intrinsics, image size, distortion). */
 export function pinholeFromSpec(camera: CameraSpec): PinholeCamera {
   const k = intrinsicsFromSpec(camera);
-  return { fx: k.fx, fy: k.fy, cx: k.cx, cy: k.cy, width: camera.width, height: camera.height, distortion: { ...camera.distortion } };
+  return pinholeCamera({ fx: k.fx, fy: k.fy, cx: k.cx, cy: k.cy, width: camera.width, height: camera.height, distortion: camera.distortion }, camera.mount);
 }
 
 /**

@@ -5,7 +5,7 @@
 // distortion the outline's edges bow slightly and the corner box is a close approximation.
 // Allocation-free: the class owns its scratch arrays.
 import type { Box } from '../../camera/Box.js';
-import type { PinholeCamera } from '../../camera/PinholeCamera.js';
+import { type PinholeCamera, pinholeCamera } from '../../camera/PinholeCamera.js';
 import { UndistortionError } from '../../camera/distortion.js';
 import { normalizedFromPixel, project } from '../../camera/project.js';
 import { cameraFromBody, cameraPointFromWorldVector } from '../../frames/cameraFromBody.js';
@@ -51,7 +51,8 @@ export class CarrierOutline {
   /** Depth (m, camera z) of the deck centre at the last call. */
   centreDepth = NaN;
 
-  constructor(camera: MountedCamera, dims: CarrierDimensions) {
+  constructor(input: MountedCamera, dims: CarrierDimensions) {
+    const camera = pinholeCamera(input); // the one camera shape (PinholeCamera.ts)
     this.camera = camera;
     this.dims = dims;
     this.Rcb = cameraFromBody(camera.mount);

@@ -89,9 +89,9 @@ export class Detector {
   constructor(camera: MountedCamera, spec: DetectorSpec, dims: CarrierDimensions, stream: RandomStream) {
     if (!(spec.rate > 0)) throw new RangeError(`detector.rate must be positive, got ${spec.rate}`);
     this.spec = spec;
-    this.camera = camera;
-    this.frameInterval = 1 / spec.rate;
     this.outline = new CarrierOutline(camera, dims);
+    this.camera = this.outline.camera; // copied into the one camera shape (PinholeCamera.ts)
+    this.frameInterval = 1 / spec.rate;
     const child = () => RandomStream.fromKey([Math.floor(stream.uniform() * 2 ** 52)]);
     this.noise = child();
     this.dropout = child();

@@ -5,6 +5,7 @@
 import { quatFromEulerDeg } from '../../frames/quatFromEulerDeg.js';
 import { quatMultiply } from '../../frames/quaternion.js';
 import type { FilterCamera } from '../../models/FilterCamera.js';
+import { cameraMount, pinholeCamera } from '../../camera/PinholeCamera.js';
 import { RandomStream } from '../../random/RandomStream.js';
 import type { CameraMount, CameraSpec, CarrierSpec, LocalizationSpec } from '../Scenario.js';
 import { intrinsicsFromSpec } from './cameraFromSpec.js';
@@ -78,25 +79,20 @@ export class LocalizationError {
   /** The mount as it really is: misalignmentDeg added about each axis (roll, pitch, yaw). */
   trueMount(mount: CameraMount): CameraMount {
     const m = this.spec.misalignmentDeg;
-    return { offset: [mount.offset[0], mount.offset[1], mount.offset[2]], rollDeg: mount.rollDeg + m, pitchDeg: mount.pitchDeg + m, yawDeg: mount.yawDeg + m };
+    return cameraMount({ offset: mount.offset, rollDeg: mount.rollDeg + m, pitchDeg: mount.pitchDeg + m, yawDeg: mount.yawDeg + m });
   }
 
   /** The camera as it really is: the spec's intrinsics and distortion, misaligned mount. */
   trueCamera(camera: CameraSpec): MountedCamera {
     const k = intrinsicsFromSpec(camera);
-    return { ...k, width: camera.width, height: camera.height, distortion: { ...camera.distortion }, mount: this.trueMount(camera.mount) };
+    return pinholeCamera({ fx: k.fx, fy: k.fy, cx: k.cx, cy: k.cy, width: camera.width, height: camera.height, distortion: camera.distortion }, this.trueMount(camera.mount));
   }
 
   /** The camera as the filter believes it: focal lengths scaled by (1 + focalError), nominal mount. */
   believedCamera(camera: CameraSpec): FilterCamera {
     const k = intrinsicsFromSpec(camera);
     const scale = 1 + this.spec.focalError;
-    const m = camera.mount;
-    return {
-      fx: k.fx * scale, fy: k.fy * scale, cx: k.cx, cy: k.cy, width: camera.width, height: camera.height,
-      distortion: { ...camera.distortion },
-      mount: { offset: [m.offset[0], m.offset[1], m.offset[2]], rollDeg: m.rollDeg, pitchDeg: m.pitchDeg, yawDeg: m.yawDeg },
-    };
+    return pinholeCamera({ fx: k.fx * scale, fy: k.fy * scale, cx: k.cx, cy: k.cy, width: camera.width, height: camera.height, distortion: camera.distortion }, camera.mount);
   }
 
   /** Target size the filter assumes (m): sqrt(deckLength deckWidth) (1 + targetSizeError). */

@@ -13,7 +13,6 @@ import type { Phase, TrialResult } from './TrialResult.js';
 import { createGuidance } from './guidance.js';
 import { blindHeight, LandingSupervisor, type SupervisorInput } from './supervisor.js';
 import { judgeTouchdown } from './touchdown.js';
-import { relativeNees } from './relativeNees.js';
 import { TrialState } from './trialState.js';
 import type { TraceRow } from './trace.js';
 import { createCarrierState, createCarrierTrajectory } from './world/carrierPath.js';
@@ -193,7 +192,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     st.addPhaseTime(phase, dt);
     for (let k = 0; k < 3; k++) st.vLTrue[k] = ls.velocity[k]!;
     if (input.valid && Math.abs(filter.time - t) < eps + 1e-12) {
-      st.addError(x, st.rTrue, st.vCTrue, st.vLTrue, relativeNees(x, filter.P, filter.n, st.rTrue, st.vCTrue, st.vLTrue));
+      st.errors.add(x, filter.P, filter.n, st.rTrue, st.vCTrue, st.vLTrue);
     }
     if (recorder) recordStep(recorder, st, t, initialized ? filter : null);
     if (onStep) onStep(st.row(t, phase, input.valid ? x : null, input.valid ? filter.P : null));

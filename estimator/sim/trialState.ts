@@ -1,11 +1,11 @@
 // The working arrays and running sums of one trial (runTrial's bookkeeping), preallocated so
 // the step loop allocates nothing; row() builds a TraceRow only when a caller wants one.
-//   positionRmse = sqrt(mean |r̂ - r|²)            over steps with a valid estimate (m)
-//   velocityRmse = sqrt(mean |(v̂C - v̂L) - (vC - vL)|²)                            (m/s)
-//   neesMean     = mean relative pos+vel NEES (dim 6), nisMean = mean NIS of accepted boxes (dim 3)
+//   position/velocity RMSE and mean NEES: EstimateErrors, over steps with a valid estimate
+//   nisMean = mean NIS of accepted boxes (dim 3)
 // Means over no samples are NaN (JSON null).
 import type { Box } from '../camera/Box.js';
 import type { UpdateResult } from '../models/LandingFilter.js';
+import { EstimateErrors } from './EstimateErrors.js';
 import { PHASES, type Outcome, type Phase, type TrialResult } from './TrialResult.js';
 import type { TouchdownJudgement } from './touchdown.js';
 import type { CameraUpdate, RelativeTriple, TraceRow } from './trace.js';
@@ -58,11 +58,8 @@ export class TrialState {
   private divergence: string | null = null;
   private nisSum = 0;
   private nisCount = 0;
-  private neesSum = 0;
-  private neesCount = 0;
-  private positionSquares = 0;
-  private velocitySquares = 0;
-  private errorCount = 0;
+  /** Estimate errors against truth at every filter step (RMSE, NEES). */
+  readonly errors = new EstimateErrors();
   private readonly pDiagonal: Float64Array;
 
   constructor(readonly n: number) {
@@ -111,24 +108,6 @@ export class TrialState {
     if (!Number.isFinite(nis)) return;
     this.nisSum += nis;
     this.nisCount++;
-  }
-
-  /** Accumulate estimate errors at one step (x: filter state; truth vectors at the filter's time). */
-  addError(x: ArrayLike<number>, r: ArrayLike<number>, vC: ArrayLike<number>, vL: ArrayLike<number>, nees: number): void {
-    let p = 0, v = 0;
-    for (let k = 0; k < 3; k++) {
-      const dp = x[k]! - r[k]!;
-      const dv = x[3 + k]! - x[6 + k]! - (vC[k]! - vL[k]!);
-      p += dp * dp;
-      v += dv * dv;
-    }
-    this.positionSquares += p;
-    this.velocitySquares += v;
-    this.errorCount++;
-    if (Number.isFinite(nees)) {
-      this.neesSum += nees;
-      this.neesCount++;
-    }
   }
 
   /** Diagonal of P (n x n) into a reused array. */
@@ -181,9 +160,9 @@ export class TrialState {
       lateralSpeed: t ? t.lateralSpeed : null,
       tiltDeg: t ? t.tiltDeg : null,
       touchdownTime: end.touchdownTime,
-      positionRmse: Math.sqrt(mean(this.positionSquares, this.errorCount)),
-      velocityRmse: Math.sqrt(mean(this.velocitySquares, this.errorCount)),
-      neesMean: mean(this.neesSum, this.neesCount),
+      positionRmse: this.errors.positionRmse,
+      velocityRmse: this.errors.velocityRmse,
+      neesMean: this.errors.neesMean,
       neesDim: 6,
       nisMean: mean(this.nisSum, this.nisCount),
       nisDim: 3,

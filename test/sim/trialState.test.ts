@@ -30,16 +30,18 @@ describe('TrialState', () => {
     expect([r.positionRmse, r.velocityRmse, r.neesMean, r.nisMean]).toEqual([NaN, NaN, NaN, NaN]);
     const x = new Float64Array(12);
     x.set([3, 0, 0, 1, 0, 0, 0, 0, 0]); // position error 3 m, relative velocity error 1 m/s
-    s.addError(x, [0, 0, 0], [0, 0, 0], [0, 0, 0], 4);
+    const P = new Float64Array(144);
+    for (let i = 0; i < 12; i++) P[i * 12 + i] = 1; // NEES = 9 / 1 + 1 / (P_cc + P_ll = 2) = 9.5
+    s.errors.add(x, P, 12, [0, 0, 0], [0, 0, 0], [0, 0, 0]);
     x.set([0, 4, 0, 0, 0, 0, 0, 0, 2]); // 4 m, and vL error 2 m/s -> relative velocity error -2
-    s.addError(x, [0, 0, 0], [0, 0, 0], [0, 0, 0], Number.NaN); // NaN NEES is not averaged
+    s.errors.add(x, new Float64Array(144), 12, [0, 0, 0], [0, 0, 0], [0, 0, 0]); // P = 0: NaN NEES is not averaged
     s.addNis(2);
     s.addNis(Number.NaN);
     s.addNis(4);
     r = s.result(noContact);
     expectClose(r.positionRmse, Math.sqrt((9 + 16) / 2), { rel: 1e-15 }, 'position RMSE (round-off)');
     expectClose(r.velocityRmse, Math.sqrt((1 + 4) / 2), { rel: 1e-15 }, 'velocity RMSE (round-off)');
-    expect([r.neesMean, r.nisMean, r.nisCount, r.neesDim, r.nisDim]).toEqual([4, 3, 2, 6, 3]);
+    expect([r.neesMean, r.nisMean, r.nisCount, r.neesDim, r.nisDim]).toEqual([9.5, 3, 2, 6, 3]);
   });
 
   it('builds a fresh trace row with sigma from the covariance diagonal', () => {

@@ -1,7 +1,7 @@
 // Replay against a reference (truth.csv): NEES of the relative position + relative velocity
-// block (dim 6, the same definition the simulator reports: sim/relativeNees.ts) and RMS
-// errors of r and of vC - vL. add() allocates nothing (scratch preallocated).
-import { relativeNees } from '../../sim/relativeNees.js';
+// block (dim 6) and RMS errors of r and of vC - vL, through the simulator's own EstimateErrors,
+// so both report the same numbers. add() allocates nothing (scratch preallocated).
+import { EstimateErrors } from '../../sim/EstimateErrors.js';
 
 export interface TruthSummary {
   /** Rows compared. */
@@ -21,12 +21,7 @@ export class TruthComparison {
   private readonly r = new Float64Array(3);
   private readonly vC = new Float64Array(3);
   private readonly vL = new Float64Array(3);
-  private count = 0;
-  private neesCount = 0;
-  private neesSum = 0;
-  private positionSquares = 0;
-  private velocitySquares = 0;
-  private notPositiveDefinite = 0;
+  private readonly errors = new EstimateErrors();
 
   /**
    * Compare state x with covariance P (n x n, row-major) against a truth row
@@ -37,30 +32,20 @@ export class TruthComparison {
       this.r[i] = truth[1 + i]!;
       this.vC[i] = truth[4 + i]!;
       this.vL[i] = truth[7 + i]!;
-      const dr = x[i]! - this.r[i]!;
-      const dv = x[3 + i]! - x[6 + i]! - (this.vC[i]! - this.vL[i]!);
-      this.positionSquares += dr * dr;
-      this.velocitySquares += dv * dv;
     }
-    this.count++;
-    const nees = relativeNees(x, P, n, this.r, this.vC, this.vL);
-    if (Number.isNaN(nees)) this.notPositiveDefinite++;
-    else {
-      this.neesSum += nees;
-      this.neesCount++;
-    }
-    return nees;
+    return this.errors.add(x, P, n, this.r, this.vC, this.vL);
   }
 
   summary(): TruthSummary {
+    const e = this.errors;
     return {
-      count: this.count,
-      neesMean: this.neesCount > 0 ? this.neesSum / this.neesCount : Number.NaN,
-      neesCount: this.neesCount,
+      count: e.count,
+      neesMean: e.neesMean,
+      neesCount: e.neesCount,
       neesDim: 6,
-      positionRmse: this.count > 0 ? Math.sqrt(this.positionSquares / this.count) : Number.NaN,
-      velocityRmse: this.count > 0 ? Math.sqrt(this.velocitySquares / this.count) : Number.NaN,
-      notPositiveDefinite: this.notPositiveDefinite,
+      positionRmse: e.positionRmse,
+      velocityRmse: e.velocityRmse,
+      notPositiveDefinite: e.notPositiveDefinite,
     };
   }
 }

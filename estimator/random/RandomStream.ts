@@ -125,6 +125,15 @@ export class RandomStream {
     return stream;
   }
 
+  /**
+   * A child stream keyed by 52 bits drawn from `parent` (advances the parent by one draw).
+   * A static method, not a closure made per caller: optimized code that inlined a closure
+   * created anew in each trial was thrown away at the next trial ("wrong call target").
+   */
+  static childOf(parent: RandomStream): RandomStream {
+    return RandomStream.fromKey([Math.floor(parent.uniform() * 2 ** 52)]);
+  }
+
   /** An independent child stream: same key plus one more element. */
   derive(key: readonly number[], name: string): RandomStream {
     return RandomStream.fromKey([...key, streamId(name)]);

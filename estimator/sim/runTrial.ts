@@ -58,7 +58,6 @@ const CONTACT_DEPTH = 0.25;
  */
 export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialResult {
   const key = options.key ?? { seed: scenario.seed, point: 0, trial: 0 };
-  const stream = (name: string) => RandomStream.fromKey([key.seed, key.point, key.trial, streamId(name)]);
   const { carrier: carrierSpec, lander: landerSpec, filter: filterSpec, localization, detector: detectorSpec } = scenario;
   const onStep = options.onStep;
   const recorder = options.recorder;
@@ -72,11 +71,11 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   const ls = lander.state;
   ls.velocity.set(cs.velocity);
   const windDirection = landerSpec.wind.directionDeg * DEG;
-  const gust = new DrydenGust(landerSpec.wind.turbulence, stream('wind'), windDirection);
+  const gust = new DrydenGust(landerSpec.wind.turbulence, trialStream(key, 'wind'), windDirection);
   const meanWind = Float64Array.of(landerSpec.wind.speed * Math.cos(windDirection), landerSpec.wind.speed * Math.sin(windDirection), 0);
-  const errors = new LocalizationError(localization, stream('localization'));
+  const errors = new LocalizationError(localization, trialStream(key, 'localization'));
   const dims = { deckLength: carrierSpec.deckLength, deckWidth: carrierSpec.deckWidth, bodyHeight: carrierSpec.bodyHeight };
-  const detector = new Detector(errors.trueCamera(scenario.camera), detectorSpec, dims, stream('detector'));
+  const detector = new Detector(errors.trueCamera(scenario.camera), detectorSpec, dims, trialStream(key, 'detector'));
   const dt = 1 / filterSpec.rate;
   const guidance = createGuidance(scenario.guidance, landerSpec, dt);
   const believed = errors.believedCamera(scenario.camera);
@@ -205,6 +204,11 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     lastAbort: supervisor.lastAbort,
     falseBoxes: detector.falseBoxTotal,
   });
+}
+
+/** A subsystem's random stream: from the trial key and the stream's name alone. */
+function trialStream(key: TrialKey, name: string): RandomStream {
+  return RandomStream.fromKey([key.seed, key.point, key.trial, streamId(name)]);
 }
 
 // The step loop's less common paths live in these small functions, so runTrial itself stays

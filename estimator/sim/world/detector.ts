@@ -92,12 +92,11 @@ export class Detector {
     this.outline = new CarrierOutline(camera, dims);
     this.camera = this.outline.camera; // copied into the one camera shape (PinholeCamera.ts)
     this.frameInterval = 1 / spec.rate;
-    const child = () => RandomStream.fromKey([Math.floor(stream.uniform() * 2 ** 52)]);
-    this.noise = child();
-    this.dropout = child();
-    this.latency = child();
-    this.clutter = child();
-    const burstStream = child();
+    this.noise = RandomStream.childOf(stream);
+    this.dropout = RandomStream.childOf(stream);
+    this.latency = RandomStream.childOf(stream);
+    this.clutter = RandomStream.childOf(stream);
+    const burstStream = RandomStream.childOf(stream);
     this.burst = spec.burst ? new GilbertElliott(spec.burst.enter, spec.burst.exit, burstStream) : null;
     const perFrame = 1 + 2 * spec.falseBoxRate * this.frameInterval + 1;
     const window = spec.rate * (spec.latency + 6 * spec.latencyJitter + 1);

@@ -24,10 +24,9 @@ export class LocalizationError {
   /** One child stream per channel, so e.g. more IMU samples do not shift the odometry draws. */
   constructor(spec: LocalizationSpec, stream: RandomStream) {
     this.spec = spec;
-    const child = () => RandomStream.fromKey([Math.floor(stream.uniform() * 2 ** 52)]);
-    this.attitudeStream = child();
-    this.odometryStream = child();
-    this.imuStream = child();
+    this.attitudeStream = RandomStream.childOf(stream);
+    this.odometryStream = RandomStream.childOf(stream);
+    this.imuStream = RandomStream.childOf(stream);
     this.odometryBiasNow = Float64Array.of(spec.odometryBias, spec.odometryBias, spec.odometryBias);
   }
 

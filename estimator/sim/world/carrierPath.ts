@@ -101,15 +101,37 @@ export function planarPathFromSpec(spec: CarrierSpec['path']): PlanarPath {
  * (thrust attitude), and its deckHeight is its altitude.
  */
 export function createCarrierTrajectory(spec: CarrierSpec, recordedRows?: number[][]): CarrierTrajectory {
-  const motion = spec.motion;
-  const heaveOmega = motion.heaveAmplitude !== 0 && motion.heavePeriod > 0 ? (2 * Math.PI) / motion.heavePeriod : 0;
-  const pitchOmega = motion.pitchAmplitudeDeg !== 0 && motion.pitchPeriod > 0 ? (2 * Math.PI) / motion.pitchPeriod : 0;
-  const heaveAmplitude = heaveOmega > 0 ? motion.heaveAmplitude : 0;
-  const pitchAmplitude = pitchOmega > 0 ? motion.pitchAmplitudeDeg * DEG : 0;
-  const banks = spec.kind === 'aircraft';
+  const deck = new DeckMotion(spec);
+  if (spec.path.shape === 'recorded') {
+    if (!recordedRows) throw new CarrierPathError('carrier.path.file', 'a recorded path needs its rows (t, x, y, z)');
+    return new RecordedTrajectory(new RecordedPath(recordedRows), spec.deckHeight, deck);
+  }
+  return new GeometricTrajectory(planarPathFromSpec(spec.path), spec, deck);
+}
 
-  // Shared tail of stateAt: heave on z, then the deck attitude.
-  function finish(t: number, out: CarrierState): CarrierState {
+// Classes, not object literals with closures: a trial builds a new trajectory, and optimized
+// code that had inlined the previous trial's closure was thrown away at the first call
+// (V8 "wrong call target"); prototype methods are the same function in every trial.
+
+/** Heave on z and the deck attitude: the tail every trajectory's stateAt shares. */
+class DeckMotion {
+  private readonly heaveOmega: number;
+  private readonly pitchOmega: number;
+  private readonly heaveAmplitude: number;
+  private readonly pitchAmplitude: number;
+  private readonly banks: boolean;
+
+  constructor(spec: CarrierSpec) {
+    const motion = spec.motion;
+    this.heaveOmega = motion.heaveAmplitude !== 0 && motion.heavePeriod > 0 ? (2 * Math.PI) / motion.heavePeriod : 0;
+    this.pitchOmega = motion.pitchAmplitudeDeg !== 0 && motion.pitchPeriod > 0 ? (2 * Math.PI) / motion.pitchPeriod : 0;
+    this.heaveAmplitude = this.heaveOmega > 0 ? motion.heaveAmplitude : 0;
+    this.pitchAmplitude = this.pitchOmega > 0 ? motion.pitchAmplitudeDeg * DEG : 0;
+    this.banks = spec.kind === 'aircraft';
+  }
+
+  finish(t: number, out: CarrierState): CarrierState {
+    const heaveAmplitude = this.heaveAmplitude, heaveOmega = this.heaveOmega;
     if (heaveAmplitude !== 0) {
       // z += A sin(w t); z' = A w cos(w t); z'' = -A w^2 sin(w t)
       const sin = Math.sin(heaveOmega * t), cos = Math.cos(heaveOmega * t);
@@ -118,65 +140,77 @@ export function createCarrierTrajectory(spec: CarrierSpec, recordedRows?: number
       out.acceleration[2] = out.acceleration[2]! - heaveAmplitude * heaveOmega * heaveOmega * sin;
     }
     const q = out.qWorldDeck;
-    if (banks) {
+    if (this.banks) {
       attitudeFromAcceleration(out.acceleration, out.heading, q);
     } else {
       q[0] = Math.cos(out.heading / 2); q[1] = 0; q[2] = 0; q[3] = Math.sin(out.heading / 2);
     }
-    if (pitchAmplitude !== 0) pitchQuaternionInPlace(q, pitchAmplitude * Math.sin(pitchOmega * t));
+    if (this.pitchAmplitude !== 0) pitchQuaternionInPlace(q, this.pitchAmplitude * Math.sin(this.pitchOmega * t));
     return out;
   }
+}
 
-  if (spec.path.shape === 'recorded') {
-    if (!recordedRows) throw new CarrierPathError('carrier.path.file', 'a recorded path needs its rows (t, x, y, z)');
-    const recorded = new RecordedPath(recordedRows);
-    const sample: RecordedSample = { position: new Float64Array(3), velocity: new Float64Array(3), acceleration: new Float64Array(3), heading: 0 };
-    return {
-      pathLength: Infinity,
-      closed: false,
-      stateAt(t: number, out: CarrierState): CarrierState {
-        recorded.sample(t, sample);
-        out.position.set(sample.position);
-        out.position[2] = out.position[2]! + spec.deckHeight;
-        out.velocity.set(sample.velocity);
-        out.acceleration.set(sample.acceleration);
-        out.heading = sample.heading;
-        out.distance = NaN; // not tracked for recordings
-        return finish(t, out);
-      },
-    };
+class RecordedTrajectory implements CarrierTrajectory {
+  readonly pathLength = Infinity;
+  readonly closed = false;
+  private readonly sample: RecordedSample = { position: new Float64Array(3), velocity: new Float64Array(3), acceleration: new Float64Array(3), heading: 0 };
+
+  constructor(private readonly recorded: RecordedPath, private readonly deckHeight: number, private readonly deck: DeckMotion) {}
+
+  stateAt(t: number, out: CarrierState): CarrierState {
+    const sample = this.sample;
+    this.recorded.sample(t, sample);
+    out.position.set(sample.position);
+    out.position[2] = out.position[2]! + this.deckHeight;
+    out.velocity.set(sample.velocity);
+    out.acceleration.set(sample.acceleration);
+    out.heading = sample.heading;
+    out.distance = NaN; // not tracked for recordings
+    return this.deck.finish(t, out);
+  }
+}
+
+class GeometricTrajectory implements CarrierTrajectory {
+  readonly pathLength: number;
+  readonly closed: boolean;
+  private readonly profile: SpeedProfileModel;
+  private readonly cr: number;
+  private readonly sr: number;
+  private readonly deckHeight: number;
+  private readonly point = createPlanarPoint();
+  private readonly speed: ProfileSample = { s: 0, v: 0, a: 0 };
+
+  constructor(private readonly path: PlanarPath, spec: CarrierSpec, private readonly deck: DeckMotion) {
+    this.pathLength = path.length;
+    this.closed = path.closed;
+    this.profile = new SpeedProfileModel(spec.speed, spec.profile);
+    const rotation = spec.path.headingDeg * DEG;
+    this.cr = Math.cos(rotation);
+    this.sr = Math.sin(rotation);
+    this.deckHeight = spec.deckHeight;
   }
 
-  const path = planarPathFromSpec(spec.path);
-  const profile = new SpeedProfileModel(spec.speed, spec.profile);
-  const rotation = spec.path.headingDeg * DEG;
-  const cr = Math.cos(rotation), sr = Math.sin(rotation);
-  const point = createPlanarPoint();
-  const speed: ProfileSample = { s: 0, v: 0, a: 0 };
-  return {
-    pathLength: path.length,
-    closed: path.closed,
-    stateAt(t: number, out: CarrierState): CarrierState {
-      profile.sample(t, speed);
-      const s = path.closed ? speed.s % path.length : speed.s;
-      path.evaluate(s, point);
-      // rotate the path into the world by the path heading
-      const tx = cr * point.tx - sr * point.ty;
-      const ty = sr * point.tx + cr * point.ty;
-      out.position[0] = cr * point.x - sr * point.y;
-      out.position[1] = sr * point.x + cr * point.y;
-      out.position[2] = spec.deckHeight;
-      out.velocity[0] = speed.v * tx;
-      out.velocity[1] = speed.v * ty;
-      out.velocity[2] = 0;
-      // a = s'' T + s'^2 kappa N, N = left normal (-ty, tx)
-      const centripetal = speed.v * speed.v * point.curvature;
-      out.acceleration[0] = speed.a * tx - centripetal * ty;
-      out.acceleration[1] = speed.a * ty + centripetal * tx;
-      out.acceleration[2] = 0;
-      out.heading = Math.atan2(ty, tx);
-      out.distance = speed.s;
-      return finish(t, out);
-    },
-  };
+  stateAt(t: number, out: CarrierState): CarrierState {
+    const path = this.path, point = this.point, speed = this.speed, cr = this.cr, sr = this.sr;
+    this.profile.sample(t, speed);
+    const s = path.closed ? speed.s % path.length : speed.s;
+    path.evaluate(s, point);
+    // rotate the path into the world by the path heading
+    const tx = cr * point.tx - sr * point.ty;
+    const ty = sr * point.tx + cr * point.ty;
+    out.position[0] = cr * point.x - sr * point.y;
+    out.position[1] = sr * point.x + cr * point.y;
+    out.position[2] = this.deckHeight;
+    out.velocity[0] = speed.v * tx;
+    out.velocity[1] = speed.v * ty;
+    out.velocity[2] = 0;
+    // a = s'' T + s'^2 kappa N, N = left normal (-ty, tx)
+    const centripetal = speed.v * speed.v * point.curvature;
+    out.acceleration[0] = speed.a * tx - centripetal * ty;
+    out.acceleration[1] = speed.a * ty + centripetal * tx;
+    out.acceleration[2] = 0;
+    out.heading = Math.atan2(ty, tx);
+    out.distance = speed.s;
+    return this.deck.finish(t, out);
+  }
 }

@@ -3,7 +3,9 @@
 // re-propagated step is only the mean and covariance arithmetic) used to reach it, the state
 // and covariance after the step and its updates, and the measurements applied in that step (so
 // a re-propagation can re-apply them). Preallocated flat typed arrays and per-slot views;
-// nothing is allocated after construction.
+// nothing is allocated after construction. A slot keeps x and P side by side (n + n² values),
+// so a filter whose x and P are views of one array saves and restores a step in one copy
+// (saveState/restoreState: every re-propagated step of a delayed box does both).
 import { rotationMatrixFromQuat } from '../frames/rotationMatrixFromQuat.js';
 
 /** Measurement kinds kept in the history. */
@@ -21,8 +23,8 @@ export class FilterHistory {
   readonly attitude: Float64Array;
   /** R_wb of each slot's attitude (9 per slot, row-major; NaN for an unknown attitude). */
   readonly rotation: Float64Array;
-  readonly x: Float64Array;
-  readonly P: Float64Array;
+  /** Per slot x (n) then P (n x n row-major). */
+  readonly states: Float64Array;
   readonly eventCount: Int32Array;
   readonly eventKind: Int8Array;
   readonly eventTime: Float64Array;
@@ -31,6 +33,8 @@ export class FilterHistory {
   private size = 0;
   private readonly xSlots: Float64Array[];
   private readonly PSlots: Float64Array[];
+  private readonly stateSlots: Float64Array[];
+  private readonly stride: number;
   private readonly rotationSlots: Float64Array[];
 
   constructor(readonly n: number, capacity: number) {
@@ -40,10 +44,11 @@ export class FilterHistory {
     this.force = new Float64Array(3 * c);
     this.attitude = new Float64Array(4 * c);
     this.rotation = new Float64Array(9 * c);
-    this.x = new Float64Array(n * c);
-    this.P = new Float64Array(n * n * c);
-    this.xSlots = Array.from({ length: c }, (_, s) => this.x.subarray(s * n, (s + 1) * n));
-    this.PSlots = Array.from({ length: c }, (_, s) => this.P.subarray(s * n * n, (s + 1) * n * n));
+    const stride = (this.stride = n + n * n);
+    this.states = new Float64Array(stride * c);
+    this.stateSlots = Array.from({ length: c }, (_, s) => this.states.subarray(s * stride, (s + 1) * stride));
+    this.xSlots = Array.from({ length: c }, (_, s) => this.states.subarray(s * stride, s * stride + n));
+    this.PSlots = Array.from({ length: c }, (_, s) => this.states.subarray(s * stride + n, (s + 1) * stride));
     this.rotationSlots = Array.from({ length: c }, (_, s) => this.rotation.subarray(9 * s, 9 * s + 9));
     this.eventCount = new Int32Array(c);
     this.eventKind = new Int8Array(EVENTS_PER_STEP * c);
@@ -69,6 +74,19 @@ export class FilterHistory {
 
   /** Append a step (overwriting the oldest when full); returns its slot. */
   push(t: number, force: ArrayLike<number>, attitude: ArrayLike<number>, x: ArrayLike<number>, P: ArrayLike<number>): number {
+    const s = this.advance(t, force, attitude);
+    this.save(s, x, P);
+    return s;
+  }
+
+  /** push() with x and P given as one array [x, P]. */
+  pushState(t: number, force: ArrayLike<number>, attitude: ArrayLike<number>, state: Float64Array): number {
+    const s = this.advance(t, force, attitude);
+    this.saveState(s, state);
+    return s;
+  }
+
+  private advance(t: number, force: ArrayLike<number>, attitude: ArrayLike<number>): number {
     this.head = this.head + 1 === this.capacity ? 0 : this.head + 1;
     if (this.size < this.capacity) this.size++;
     const s = this.head;
@@ -77,19 +95,27 @@ export class FilterHistory {
     for (let i = 0; i < 4; i++) this.attitude[4 * s + i] = attitude[i]!;
     rotationMatrixFromQuat(attitude, this.rotationSlots[s]!);
     this.eventCount[s] = 0;
-    this.save(s, x, P);
     return s;
   }
 
   save(slot: number, x: ArrayLike<number>, P: ArrayLike<number>): void {
-    const n = this.n;
-    this.x.set(x as ArrayLike<number>, slot * n);
-    this.P.set(P as ArrayLike<number>, slot * n * n);
+    this.states.set(x as ArrayLike<number>, slot * this.stride);
+    this.states.set(P as ArrayLike<number>, slot * this.stride + this.n);
   }
 
   restore(slot: number, x: Float64Array, P: Float64Array): void {
     x.set(this.xSlots[slot]!);
     P.set(this.PSlots[slot]!);
+  }
+
+  /** save() for x and P given as one array [x, P] (n + n² values). */
+  saveState(slot: number, state: Float64Array): void {
+    this.states.set(state, slot * this.stride);
+  }
+
+  /** restore() into one array [x, P]. */
+  restoreState(slot: number, state: Float64Array): void {
+    state.set(this.stateSlots[slot]!);
   }
 
   /** R_wb stored with a slot (a view; do not write). */

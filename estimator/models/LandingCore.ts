@@ -24,6 +24,8 @@ const IDENTITY3 = new Float64Array([1, 0, 0, 0, 1, 0, 0, 0, 1]);
 
 export class LandingCore {
   readonly n: number;
+  /** x then P in one array (views below), so the filter history saves a step with one copy. */
+  readonly state: Float64Array;
   readonly x: Float64Array;
   readonly P: Float64Array;
   readonly model: BoxMeasurementModel;
@@ -62,8 +64,9 @@ export class LandingCore {
   constructor(spec: FilterSpec, camera: FilterCamera, targetSize: number) {
     const singer = spec.carrierModel === 'singer';
     this.n = landingStateDimension(singer);
-    this.x = new Float64Array(this.n);
-    this.P = new Float64Array(this.n * this.n);
+    this.state = new Float64Array(this.n + this.n * this.n);
+    this.x = this.state.subarray(0, this.n);
+    this.P = this.state.subarray(this.n);
     this.check = new Float64Array(this.n * this.n);
     this.model = new BoxMeasurementModel(camera, targetSize);
     this.noise = { carrierAccelNoise: spec.carrierAccelNoise, singerTau: spec.singerTau, accelNoise: spec.accelNoise, accelBiasWalk: spec.accelBiasWalk, qScale: spec.qScale };

@@ -50,6 +50,8 @@ export class LandingFilter {
   /** A predict or update of the current delayed-box replay met a non-finite value or non-PD S. */
   private replayBroken = false;
   private readonly core: LandingCore;
+  /** x and P as one array (x and P are views of it). */
+  private readonly state: Float64Array;
   private readonly history: FilterHistory;
   private readonly loose: boolean;
   private readonly attitude = new Float64Array(4);
@@ -68,6 +70,7 @@ export class LandingFilter {
     this.n = this.core.n;
     this.x = this.core.x;
     this.P = this.core.P;
+    this.state = this.core.state;
     this.history = new FilterHistory(this.n, Math.ceil(spec.historyLength * spec.rate * 1.5) + 4);
     this.loose = spec.cameraUpdate === 'loose';
   }
@@ -130,7 +133,7 @@ export class LandingFilter {
     const n = this.n;
     for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) this.P[i * n + j] = core.Rfix[3 * i + j]!;
     this.history.clear();
-    this.history.push(t, this.force, this.attitude, this.x, this.P);
+    this.history.pushState(t, this.force, this.attitude, this.state);
     return { status: 'accepted', nis: Number.NaN, dim: 3, reason: null };
   }
 
@@ -150,7 +153,7 @@ export class LandingFilter {
     this.force[2] = f2;
     if (!this.core.step(dt, this.force, this.attitude)) return this.diverge(this.core.nonFiniteEvent(), this.history.slot(0));
     this.clock = t;
-    this.history.push(t, this.force, this.attitude, this.x, this.P);
+    this.history.pushState(t, this.force, this.attitude, this.state);
     return null;
   }
 
@@ -190,7 +193,7 @@ export class LandingFilter {
         if (event) return this.diverge(event, head);
       }
       history.addEvent(head, kind, this.clock, d0, d1, d2);
-      history.save(head, this.x, this.P);
+      history.saveState(head, this.state);
       return this.result(status);
     }
     return this.measureDelayed(kind, t, d0, d1, d2);
@@ -209,7 +212,7 @@ export class LandingFilter {
     const from = history.slot(age), to = history.slot(age - 1), head = history.slot(0);
     if (history.isFull(to)) return rejected('too-many-updates-per-step', 3);
     this.replayBroken = false;
-    history.restore(from, this.x, this.P);
+    history.restoreState(from, this.state);
     let tau = history.time[from]!;
     const base = to * EVENTS_PER_STEP;
     const count = history.eventCount[to]!;
@@ -221,7 +224,7 @@ export class LandingFilter {
     const nis = this.core.lastNis, reason = this.core.lastReason;
     if (status === 'diverged') return this.diverge(reason ?? 'covariance-not-positive-definite', head);
     if (status !== 'accepted') {
-      history.restore(head, this.x, this.P);
+      history.restoreState(head, this.state);
       return this.result(status);
     }
     history.addEvent(to, kind, t, d0, d1, d2);
@@ -231,7 +234,7 @@ export class LandingFilter {
     for (let a = age - 1; a > 0; a--) {
       // x, P are at the end of step `a`: keep them, then re-propagate step a - 1
       const done = history.slot(a), slot = history.slot(a - 1);
-      history.save(done, this.x, this.P);
+      history.saveState(done, this.state);
       tau = history.time[done]!;
       const slotBase = slot * EVENTS_PER_STEP;
       for (let e = 0; e < history.eventCount[slot]!; e++) tau = this.replayEvent(done, slot, slotBase + e, tau);
@@ -244,7 +247,7 @@ export class LandingFilter {
       const event = checkCovariance(this.x, this.P, this.n, this.core.check);
       if (event) return this.diverge(event, head);
     }
-    history.save(head, this.x, this.P);
+    history.saveState(head, this.state);
     this.core.lastNis = nis;
     this.core.lastReason = reason;
     return this.result('accepted');
@@ -303,7 +306,7 @@ export class LandingFilter {
   private diverge(event: string, goodSlot: number): UpdateResult {
     this.divergence = event;
     this.clearInnovation();
-    this.history.restore(goodSlot, this.x, this.P);
+    this.history.restoreState(goodSlot, this.state);
     return this.divergedResult();
   }
 
@@ -351,7 +354,7 @@ export class LandingFilter {
     this.initialized = true;
     this.force.fill(0);
     this.history.clear();
-    this.history.push(t, this.force, attitude, this.x, this.P);
+    this.history.pushState(t, this.force, attitude, this.state);
   }
 
   private setDiagonal(offset: number, variance: number): void {

@@ -37,4 +37,18 @@ describe('FilterHistory', () => {
     const unknown = h.push(0.02, [0, 0, 9.8], [Number.NaN, Number.NaN, Number.NaN, Number.NaN], [0], [1]);
     expect(h.rotationOf(unknown).every(Number.isNaN)).toBe(true);
   });
+
+  it('saves and restores x and P given as one array exactly as given separately', () => {
+    const h = new FilterHistory(2, 3);
+    const state = Float64Array.of(1, 2, 10, 11, 12, 13); // x = [1, 2], P = [[10, 11], [12, 13]]
+    const slot = h.pushState(0.01, [0, 0, 9.8], [1, 0, 0, 0], state);
+    const x = new Float64Array(2), P = new Float64Array(4);
+    h.restore(slot, x, P);
+    expect(Array.from(x)).toEqual([1, 2]);
+    expect(Array.from(P)).toEqual([10, 11, 12, 13]);
+    h.save(slot, [3, 4], [20, 21, 22, 23]);
+    const back = new Float64Array(6);
+    h.restoreState(slot, back);
+    expect(Array.from(back)).toEqual([3, 4, 20, 21, 22, 23]);
+  });
 });

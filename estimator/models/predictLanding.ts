@@ -12,11 +12,21 @@
 // lower triangle is left stale by the passes, then Q is added and the upper triangle mirrored,
 // so P stays exactly symmetric. Straight-line inner loops, no branches per entry (hot path:
 // one call per IMU step plus one per re-propagated step of every delayed box).
+// The constant-velocity model (n = 12, four of the five demos) runs the same passes unrolled into
+// straight-line code generated from this file's loops (predictConstantVelocity.generated.ts,
+// bit-identical, 1.4x faster); the loops below serve the Singer model and are the reference.
 import type { ProcessCoefficients } from './ProcessCoefficients.js';
 import { STANDARD_GRAVITY } from './landingState.js';
+import { predictConstantVelocity } from './predictConstantVelocity.generated.js';
 
 /** Returns false when x or P became non-finite (NaN or ±Infinity anywhere). */
 export function predictLanding(x: Float64Array, P: Float64Array, n: number, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
+  if (!c.singer && n === 12) return predictConstantVelocity(x, P, f, Rwb, c);
+  return predictLandingLoops(x, P, n, f, Rwb, c);
+}
+
+/** predictLanding by the loops of this file, for any model. */
+export function predictLandingLoops(x: Float64Array, P: Float64Array, n: number, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
   const dt = c.dt, h2 = 0.5 * dt * dt;
   const R00 = Rwb[0]!, R01 = Rwb[1]!, R02 = Rwb[2]!, R10 = Rwb[3]!, R11 = Rwb[4]!, R12 = Rwb[5]!, R20 = Rwb[6]!, R21 = Rwb[7]!, R22 = Rwb[8]!;
   // State.

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { predictLanding } from '../../estimator/models/predictLanding.js';
+import { readFileSync } from 'node:fs';
+import { predictLanding, predictLandingLoops } from '../../estimator/models/predictLanding.js';
+import { predictConstantVelocitySource } from '../../estimator/models/codegen/predictConstantVelocitySource.js';
 import { emptyProcessCoefficients, processCoefficients } from '../../estimator/models/ProcessCoefficients.js';
 import { rotationMatrixFromQuat } from '../../estimator/frames/rotationMatrixFromQuat.js';
 import { quatFromEulerDeg } from '../../estimator/frames/quatFromEulerDeg.js';
@@ -91,3 +93,38 @@ for (const singer of [false, true]) {
     });
   });
 }
+
+describe('predictConstantVelocity (generated straight-line predict, n = 12)', () => {
+  it('gives the loops x and P to the last bit, on random covariances, attitudes and step lengths', () => {
+    const stream = RandomStream.fromKey([7, streamId('generated-predict')]);
+    for (let trial = 0; trial < 200; trial++) {
+      const P1 = randomSpd(12, stream), P2 = P1.slice();
+      const x1 = Float64Array.from({ length: 12 }, () => stream.gaussian()), x2 = x1.slice();
+      const R = rotationMatrixFromQuat(quatFromEulerDeg(30 * stream.gaussian(), 30 * stream.gaussian(), 360 * stream.uniform()));
+      const force = [stream.gaussian(), stream.gaussian(), 9.8 + stream.gaussian()];
+      const c = processCoefficients(0.002 + 0.02 * stream.uniform(), noise, emptyProcessCoefficients(false));
+      expect(predictLanding(x1, P1, 12, force, R, c)).toBe(true);
+      expect(predictLandingLoops(x2, P2, 12, force, R, c)).toBe(true);
+      expect(Array.from(P1)).toEqual(Array.from(P2));
+      expect(Array.from(x1)).toEqual(Array.from(x2));
+    }
+  });
+
+  it('reports a non-finite P or x like the loops do', () => {
+    const stream = RandomStream.fromKey([8, streamId('generated-predict')]);
+    const c = processCoefficients(0.01, noise, emptyProcessCoefficients(false));
+    for (const index of [0, 5 * 12 + 7, 11 * 12 + 11, 3 * 12 + 10]) {
+      const P = randomSpd(12, stream);
+      P[index] = Number.NaN;
+      expect(predictLanding(new Float64Array(12), P, 12, f, Rwb, c)).toBe(false);
+    }
+    const x = new Float64Array(12);
+    x[4] = Number.POSITIVE_INFINITY;
+    expect(predictLanding(x, randomSpd(12, stream), 12, f, Rwb, c)).toBe(false);
+  });
+
+  it('is what its generator writes (run `npm run codegen` after changing the generator)', () => {
+    const committed = readFileSync(new URL('../../estimator/models/predictConstantVelocity.generated.ts', import.meta.url), 'utf8');
+    expect(committed).toBe(predictConstantVelocitySource());
+  });
+});

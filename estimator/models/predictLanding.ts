@@ -13,7 +13,7 @@
 // so P stays exactly symmetric. Straight-line inner loops, no branches per entry (hot path:
 // one call per IMU step plus one per re-propagated step of every delayed box).
 // The constant-velocity model (n = 12, four of the five demos) runs the same passes unrolled into
-// straight-line code generated from this file's loops (predictConstantVelocity.generated.ts,
+// straight-line code generated from these loops (predictConstantVelocity.generated.ts,
 // bit-identical, 1.4x faster); the loops below serve the Singer model and are the reference.
 import type { ProcessCoefficients } from './ProcessCoefficients.js';
 import { STANDARD_GRAVITY } from './landingState.js';

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { predictLanding, predictLandingLoops } from '../../estimator/models/predictLanding.js';
-import { predictConstantVelocitySource } from '../../estimator/models/codegen/predictConstantVelocitySource.js';
+import { predictConstantVelocitySource } from '../../estimator/codegen/predictConstantVelocitySource.js';
 import { emptyProcessCoefficients, processCoefficients } from '../../estimator/models/ProcessCoefficients.js';
 import { rotationMatrixFromQuat } from '../../estimator/frames/rotationMatrixFromQuat.js';
 import { quatFromEulerDeg } from '../../estimator/frames/quatFromEulerDeg.js';

@@ -1,0 +1,14 @@
+// `npm run codegen`: rewrite the generated kernels from their generators.
+import { writeFileSync } from 'node:fs';
+import { josephUpdate12Source } from './josephUpdate12Source.js';
+import { predictConstantVelocitySource } from './predictConstantVelocitySource.js';
+
+const targets: Array<[string, () => string]> = [
+  ['../models/predictConstantVelocity.generated.ts', predictConstantVelocitySource],
+  ['../filter/josephUpdate12.generated.ts', josephUpdate12Source],
+];
+for (const [path, source] of targets) {
+  const target = new URL(path, import.meta.url);
+  writeFileSync(target, source());
+  process.stdout.write(`wrote ${target.pathname}\n`);
+}

@@ -1,10 +1,10 @@
 // `npm run codegen`: rewrite the generated kernels from their generators.
 import { writeFileSync } from 'node:fs';
 import { josephUpdate12Source } from './josephUpdate12Source.js';
-import { predictConstantVelocitySource } from './predictConstantVelocitySource.js';
+import { predictLandingSource } from './predictLandingSource.js';
 
 const targets: Array<[string, () => string]> = [
-  ['../models/predictConstantVelocity.generated.ts', predictConstantVelocitySource],
+  ['../models/predictLanding.generated.ts', predictLandingSource],
   ['../filter/josephUpdate12.generated.ts', josephUpdate12Source],
 ];
 for (const [path, source] of targets) {

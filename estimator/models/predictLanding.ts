@@ -12,16 +12,17 @@
 // lower triangle is left stale by the passes, then Q is added and the upper triangle mirrored,
 // so P stays exactly symmetric. Straight-line inner loops, no branches per entry (hot path:
 // one call per IMU step plus one per re-propagated step of every delayed box).
-// The constant-velocity model (n = 12, four of the five demos) runs the same passes unrolled into
-// straight-line code generated from these loops (predictConstantVelocity.generated.ts,
-// bit-identical, 1.4x faster); the loops below serve the Singer model and are the reference.
+// predictLanding runs these passes unrolled into straight-line code generated from the loops
+// below (predictLanding.generated.ts: bit-identical, about 1.4x faster); the loops are the
+// reference and serve any other state size.
 import type { ProcessCoefficients } from './ProcessCoefficients.js';
 import { STANDARD_GRAVITY } from './landingState.js';
-import { predictConstantVelocity } from './predictConstantVelocity.generated.js';
+import { predictConstantVelocity, predictSinger } from './predictLanding.generated.js';
 
 /** Returns false when x or P became non-finite (NaN or ±Infinity anywhere). */
 export function predictLanding(x: Float64Array, P: Float64Array, n: number, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
   if (!c.singer && n === 12) return predictConstantVelocity(x, P, f, Rwb, c);
+  if (c.singer && n === 15) return predictSinger(x, P, f, Rwb, c);
   return predictLandingLoops(x, P, n, f, Rwb, c);
 }
 

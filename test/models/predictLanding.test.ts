@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { predictLanding, predictLandingLoops } from '../../estimator/models/predictLanding.js';
-import { predictConstantVelocitySource } from '../../estimator/codegen/predictConstantVelocitySource.js';
+import { predictLandingSource } from '../../estimator/codegen/predictLandingSource.js';
 import { emptyProcessCoefficients, processCoefficients } from '../../estimator/models/ProcessCoefficients.js';
 import { rotationMatrixFromQuat } from '../../estimator/frames/rotationMatrixFromQuat.js';
 import { quatFromEulerDeg } from '../../estimator/frames/quatFromEulerDeg.js';
@@ -94,37 +94,40 @@ for (const singer of [false, true]) {
   });
 }
 
-describe('predictConstantVelocity (generated straight-line predict, n = 12)', () => {
-  it('gives the loops x and P to the last bit, on random covariances, attitudes and step lengths', () => {
-    const stream = RandomStream.fromKey([7, streamId('generated-predict')]);
-    for (let trial = 0; trial < 200; trial++) {
-      const P1 = randomSpd(12, stream), P2 = P1.slice();
-      const x1 = Float64Array.from({ length: 12 }, () => stream.gaussian()), x2 = x1.slice();
-      const R = rotationMatrixFromQuat(quatFromEulerDeg(30 * stream.gaussian(), 30 * stream.gaussian(), 360 * stream.uniform()));
-      const force = [stream.gaussian(), stream.gaussian(), 9.8 + stream.gaussian()];
-      const c = processCoefficients(0.002 + 0.02 * stream.uniform(), noise, emptyProcessCoefficients(false));
-      expect(predictLanding(x1, P1, 12, force, R, c)).toBe(true);
-      expect(predictLandingLoops(x2, P2, 12, force, R, c)).toBe(true);
-      expect(Array.from(P1)).toEqual(Array.from(P2));
-      expect(Array.from(x1)).toEqual(Array.from(x2));
-    }
-  });
+describe('generated straight-line predicts (predictLanding.generated.ts)', () => {
+  for (const singer of [false, true]) {
+    const n = singer ? 15 : 12;
+    it(`gives the loops' x and P to the last bit (${singer ? 'Singer' : 'constant velocity'}), on random covariances, attitudes and step lengths`, () => {
+      const stream = RandomStream.fromKey([7, n, streamId('generated-predict')]);
+      for (let trial = 0; trial < 200; trial++) {
+        const P1 = randomSpd(n, stream), P2 = P1.slice();
+        const x1 = Float64Array.from({ length: n }, () => stream.gaussian()), x2 = x1.slice();
+        const R = rotationMatrixFromQuat(quatFromEulerDeg(30 * stream.gaussian(), 30 * stream.gaussian(), 360 * stream.uniform()));
+        const force = [stream.gaussian(), stream.gaussian(), 9.8 + stream.gaussian()];
+        const c = processCoefficients(0.002 + 0.02 * stream.uniform(), noise, emptyProcessCoefficients(singer));
+        expect(predictLanding(x1, P1, n, force, R, c)).toBe(true);
+        expect(predictLandingLoops(x2, P2, n, force, R, c)).toBe(true);
+        expect(Array.from(P1)).toEqual(Array.from(P2));
+        expect(Array.from(x1)).toEqual(Array.from(x2));
+      }
+    });
 
-  it('reports a non-finite P or x like the loops do', () => {
-    const stream = RandomStream.fromKey([8, streamId('generated-predict')]);
-    const c = processCoefficients(0.01, noise, emptyProcessCoefficients(false));
-    for (const index of [0, 5 * 12 + 7, 11 * 12 + 11, 3 * 12 + 10]) {
-      const P = randomSpd(12, stream);
-      P[index] = Number.NaN;
-      expect(predictLanding(new Float64Array(12), P, 12, f, Rwb, c)).toBe(false);
-    }
-    const x = new Float64Array(12);
-    x[4] = Number.POSITIVE_INFINITY;
-    expect(predictLanding(x, randomSpd(12, stream), 12, f, Rwb, c)).toBe(false);
-  });
+    it(`reports a non-finite P or x like the loops do (${singer ? 'Singer' : 'constant velocity'})`, () => {
+      const stream = RandomStream.fromKey([8, n, streamId('generated-predict')]);
+      const c = processCoefficients(0.01, noise, emptyProcessCoefficients(singer));
+      for (const index of [0, 5 * n + 7, 11 * n + 11, 3 * n + 10, n * n - 1]) {
+        const P = randomSpd(n, stream);
+        P[index] = Number.NaN;
+        expect(predictLanding(new Float64Array(n), P, n, f, Rwb, c)).toBe(false);
+      }
+      const x = new Float64Array(n);
+      x[4] = Number.POSITIVE_INFINITY;
+      expect(predictLanding(x, randomSpd(n, stream), n, f, Rwb, c)).toBe(false);
+    });
+  }
 
   it('is what its generator writes (run `npm run codegen` after changing the generator)', () => {
-    const committed = readFileSync(new URL('../../estimator/models/predictConstantVelocity.generated.ts', import.meta.url), 'utf8');
-    expect(committed).toBe(predictConstantVelocitySource());
+    const committed = readFileSync(new URL('../../estimator/models/predictLanding.generated.ts', import.meta.url), 'utf8');
+    expect(committed).toBe(predictLandingSource());
   });
 });

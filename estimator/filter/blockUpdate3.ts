@@ -4,10 +4,10 @@
 //   U = P[:, c:c+3] Hbᵀ,  S = Hb U[c:c+3, :] + R,  S⁻¹ by cofactors (S checked positive definite
 //   by its leading minors, Sylvester's criterion),  K = U S⁻¹,  x ← x + K y,
 //   P ← P - K Uᵀ - U Kᵀ + (K S) Kᵀ   (Joseph form expanded; upper triangle computed, mirrored).
-// For n = 12 (the constant-velocity landing filter) updateJoseph3 runs generated straight-line
-// code (josephUpdate12.generated.ts), bit-identical to the loops, which stay for other n.
+// For n = 12 and 15 (the landing filters) updateJoseph3 runs generated straight-line code
+// (josephUpdate.generated.ts), bit-identical to the loops, which stay for other n.
 import type { UpdateWorkspace } from './UpdateWorkspace.js';
-import { updateJoseph12 } from './josephUpdate12.generated.js';
+import { updateJoseph12, updateJoseph15 } from './josephUpdate.generated.js';
 
 /** U, S, S⁻¹ (3x3, row-major in ws) for H = [0 … Hb … 0]. False when S is not positive definite. */
 export function innovationCovariance3(P: Float64Array, Hb: Float64Array, col: number, R: Float64Array, n: number, ws: UpdateWorkspace): boolean {
@@ -51,7 +51,9 @@ export function normalizedInnovationSquared3(ws: UpdateWorkspace): number {
 
 /** x ← x + K y, P ← P - K Uᵀ - U Kᵀ + (K S) Kᵀ. Returns false when x or P became non-finite. */
 export function updateJoseph3(x: Float64Array, P: Float64Array, n: number, ws: UpdateWorkspace): boolean {
-  return n === 12 ? updateJoseph12(x, P, ws) : updateJoseph3Loops(x, P, n, ws);
+  if (n === 12) return updateJoseph12(x, P, ws);
+  if (n === 15) return updateJoseph15(x, P, ws);
+  return updateJoseph3Loops(x, P, n, ws);
 }
 
 /** updateJoseph3 by loops, for any n. */

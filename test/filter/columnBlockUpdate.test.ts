@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { innovationCovarianceColumnBlock, updateJosephColumnBlock } from '../../estimator/filter/columnBlockUpdate.js';
 import { readFileSync } from 'node:fs';
 import { innovationCovariance3, normalizedInnovationSquared3, updateJoseph3, updateJoseph3Loops } from '../../estimator/filter/blockUpdate3.js';
-import { josephUpdate12Source } from '../../estimator/codegen/josephUpdate12Source.js';
+import { josephUpdateSource } from '../../estimator/codegen/josephUpdateSource.js';
 import { innovationCovariance, normalizedInnovationSquared, updateJoseph } from '../../estimator/filter/update.js';
 import { UpdateWorkspace } from '../../estimator/filter/UpdateWorkspace.js';
 import { RandomStream, streamId } from '../../estimator/random/RandomStream.js';
@@ -72,31 +72,33 @@ describe('block-structured updates agree with the dense textbook Joseph update (
   });
 });
 
-describe('updateJoseph12 (generated straight-line update, n = 12)', () => {
-  it('gives the loops x, P, K and K S to the last bit, for updates on any column block', () => {
-    const stream = RandomStream.fromKey([13, streamId('generated joseph')]);
-    for (let trial = 0; trial < 200; trial++) {
-      const col = [0, 3, 6, 9][trial % 4]!;
-      const P1 = randomCovariance(12, stream), P2 = P1.slice();
-      const x1 = Float64Array.from({ length: 12 }, () => stream.gaussian()), x2 = x1.slice();
-      const Hb = Float64Array.from({ length: 9 }, () => stream.gaussian());
-      const R = new Float64Array([0.5, 0.1, 0, 0.1, 0.4, 0.05, 0, 0.05, 0.3]);
-      const ws1 = new UpdateWorkspace(12, 3), ws2 = new UpdateWorkspace(12, 3);
-      for (const ws of [ws1, ws2]) ws.y.set([stream.gaussian(), stream.gaussian(), stream.gaussian()]);
-      ws2.y.set(ws1.y);
-      expect(innovationCovariance3(P1, Hb, col, R, 12, ws1)).toBe(true);
-      expect(innovationCovariance3(P2, Hb, col, R, 12, ws2)).toBe(true);
-      expect(updateJoseph3(x1, P1, 12, ws1)).toBe(true); // dispatches to updateJoseph12
-      expect(updateJoseph3Loops(x2, P2, 12, ws2)).toBe(true);
-      expect(Array.from(P1)).toEqual(Array.from(P2));
-      expect(Array.from(x1)).toEqual(Array.from(x2));
-      expect(Array.from(ws1.K)).toEqual(Array.from(ws2.K));
-      expect(Array.from(ws1.KS)).toEqual(Array.from(ws2.KS));
-    }
-  });
+describe('generated straight-line Joseph updates (josephUpdate.generated.ts)', () => {
+  for (const n of [12, 15]) {
+    it(`gives the loops x, P, K and K S to the last bit for n = ${n}, for updates on any column block`, () => {
+      const stream = RandomStream.fromKey([13, n, streamId('generated joseph')]);
+      for (let trial = 0; trial < 200; trial++) {
+        const col = [0, 3, 6, 9, n - 3][trial % 5]!;
+        const P1 = randomCovariance(n, stream), P2 = P1.slice();
+        const x1 = Float64Array.from({ length: n }, () => stream.gaussian()), x2 = x1.slice();
+        const Hb = Float64Array.from({ length: 9 }, () => stream.gaussian());
+        const R = new Float64Array([0.5, 0.1, 0, 0.1, 0.4, 0.05, 0, 0.05, 0.3]);
+        const ws1 = new UpdateWorkspace(n, 3), ws2 = new UpdateWorkspace(n, 3);
+        ws1.y.set([stream.gaussian(), stream.gaussian(), stream.gaussian()]);
+        ws2.y.set(ws1.y);
+        expect(innovationCovariance3(P1, Hb, col, R, n, ws1)).toBe(true);
+        expect(innovationCovariance3(P2, Hb, col, R, n, ws2)).toBe(true);
+        expect(updateJoseph3(x1, P1, n, ws1)).toBe(true); // dispatches to the generated code
+        expect(updateJoseph3Loops(x2, P2, n, ws2)).toBe(true);
+        expect(Array.from(P1)).toEqual(Array.from(P2));
+        expect(Array.from(x1)).toEqual(Array.from(x2));
+        expect(Array.from(ws1.K)).toEqual(Array.from(ws2.K));
+        expect(Array.from(ws1.KS)).toEqual(Array.from(ws2.KS));
+      }
+    });
+  }
 
   it('is what its generator writes (run `npm run codegen` after changing the generator)', () => {
-    const committed = readFileSync(new URL('../../estimator/filter/josephUpdate12.generated.ts', import.meta.url), 'utf8');
-    expect(committed).toBe(josephUpdate12Source());
+    const committed = readFileSync(new URL('../../estimator/filter/josephUpdate.generated.ts', import.meta.url), 'utf8');
+    expect(committed).toBe(josephUpdateSource());
   });
 });

@@ -19,7 +19,7 @@ import { replayLog } from '../../estimator/io/log/replayLog.js';
 import { writeSyntheticLog } from '../io/log/syntheticLog.js';
 import type { BenchSection } from './sections.js';
 
-const CHILD_FLAG = '--replay-bench-child';
+export const CHILD_FLAG = '--replay-bench-child';
 /** About 33.5 kB of log per simulated second: 30,000 s make ~1 GB. */
 const BIG_LOG_SECONDS = 30_000;
 const round = (v: number) => Number(v.toPrecision(4));
@@ -34,7 +34,10 @@ interface ChildResult {
 }
 
 function replayInChild(folder: string): ChildResult {
-  const child = spawnSync(process.execPath, [`--max-old-space-size=${HEAP_LIMIT_MB}`, '--import', 'tsx', fileURLToPath(import.meta.url), CHILD_FLAG, folder], { encoding: 'utf8', maxBuffer: 1 << 20 });
+  // bundled (dist/bench.mjs) the child is this same file; from source it needs tsx
+  const self = fileURLToPath(import.meta.url);
+  const loader = self.endsWith('.ts') ? ['--import', 'tsx'] : [];
+  const child = spawnSync(process.execPath, [`--max-old-space-size=${HEAP_LIMIT_MB}`, ...loader, self, CHILD_FLAG, folder], { encoding: 'utf8', maxBuffer: 1 << 20 });
   if (child.status !== 0) throw new Error(`replay bench child failed (${child.status}): ${child.stderr}`);
   return JSON.parse(child.stdout.trim().split('\n').at(-1)!) as ChildResult;
 }

@@ -20,6 +20,7 @@ import { applyParams } from '../../estimator/study/applyParams.js';
 import { runSweep } from '../../estimator/study/runSweep.node.js';
 import { workerPool } from '../../estimator/study/sweepPool.node.js';
 import { parseVary } from '../../estimator/study/sweepDesign.js';
+import { demoScenarioPath } from './paths.js';
 import type { BenchSection } from './sections.js';
 
 const TRIALS = 100; // x 10 points = 1,000 trials
@@ -59,7 +60,7 @@ async function timeWorkerCounts(scenario: Scenario, dir: string, tag: string): P
 export const sweepBench: BenchSection = {
   name: 'sweep',
   async run() {
-    const rover = loadScenario(new URL('../../data-demo/survey-rover.scenario.json', import.meta.url).pathname);
+    const rover = loadScenario(demoScenarioPath('survey-rover'));
     const demoTrial = setPaths(rover, { duration: 60, 'guidance.alignTime': 60 });
     const dir = mkdtempSync(join(tmpdir(), 'alight-bench-sweep-'));
     const loadBefore = loadavg()[0]!;

@@ -20,6 +20,7 @@ import { loadScenario } from '../../estimator/io/loadScenario.js';
 import { setPaths } from '../../estimator/io/scenarioPath.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
 import { runTrial } from '../../estimator/sim/runTrial.js';
+import { repoRoot } from './paths.js';
 import type { BenchSection } from './sections.js';
 
 const TRIALS_PER_DEMO = 10;
@@ -43,7 +44,7 @@ const round2 = (v: number) => Number(v.toFixed(2));
 export const trialBench: BenchSection = {
   name: 'trial',
   async run() {
-    const dir = join(import.meta.dirname, '..', '..', 'data-demo');
+    const dir = join(repoRoot(), 'data-demo');
     const names = readdirSync(dir).filter((f) => f.endsWith('.scenario.json')).sort();
     const scenarios = names.map((name) => setPaths(loadScenario(join(dir, name)), { duration: 60, 'guidance.alignTime': 60 }));
     // the same trials with boxes arriving at once: the difference is the filter's

@@ -16,8 +16,8 @@
 // below (predictLanding.generated.ts: bit-identical, about 1.4x faster); the loops are the
 // reference and serve any other state size.
 import type { ProcessCoefficients } from './ProcessCoefficients.js';
-import { STANDARD_GRAVITY } from './landingState.js';
 import { predictConstantVelocity, predictSinger } from './predictLanding.generated.js';
+import { predictLandingState } from './predictLandingState.js';
 
 /** Returns false when x or P became non-finite (NaN or ±Infinity anywhere). */
 export function predictLanding(x: Float64Array, P: Float64Array, n: number, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
@@ -30,24 +30,7 @@ export function predictLanding(x: Float64Array, P: Float64Array, n: number, f: A
 export function predictLandingLoops(x: Float64Array, P: Float64Array, n: number, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
   const dt = c.dt, h2 = 0.5 * dt * dt;
   const R00 = Rwb[0]!, R01 = Rwb[1]!, R02 = Rwb[2]!, R10 = Rwb[3]!, R11 = Rwb[4]!, R12 = Rwb[5]!, R20 = Rwb[6]!, R21 = Rwb[7]!, R22 = Rwb[8]!;
-  // State.
-  const f0 = f[0]! - x[9]!, f1 = f[1]! - x[10]!, f2 = f[2]! - x[11]!;
-  const a0 = R00 * f0 + R01 * f1 + R02 * f2;
-  const a1 = R10 * f0 + R11 * f1 + R12 * f2;
-  const a2 = R20 * f0 + R21 * f1 + R22 * f2 - STANDARD_GRAVITY;
-  x[0] = x[0]! + dt * (x[3]! - x[6]!) - h2 * a0;
-  x[1] = x[1]! + dt * (x[4]! - x[7]!) - h2 * a1;
-  x[2] = x[2]! + dt * (x[5]! - x[8]!) - h2 * a2;
-  x[6] = x[6]! + dt * a0;
-  x[7] = x[7]! + dt * a1;
-  x[8] = x[8]! + dt * a2;
-  if (c.singer) {
-    for (let i = 0; i < 3; i++) {
-      x[i] = x[i]! + c.alpha * x[12 + i]!;
-      x[3 + i] = x[3 + i]! + c.beta * x[12 + i]!;
-      x[12 + i] = c.e * x[12 + i]!;
-    }
-  }
+  predictLandingState(x, f, Rwb, c);
   const r1 = n, r2 = 2 * n, c0 = 3 * n, c1 = 4 * n, c2 = 5 * n, l0 = 6 * n, l1 = 7 * n, l2 = 8 * n, b0 = 9 * n, b1 = 10 * n, b2 = 11 * n;
   // Row pass, F_cv: T[r] = P[r] + dt (P[vC] - P[vL]) + h2 R_wb P[ba];  T[vL] = P[vL] - dt R_wb P[ba].
   // Row vL is needed from column vL on only (its earlier columns are lower triangle of P⁺).

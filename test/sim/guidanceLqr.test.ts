@@ -28,4 +28,15 @@ describe('LqrGuidance', () => {
     g.command({ rx: 100, ry: 0, vcx: 0, vcy: 0, vlx: 2.9, vly: 0 }, 0.01, out);
     expectClose(out[0]!, 3, { abs: 1e-12 }, 'maxSpeed (exact)');
   });
+
+  it('keeps the gains of each weight set and step apart (the gain cache is keyed by all four)', () => {
+    const lander = { ...s.lander, velocityTimeConstant: 0.4, maxAccel: 50, maxSpeed: 50 };
+    const weights = [[2, 1, 0.5, 0.01], [2, 1, 0.5, 0.02], [2, 1, 0.25, 0.01], [2, 2, 0.5, 0.01], [3, 1, 0.5, 0.01], [2, 1, 0.5, 0.01]] as const;
+    for (const [q, qv, rho, dt] of weights) {
+      const g = new LqrGuidance({ ...s.guidance, lqrPosition: q, lqrVelocity: qv, lqrControl: rho }, lander, dt);
+      const { kr, kv } = lqrGain(q, qv, rho, dt);
+      expect([g.kr, g.kv]).toEqual([kr, kv]);
+    }
+  });
 });
+

@@ -23,6 +23,15 @@ function spec(shape: PathShape, overrides: Partial<CarrierSpec> = {}): CarrierSp
 const shapes: PathShape[] = ['straight', 'rectangle', 'ellipse', 'figure-eight', 'survey'];
 
 describe('createCarrierTrajectory', () => {
+  it('gives every trajectory of a kind the same stateAt function (no closure per trial)', () => {
+    // A new closure per trial made optimized trial code that had inlined the last one deoptimize
+    // at its first call in every trial; prototype methods are one function for all trials.
+    const first = createCarrierTrajectory(spec('ellipse')), second = createCarrierTrajectory(spec('ellipse', { speed: 7 }));
+    expect(second.stateAt).toBe(first.stateAt);
+    const recorded = (offset: number) => createCarrierTrajectory(spec('recorded'), [[0, offset, 0, 0], [1, offset + 1, 0, 0], [2, offset + 2, 0, 0]]);
+    expect(recorded(0).stateAt).toBe(recorded(5).stateAt);
+  });
+
   for (const shape of shapes) {
     it(`stateAt() on a ${shape} path moves at exactly the profile speed (central differences)`, () => {
       const s = spec(shape);

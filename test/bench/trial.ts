@@ -7,11 +7,11 @@
 // compiler threads, so a trial timed while the code still tiers up (the first scenario, or the
 // first 15-state filter) would be charged for the compilation, not for the simulation.
 //
-// The 50 trials run in ROUNDS (5) rounds, each round visiting every scenario, and each trial's
-// figure is the least CPU it took in any round, over about 12 s in all (cpuMs = median over the 50 of those). This
-// host's speed changes by up to 1.6x for seconds at a time, whatever runs on it (a fixed
-// arithmetic loop measured 55 ms per slice in one stretch and 90 ms in the next), so a single
-// pass times the neighbours as much as the code; the minimum of repeats is the usual estimate
+// The 50 trials run in ROUNDS (5) rounds over about 12 s, each round visiting every scenario,
+// and each trial's figure is the least CPU it took in any round (cpuMs = median over the 50 of
+// those). This host's speed changes by up to 1.6x for seconds at a time, whatever runs on it (a
+// fixed arithmetic loop measured 57 ms per slice in one stretch and 90-120 ms in the next), so a
+// single pass times the neighbours as much as the code; the minimum of repeats is the usual estimate
 // of what the code itself costs. The median of each round is reported beside it
 // (cpuMsPerRound), so the spread stays visible.
 import { readdirSync } from 'node:fs';

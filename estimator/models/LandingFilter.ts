@@ -25,6 +25,8 @@ export { FilterSpecError } from './validateFilterSpec.js';
 
 const TIME_EPSILON = 1e-9; // s: capture times this close to the filter clock count as "now"
 const PD_CHECK_INTERVAL = 8; // updates between full Cholesky tests of P
+/** The attitude of a step before any IMU sample (a Float64Array like every other, so the history's hot code sees one kind of array). */
+const UNKNOWN_ATTITUDE = new Float64Array(4).fill(Number.NaN);
 
 export class LandingFilter {
   /** State dimension: 12, or 15 with the Singer carrier model. */
@@ -107,7 +109,7 @@ export class LandingFilter {
     this.setDiagonal(3, sigma.velocity * sigma.velocity);
     this.setDiagonal(6, sigma.velocity * sigma.velocity);
     this.setDiagonal(9, sigma.accelBias * sigma.accelBias);
-    this.start(t, [Number.NaN, Number.NaN, Number.NaN, Number.NaN]);
+    this.start(t, UNKNOWN_ATTITUDE);
   }
 
   /**
@@ -349,7 +351,7 @@ export class LandingFilter {
     }
   }
 
-  private start(t: number, attitude: ArrayLike<number>): void {
+  private start(t: number, attitude: Float64Array): void {
     this.clock = t;
     this.initialized = true;
     this.force.fill(0);

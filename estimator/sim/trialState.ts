@@ -77,7 +77,8 @@ export class TrialState {
   noteUpdate(box: Box, r: UpdateResult): void {
     let u = this.updatePool[this.updateCount];
     if (u === undefined) {
-      u = { box: { xMin: 0, yMin: 0, xMax: 0, yMax: 0 }, status: 'accepted', nis: Number.NaN, dim: 0 };
+      // NaN, not 0: the fields hold doubles from the start (a small-integer field turned double deoptimizes once)
+      u = { box: { xMin: Number.NaN, yMin: Number.NaN, xMax: Number.NaN, yMax: Number.NaN }, status: 'accepted', nis: Number.NaN, dim: 0 };
       this.updatePool.push(u);
     }
     u.box.xMin = box.xMin; u.box.yMin = box.yMin; u.box.xMax = box.xMax; u.box.yMax = box.yMax;

@@ -3,9 +3,9 @@
 // re-propagated step is only the mean and covariance arithmetic) used to reach it, the state
 // and covariance after the step and its updates, and the measurements applied in that step (so
 // a re-propagation can re-apply them). Preallocated flat typed arrays and per-slot views;
-// nothing is allocated after construction. A slot keeps x and P side by side (n + n² values),
-// so a filter whose x and P are views of one array saves and restores a step in one copy
-// (saveState/restoreState: every re-propagated step of a delayed box does both).
+// nothing is allocated after construction. A slot keeps the state as the filter holds it, x and
+// P side by side in one array (n + n² values), so every re-propagated step of a delayed box saves
+// (and a rejected box restores) in one copy.
 import { rotationMatrixFromQuat } from '../frames/rotationMatrixFromQuat.js';
 
 /** Measurement kinds kept in the history. */
@@ -31,8 +31,6 @@ export class FilterHistory {
   readonly eventData: Float64Array;
   private head = -1;
   private size = 0;
-  private readonly xSlots: Float64Array[];
-  private readonly PSlots: Float64Array[];
   private readonly stateSlots: Float64Array[];
   private readonly stride: number;
   private readonly rotationSlots: Float64Array[];
@@ -47,8 +45,6 @@ export class FilterHistory {
     const stride = (this.stride = n + n * n);
     this.states = new Float64Array(stride * c);
     this.stateSlots = Array.from({ length: c }, (_, s) => this.states.subarray(s * stride, (s + 1) * stride));
-    this.xSlots = Array.from({ length: c }, (_, s) => this.states.subarray(s * stride, s * stride + n));
-    this.PSlots = Array.from({ length: c }, (_, s) => this.states.subarray(s * stride + n, (s + 1) * stride));
     this.rotationSlots = Array.from({ length: c }, (_, s) => this.rotation.subarray(9 * s, 9 * s + 9));
     this.eventCount = new Int32Array(c);
     this.eventKind = new Int8Array(EVENTS_PER_STEP * c);
@@ -72,21 +68,8 @@ export class FilterHistory {
     return s < 0 ? s + this.capacity : s;
   }
 
-  /** Append a step (overwriting the oldest when full); returns its slot. */
-  push(t: number, force: ArrayLike<number>, attitude: ArrayLike<number>, x: ArrayLike<number>, P: ArrayLike<number>): number {
-    const s = this.advance(t, force, attitude);
-    this.save(s, x, P);
-    return s;
-  }
-
-  /** push() with x and P given as one array [x, P]. */
-  pushState(t: number, force: ArrayLike<number>, attitude: ArrayLike<number>, state: Float64Array): number {
-    const s = this.advance(t, force, attitude);
-    this.saveState(s, state);
-    return s;
-  }
-
-  private advance(t: number, force: ArrayLike<number>, attitude: ArrayLike<number>): number {
+  /** Append a step (overwriting the oldest when full) with its state [x, P]; returns its slot. */
+  push(t: number, force: ArrayLike<number>, attitude: ArrayLike<number>, state: Float64Array): number {
     this.head = this.head + 1 === this.capacity ? 0 : this.head + 1;
     if (this.size < this.capacity) this.size++;
     const s = this.head;
@@ -95,26 +78,17 @@ export class FilterHistory {
     for (let i = 0; i < 4; i++) this.attitude[4 * s + i] = attitude[i]!;
     rotationMatrixFromQuat(attitude, this.rotationSlots[s]!);
     this.eventCount[s] = 0;
+    this.save(s, state);
     return s;
   }
 
-  save(slot: number, x: ArrayLike<number>, P: ArrayLike<number>): void {
-    this.states.set(x as ArrayLike<number>, slot * this.stride);
-    this.states.set(P as ArrayLike<number>, slot * this.stride + this.n);
-  }
-
-  restore(slot: number, x: Float64Array, P: Float64Array): void {
-    x.set(this.xSlots[slot]!);
-    P.set(this.PSlots[slot]!);
-  }
-
-  /** save() for x and P given as one array [x, P] (n + n² values). */
-  saveState(slot: number, state: Float64Array): void {
+  /** Overwrite a slot's state with [x, P] (n + n² values). */
+  save(slot: number, state: Float64Array): void {
     this.states.set(state, slot * this.stride);
   }
 
-  /** restore() into one array [x, P]. */
-  restoreState(slot: number, state: Float64Array): void {
+  /** Copy a slot's state into [x, P]. */
+  restore(slot: number, state: Float64Array): void {
     state.set(this.stateSlots[slot]!);
   }
 

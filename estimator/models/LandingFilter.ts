@@ -135,7 +135,7 @@ export class LandingFilter {
     const n = this.n;
     for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) this.P[i * n + j] = core.Rfix[3 * i + j]!;
     this.history.clear();
-    this.history.pushState(t, this.force, this.attitude, this.state);
+    this.history.push(t, this.force, this.attitude, this.state);
     return { status: 'accepted', nis: Number.NaN, dim: 3, reason: null };
   }
 
@@ -155,7 +155,7 @@ export class LandingFilter {
     this.force[2] = f2;
     if (!this.core.step(dt, this.force, this.attitude)) return this.diverge(this.core.nonFiniteEvent(), this.history.slot(0));
     this.clock = t;
-    this.history.pushState(t, this.force, this.attitude, this.state);
+    this.history.push(t, this.force, this.attitude, this.state);
     return null;
   }
 
@@ -195,7 +195,7 @@ export class LandingFilter {
         if (event) return this.diverge(event, head);
       }
       history.addEvent(head, kind, this.clock, d0, d1, d2);
-      history.saveState(head, this.state);
+      history.save(head, this.state);
       return this.result(status);
     }
     return this.measureDelayed(kind, t, d0, d1, d2);
@@ -214,7 +214,7 @@ export class LandingFilter {
     const from = history.slot(age), to = history.slot(age - 1), head = history.slot(0);
     if (history.isFull(to)) return rejected('too-many-updates-per-step', 3);
     this.replayBroken = false;
-    history.restoreState(from, this.state);
+    history.restore(from, this.state);
     let tau = history.time[from]!;
     const base = to * EVENTS_PER_STEP;
     const count = history.eventCount[to]!;
@@ -226,7 +226,7 @@ export class LandingFilter {
     const nis = this.core.lastNis, reason = this.core.lastReason;
     if (status === 'diverged') return this.diverge(reason ?? 'covariance-not-positive-definite', head);
     if (status !== 'accepted') {
-      history.restoreState(head, this.state);
+      history.restore(head, this.state);
       return this.result(status);
     }
     history.addEvent(to, kind, t, d0, d1, d2);
@@ -236,7 +236,7 @@ export class LandingFilter {
     for (let a = age - 1; a > 0; a--) {
       // x, P are at the end of step `a`: keep them, then re-propagate step a - 1
       const done = history.slot(a), slot = history.slot(a - 1);
-      history.saveState(done, this.state);
+      history.save(done, this.state);
       tau = history.time[done]!;
       const slotBase = slot * EVENTS_PER_STEP;
       for (let e = 0; e < history.eventCount[slot]!; e++) tau = this.replayEvent(done, slot, slotBase + e, tau);
@@ -249,7 +249,7 @@ export class LandingFilter {
       const event = checkCovariance(this.x, this.P, this.n, this.core.check);
       if (event) return this.diverge(event, head);
     }
-    history.saveState(head, this.state);
+    history.save(head, this.state);
     this.core.lastNis = nis;
     this.core.lastReason = reason;
     return this.result('accepted');
@@ -308,7 +308,7 @@ export class LandingFilter {
   private diverge(event: string, goodSlot: number): UpdateResult {
     this.divergence = event;
     this.clearInnovation();
-    this.history.restoreState(goodSlot, this.state);
+    this.history.restore(goodSlot, this.state);
     return this.divergedResult();
   }
 
@@ -356,7 +356,7 @@ export class LandingFilter {
     this.initialized = true;
     this.force.fill(0);
     this.history.clear();
-    this.history.pushState(t, this.force, attitude, this.state);
+    this.history.push(t, this.force, attitude, this.state);
   }
 
   private setDiagonal(offset: number, variance: number): void {

@@ -2,8 +2,8 @@
 // n = 15 (the two landing filters) as straight-line code. The loops of updateJoseph3 run here
 // symbolically, in their order and with their grouping of every sum, so the generated functions
 // give the same x, P, K and K S to the last bit; U, K and K S are held in locals, and each P
-// entry of the upper triangle is loaded once and stored with its mirror. Regenerate with `npm run codegen`; a test compares the committed file
-// with this output.
+// entry of the upper triangle is loaded once and stored with its mirror. Regenerate with
+// `npm run codegen`; a test compares the committed file with this output.
 
 /** The generated module's source text. */
 export function josephUpdateSource(): string {

@@ -7,6 +7,7 @@
 import type { GuidanceSpec, LanderSpec } from './Scenario.js';
 import { limitNorm2, type HorizontalEstimate, type HorizontalGuidance } from './guidance.js';
 import { lqrGain } from './lqrGain.js';
+import { NewestCache } from './NewestCache.js';
 
 export class LqrGuidance implements HorizontalGuidance {
   /** Position (1/s^2) and rate (1/s) gains. */
@@ -39,17 +40,11 @@ export class LqrGuidance implements HorizontalGuidance {
 
 // Every trial of a study solves the same Riccati equation (about 0.3 ms with ml-matrix, 4 % of
 // a trial that lands in 8 s): keep the newest few gains, keyed by the exact weights and step.
-const GAIN_CACHE_SIZE = 16;
-const gainCache = new Map<string, { kr: number; kv: number }>();
+const gainCache = new NewestCache<{ kr: number; kv: number }>(16);
 
 function cachedGain(q: number, qv: number, rho: number, dt: number): { kr: number; kv: number } {
-  const key = `${q} ${qv} ${rho} ${dt}`;
-  let gain = gainCache.get(key);
-  if (!gain) {
+  return gainCache.get(`${q} ${qv} ${rho} ${dt}`, () => {
     const { kr, kv } = lqrGain(q, qv, rho, dt);
-    gain = { kr, kv };
-    if (gainCache.size >= GAIN_CACHE_SIZE) gainCache.delete(gainCache.keys().next().value!);
-    gainCache.set(key, gain);
-  }
-  return gain;
+    return { kr, kv };
+  });
 }

@@ -1,5 +1,6 @@
 // The carrier's true motion: deck-centre position, velocity, acceleration, heading and deck
 // attitude at any time. stateAt is allocation-free (writes into a CarrierState from createCarrierState).
+import { NewestCache } from '../NewestCache.js';
 import type { CarrierSpec } from '../Scenario.js';
 import { CarrierPathError } from './CarrierPathError.js';
 import { createPlanarPoint, type PlanarPath } from './PlanarPath.js';
@@ -50,18 +51,10 @@ function positive(field: string, value: number): number {
 // Arc-length tables of the curved paths take ~0.5 ms to build and every trial of a study
 // builds the same one: keep the newest few. A ParametricPath carries nothing from one
 // evaluation to the next, so sharing it leaves every trial's numbers as they were.
-const CURVE_CACHE_SIZE = 16;
-const curveCache = new Map<string, ParametricPath>();
+const curveCache = new NewestCache<ParametricPath>(16);
 
 function cachedCurve(shape: 'ellipse' | 'figure-eight', a: number, b: number): ParametricPath {
-  const key = `${shape} ${a} ${b}`;
-  let path = curveCache.get(key);
-  if (!path) {
-    path = shape === 'ellipse' ? ellipsePath(a, b) : figureEightPath(a, b);
-    if (curveCache.size >= CURVE_CACHE_SIZE) curveCache.delete(curveCache.keys().next().value!);
-    curveCache.set(key, path);
-  }
-  return path;
+  return curveCache.get(`${shape} ${a} ${b}`, () => (shape === 'ellipse' ? ellipsePath(a, b) : figureEightPath(a, b)));
 }
 
 /** The plane curve of a path spec (recorded paths are handled separately). */

@@ -5,7 +5,7 @@
 // (the relay demo 45 ms instead of 26), as the shared filter and world functions had compiled
 // for the other sections' inputs. Sections register in sections.ts.
 import { spawnSync } from 'node:child_process';
-import { fileURLToPath } from 'node:url';
+import { rerunArgs } from './paths.js';
 import { CHILD_FLAG } from './replay.js';
 import { sections } from './sections.js';
 
@@ -23,8 +23,6 @@ if (single !== undefined) {
   process.stdout.write(JSON.stringify(await section.run()) + '\n');
 } else if (!args.includes(CHILD_FLAG)) {
   // A replay child (replay.ts) is this same file when bundled: it runs only its replay.
-  const self = fileURLToPath(import.meta.url);
-  const loader = self.endsWith('.ts') ? ['--import', 'tsx'] : [];
   const names = sections.map((s) => s.name).filter((name) => !only || name === only);
   if (names.length === 0) {
     process.stderr.write(`bench: no section named ${only}; sections: ${sections.map((s) => s.name).join(', ')}\n`);
@@ -33,7 +31,7 @@ if (single !== undefined) {
   const report: Record<string, unknown> = {};
   for (const name of names) {
     if (!json) process.stderr.write(`bench: ${name} ...\n`);
-    const child = spawnSync(process.execPath, [...loader, self, `${SECTION_FLAG}${name}`], { encoding: 'utf8', maxBuffer: 1 << 24, stdio: ['ignore', 'pipe', 'inherit'] });
+    const child = spawnSync(process.execPath, [...rerunArgs(import.meta.url), `${SECTION_FLAG}${name}`], { encoding: 'utf8', maxBuffer: 1 << 24, stdio: ['ignore', 'pipe', 'inherit'] });
     if (child.status !== 0) {
       process.stderr.write(`bench: section ${name} failed (exit ${child.status})\n`);
       process.exit(1);

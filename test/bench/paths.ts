@@ -19,3 +19,12 @@ export function repoRoot(): string {
 export function demoScenarioPath(name: string): string {
   return join(repoRoot(), 'data-demo', `${name}.scenario.json`);
 }
+
+/**
+ * The node arguments that run the module at `moduleUrl` again in a child process: the file itself
+ * when bundled (dist/bench.mjs), the TypeScript source through tsx otherwise.
+ */
+export function rerunArgs(moduleUrl: string): string[] {
+  const file = fileURLToPath(moduleUrl);
+  return file.endsWith('.ts') ? ['--import', 'tsx', file] : [file];
+}

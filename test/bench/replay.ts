@@ -13,10 +13,10 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { logSourceFromFolder } from '../../estimator/io/log/logSourceFromFolder.node.js';
 import { replayLog } from '../../estimator/io/log/replayLog.js';
 import { writeSyntheticLog } from '../io/log/syntheticLog.js';
+import { rerunArgs } from './paths.js';
 import type { BenchSection } from './sections.js';
 
 export const CHILD_FLAG = '--replay-bench-child';
@@ -34,10 +34,7 @@ interface ChildResult {
 }
 
 function replayInChild(folder: string): ChildResult {
-  // bundled (dist/bench.mjs) the child is this same file; from source it needs tsx
-  const self = fileURLToPath(import.meta.url);
-  const loader = self.endsWith('.ts') ? ['--import', 'tsx'] : [];
-  const child = spawnSync(process.execPath, [`--max-old-space-size=${HEAP_LIMIT_MB}`, ...loader, self, CHILD_FLAG, folder], { encoding: 'utf8', maxBuffer: 1 << 20 });
+  const child = spawnSync(process.execPath, [`--max-old-space-size=${HEAP_LIMIT_MB}`, ...rerunArgs(import.meta.url), CHILD_FLAG, folder], { encoding: 'utf8', maxBuffer: 1 << 20 });
   if (child.status !== 0) throw new Error(`replay bench child failed (${child.status}): ${child.stderr}`);
   return JSON.parse(child.stdout.trim().split('\n').at(-1)!) as ChildResult;
 }

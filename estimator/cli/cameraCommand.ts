@@ -3,14 +3,14 @@
 import { fieldOfViewDeg, intrinsicsFromSpec, pixelsPerMetre } from '../sim/world/cameraFromSpec.js';
 import type { Scenario } from '../sim/Scenario.js';
 import type { Command } from './Command.js';
-import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { CliError } from './CliError.js';
 import { loadScenarioForCli } from './simulateCommand.js';
 
 const OPTIONS: OptionSpec[] = [
   { name: 'height', kind: 'value', valueName: 'H', help: "camera height above the deck (m; default: the scenario's trailing height)" },
   { name: 'json', kind: 'flag', help: 'print one JSON object instead of text' },
-  { name: 'help', kind: 'flag', help: 'show this help' },
+  HELP_OPTION,
 ];
 const USAGE = 'alight camera <scenario.json> [--height H] [--json]';
 const PURPOSE = "report a scenario camera's field of view and pixels per metre at a height";

@@ -4,7 +4,7 @@ import { mergeResults, type MergeInput } from '../study/mergeResults.js';
 import { describeProblems, parseResults } from '../study/resultsFile.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
-import { formatHelp, parseArgs, type OptionSpec } from './parseArgs.js';
+import { formatHelp, HELP_OPTION, parseArgs, type OptionSpec } from './parseArgs.js';
 import { asCliError, resolvePath } from './studyCli.js';
 
 const USAGE = 'alight merge <shard.jsonl>... --out results.jsonl';
@@ -12,7 +12,7 @@ const PURPOSE = 'Join the result files of a sharded sweep; the output equals an 
 const OPTIONS: OptionSpec[] = [
   { name: 'out', kind: 'value', valueName: 'FILE', help: 'merged results file (required; refuses to overwrite an input)' },
   { name: 'allow-partial', kind: 'flag', help: 'write the merge even when trials are missing (says how many)' },
-  { name: 'help', kind: 'flag', help: 'show this help' },
+  HELP_OPTION,
 ];
 
 export const mergeCommand: Command = {

@@ -12,6 +12,9 @@ export interface OptionSpec {
   valueName?: string;
 }
 
+/** The --help flag every command takes. */
+export const HELP_OPTION: OptionSpec = { name: 'help', kind: 'flag', help: 'show this help' };
+
 export interface ParsedArgs {
   positional: string[];
   flags: Set<string>;

@@ -7,7 +7,7 @@ import { recordTrial } from '../io/log/recordTrial.js';
 import { STREAM_SPECS } from '../io/log/logStreams.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
-import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { FLIGHT_CAUTION, loadScenarioForCli } from './simulateCommand.js';
 
 const OPTIONS: OptionSpec[] = [
@@ -15,7 +15,7 @@ const OPTIONS: OptionSpec[] = [
   { name: 'seed', kind: 'value', valueName: 'N', help: "master seed of the trial's random streams (default: the scenario's seed)" },
   { name: 'no-truth', kind: 'flag', help: 'leave out truth.csv, like a flight without a motion-capture or RTK reference' },
   { name: 'force', kind: 'flag', help: 'replace the log files (camera.json, filter.json, the CSV files) of an existing log folder' },
-  { name: 'help', kind: 'flag', help: 'show this help' },
+  HELP_OPTION,
 ];
 
 /** The files of the layout (README.md, "Flight-log layout"); --force removes exactly these. */

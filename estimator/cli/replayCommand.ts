@@ -12,14 +12,14 @@ import type { NisSummary } from '../io/log/MeasurementStatistics.js';
 import { FilterSpecError } from '../models/LandingFilter.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
-import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 
 const OPTIONS: OptionSpec[] = [
   { name: 'filter', kind: 'value', valueName: 'settings.json', help: 'filter settings over the log\'s own: a partial FilterSpec, e.g. {"qScale": 2, "pixelNoise": 3}' },
   { name: 'out', kind: 'value', valueName: 'estimates.csv', help: 'write the state and covariance diagonal after every IMU step (streamed)' },
   { name: 'json', kind: 'flag', help: 'print one JSON object (rows, nisMean, nisBounds, gateRejections, whiteness, neesMean, ...)' },
   { name: 'lags', kind: 'value', valueName: 'L', help: 'lags of the whiteness test (default 20)' },
-  { name: 'help', kind: 'flag', help: 'show this help' },
+  HELP_OPTION,
 ];
 
 const USAGE = 'alight replay <log-folder> [--filter settings.json] [--out estimates.csv] [--json] [--lags L]';

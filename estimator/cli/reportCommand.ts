@@ -12,11 +12,11 @@ import { studyById } from '../../notebooks/studies/studies.js';
 import { logSourceFromFolder } from '../io/log/logSourceFromFolder.node.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
-import { formatHelp, parseArgs, type OptionSpec } from './parseArgs.js';
+import { formatHelp, HELP_OPTION, parseArgs, type OptionSpec } from './parseArgs.js';
 
 const OPTIONS: OptionSpec[] = [
   { name: 'out', kind: 'value', valueName: 'FILE', help: 'HTML file to write (default: the analysis file name with .html)' },
-  { name: 'help', kind: 'flag', help: 'show this help' },
+  HELP_OPTION,
 ];
 const USAGE = 'alight report <analysis.json> [--out report.html]';
 const PURPOSE = 'Render a study analysis (saved from the notebook page) into one self-contained HTML report.';

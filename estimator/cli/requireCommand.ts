@@ -9,9 +9,9 @@ import { plausibleRange } from '../study/plausibleRanges.js';
 import { runBatch } from '../study/runBatch.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
-import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { createExecutor, loadScenarioOrFail, workerCount } from './studyRunner.js';
-import { asCliError, resolvePath, SAFETY_NOTE, WORKERS_OPTION } from './studyCli.js';
+import { asCliError, JSON_OPTION, resolvePath, SAFETY_NOTE, SEED_OPTION, WORKERS_OPTION } from './studyCli.js';
 
 const USAGE = 'alight require <scenario.json> --param PATH --target RATE [--from V] [--to V] [--trials MAX]';
 const PURPOSE = 'Find the largest impairment at which the lower Wilson 95 % bound of landing success stays at or above\nthe target: bisection between --from (good) and --to (bad), each probe adding trials in doubling batches\nuntil the verdict is clear. Assumes success falls steadily from --from to --to.';
@@ -23,11 +23,11 @@ const OPTIONS: OptionSpec[] = [
   { name: 'trials', kind: 'value', valueName: 'MAX', help: 'most trials at one probe (default 400)' },
   { name: 'first-batch', kind: 'value', valueName: 'N', help: 'trials in the first batch of each probe (default 25)' },
   { name: 'steps', kind: 'value', valueName: 'N', help: 'bisection steps (default 6: resolution = range / 64)' },
-  { name: 'seed', kind: 'value', valueName: 'S', help: 'master seed (default: the scenario\'s seed)' },
+  SEED_OPTION,
   WORKERS_OPTION,
   { name: 'svg', kind: 'value', valueName: 'FILE', help: 'figure: success at every probe with Wilson band and the target' },
-  { name: 'json', kind: 'flag', help: 'print JSON' },
-  { name: 'help', kind: 'flag', help: 'show this help' },
+  JSON_OPTION,
+  HELP_OPTION,
 ];
 
 export const requireCommand: Command = {

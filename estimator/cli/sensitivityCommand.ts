@@ -9,20 +9,20 @@ import { runBatch } from '../study/runBatch.js';
 import { parseVary } from '../study/sweepDesign.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
-import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { createExecutor, loadScenarioOrFail, progressBar, workerCount } from './studyRunner.js';
-import { asCliError, resolvePath, SAFETY_NOTE, WORKERS_OPTION } from './studyCli.js';
+import { asCliError, JSON_OPTION, resolvePath, SAFETY_NOTE, SEED_OPTION, WORKERS_OPTION } from './studyCli.js';
 
 const USAGE = 'alight sensitivity <scenario.json> [--vary PATH=GOOD:BAD ...] [--trials N]';
 const PURPOSE = 'One impairment at a time, everything else as in the scenario: run N trials at the good and at the bad end\nof each plausible range and rank the impairments by the landing success lost, with Newcombe 95 % intervals.';
 const OPTIONS: OptionSpec[] = [
   { name: 'vary', kind: 'list', valueName: 'PATH=GOOD:BAD', help: 'impairment and its plausible range (default: the built-in list)' },
   { name: 'trials', kind: 'value', valueName: 'N', help: 'trials at each end of each range (default 100)' },
-  { name: 'seed', kind: 'value', valueName: 'S', help: 'master seed (default: the scenario\'s seed)' },
+  SEED_OPTION,
   WORKERS_OPTION,
   { name: 'svg', kind: 'value', valueName: 'FILE', help: 'figure: the ranking as bars with 95 % interval whiskers' },
-  { name: 'json', kind: 'flag', help: 'print JSON' },
-  { name: 'help', kind: 'flag', help: 'show this help' },
+  JSON_OPTION,
+  HELP_OPTION,
 ];
 
 function factorFrom(text: string): PlausibleRange {

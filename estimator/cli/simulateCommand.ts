@@ -11,14 +11,14 @@ import type { TrialResult } from '../sim/TrialResult.js';
 import { PHASES } from '../sim/TrialResult.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
-import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { cameraSummary } from './cameraCommand.js';
 
 const OPTIONS: OptionSpec[] = [
   { name: 'seed', kind: 'value', valueName: 'N', help: "master seed of the trial's random streams (default: the scenario's seed)" },
   { name: 'trace', kind: 'value', valueName: 'FILE.csv', help: 'write one CSV row per step: t, phase, truth, estimate, sigma, box, command, camera update (status, NIS, dim), true outline box' },
   { name: 'json', kind: 'flag', help: 'print one JSON object with every result field instead of the summary' },
-  { name: 'help', kind: 'flag', help: 'show this help' },
+  HELP_OPTION,
 ];
 
 /** Library errors that mean "this scenario value cannot be simulated": exit 2, no stack. */

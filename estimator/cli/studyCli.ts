@@ -6,6 +6,8 @@ import type { OptionSpec } from './parseArgs.js';
 
 export const SAFETY_NOTE = 'Simulation results clear nothing for flight: fly under local aviation rules and licensed practice, with a safety pilot, geofence and kill switch.';
 
+export const SEED_OPTION: OptionSpec = { name: 'seed', kind: 'value', valueName: 'S', help: 'master seed (default: the scenario\'s seed)' };
+export const JSON_OPTION: OptionSpec = { name: 'json', kind: 'flag', help: 'print JSON' };
 export const WORKERS_OPTION: OptionSpec = { name: 'workers', kind: 'value', valueName: 'K', help: 'worker threads (default: one per core; 1 = run in this thread)' };
 
 const STUDY_ERRORS = new Set(['SweepError', 'TrialError', 'DesignError', 'ShardError', 'ResultsError', 'MergeError', 'SummaryError', 'SearchError', 'RequirementError', 'SensitivityError']);

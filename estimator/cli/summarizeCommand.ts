@@ -8,7 +8,7 @@ import { summarize, summarizeGroup } from '../study/summarize.js';
 import { summaryCsv, summaryTable } from '../study/summaryTable.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
-import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { asCliError, resolvePath, SAFETY_NOTE } from './studyCli.js';
 
 const USAGE = 'alight summarize <results.jsonl> [--by PATH] [--json | --format text|json|csv] [--csv FILE] [--svg FILE]';
@@ -22,7 +22,7 @@ const OPTIONS: OptionSpec[] = [
   { name: 'miss-svg', kind: 'value', valueName: 'FILE', help: 'figure: touchdown points on the deck outline and pad' },
   { name: 'target', kind: 'value', valueName: 'RATE', help: 'required success rate drawn on the --svg figure' },
   { name: 'skip-bad', kind: 'flag', help: 'skip truncated or foreign lines (reported with their line numbers) instead of refusing' },
-  { name: 'help', kind: 'flag', help: 'show this help' },
+  HELP_OPTION,
 ];
 
 export const summarizeCommand: Command = {

@@ -5,7 +5,7 @@ import { resolveShard } from '../study/shard.js';
 import { DESIGN_KINDS, parseVary, type DesignKind } from '../study/sweepDesign.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
-import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { createExecutor, loadScenarioOrFail, progressBar, workerCount } from './studyRunner.js';
 import { asCliError, resolvePath, WORKERS_OPTION } from './studyCli.js';
 
@@ -22,7 +22,7 @@ const OPTIONS: OptionSpec[] = [
   { name: 'resume', kind: 'flag', help: 'continue an interrupted results file: trials already written are kept' },
   { name: 'shard', kind: 'value', valueName: 'I/N', help: 'run only shard I of N (also from SLURM_ARRAY_TASK_ID or JOB_COMPLETION_INDEX)' },
   { name: 'shard-count', kind: 'value', valueName: 'N', help: 'shard count when the index comes from the batch scheduler' },
-  { name: 'help', kind: 'flag', help: 'show this help' },
+  HELP_OPTION,
 ];
 
 const HELP_NOTES = `

@@ -4,7 +4,8 @@ import { trialsNeeded } from '../study/statistics/trialsNeeded.js';
 import { wilson } from '../study/statistics/wilson.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
-import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { JSON_OPTION } from './studyCli.js';
 
 const USAGE = 'alight trials --target RATE [--rate RATE] [--power P] [--observed K/N] [--json]';
 const PURPOSE = 'Trials needed before a success claim means something, judged by the lower Wilson 95 % bound;\nwith --observed, what a record like "5 of 5 landed" does and does not show.';
@@ -13,8 +14,8 @@ const OPTIONS: OptionSpec[] = [
   { name: 'rate', kind: 'value', valueName: 'RATE', help: 'success rate you believe the system has (default 0.98)' },
   { name: 'power', kind: 'value', valueName: 'P', help: 'wanted chance of demonstrating the target at that rate (default 0.8)' },
   { name: 'observed', kind: 'value', valueName: 'K/N', help: 'interpret K successes in N trials' },
-  { name: 'json', kind: 'flag', help: 'print JSON' },
-  { name: 'help', kind: 'flag', help: 'show this help' },
+  JSON_OPTION,
+  HELP_OPTION,
 ];
 
 const unit = (v: number) => v > 0 && v < 1;

@@ -8,10 +8,10 @@ import { summarizeGroup, type PointSummary } from '../study/summarize.js';
 import { tuningCost } from '../study/tuningCost.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
-import { formatHelp, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { createExecutor, loadScenarioOrFail, workerCount } from './studyRunner.js';
 import { surfaceHeatMap, tuneOnLog } from './tuneOnLog.js';
-import { asCliError, resolvePath, SAFETY_NOTE, WORKERS_OPTION } from './studyCli.js';
+import { asCliError, JSON_OPTION, resolvePath, SAFETY_NOTE, SEED_OPTION, WORKERS_OPTION } from './studyCli.js';
 
 const USAGE = 'alight tune <scenario.json | log-folder> [--trials N] [--grid G] [--refine E] [--surface FILE] [--svg FILE]';
 const LOG_NOTE = '\nWith a flight-log folder every setting replays the whole log and the cost is consistency alone:\nNIS near its dimension, white innovations and few gated updates (or NEES when the log has truth.csv).\n';
@@ -26,12 +26,12 @@ const OPTIONS: OptionSpec[] = [
   { name: 'nees-weight', kind: 'value', valueName: 'W', help: 'weight of NEES consistency against landing success (default 0.25)' },
   { name: 'criterion', kind: 'value', valueName: 'nis|nees', help: 'log folder only: NIS + whiteness, or NEES against truth.csv (default: nees with truth)' },
   { name: 'filter', kind: 'value', valueName: 'FILE', help: 'log folder only: filter settings over the log\'s filter.json, as for alight replay' },
-  { name: 'seed', kind: 'value', valueName: 'S', help: 'master seed (default: the scenario\'s seed)' },
+  SEED_OPTION,
   WORKERS_OPTION,
   { name: 'surface', kind: 'value', valueName: 'FILE', help: 'write every evaluated setting (.csv for CSV, else JSON)' },
   { name: 'svg', kind: 'value', valueName: 'FILE', help: 'heat map of the cost over qScale and rScale at the best grid gate' },
-  { name: 'json', kind: 'flag', help: 'print JSON' },
-  { name: 'help', kind: 'flag', help: 'show this help' },
+  JSON_OPTION,
+  HELP_OPTION,
 ];
 
 function range(parsed: ReturnType<typeof parseArgs>, name: string): [number, number] | undefined {

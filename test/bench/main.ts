@@ -11,6 +11,12 @@ import { sections } from './sections.js';
 
 const SECTION_FLAG = '--section=';
 
+/** A section name the bench does not have: say which it has, exit 2. */
+function refuseSection(name: string | undefined): never {
+  process.stderr.write(`bench: no section named ${name}; sections: ${sections.map((s) => s.name).join(', ')}\n`);
+  process.exit(2);
+}
+
 const args = process.argv.slice(2);
 const json = args.includes('--json');
 const only = args.find((a) => a.startsWith('--only='))?.slice('--only='.length);
@@ -19,15 +25,12 @@ const single = args.find((a) => a.startsWith(SECTION_FLAG))?.slice(SECTION_FLAG.
 if (single !== undefined) {
   // Child: run one section and print its figures as the last line.
   const section = sections.find((s) => s.name === single);
-  if (!section) throw new Error(`bench: no section named ${single}`);
+  if (!section) refuseSection(single);
   process.stdout.write(JSON.stringify(await section.run()) + '\n');
 } else if (!args.includes(CHILD_FLAG)) {
   // A replay child (replay.ts) is this same file when bundled: it runs only its replay.
   const names = sections.map((s) => s.name).filter((name) => !only || name === only);
-  if (names.length === 0) {
-    process.stderr.write(`bench: no section named ${only}; sections: ${sections.map((s) => s.name).join(', ')}\n`);
-    process.exit(2);
-  }
+  if (names.length === 0) refuseSection(only);
   const report: Record<string, unknown> = {};
   for (const name of names) {
     if (!json) process.stderr.write(`bench: ${name} ...\n`);

@@ -21,6 +21,8 @@ export { cep } from './study/statistics/cep.js';
 export { percentile } from './study/statistics/percentile.js';
 export { neesVerdict } from './study/statistics/neesVerdict.js';
 export type { Consistency, NeesVerdict } from './study/statistics/neesVerdict.js';
+export { CONSISTENT_BIN_SHARE, consistencyWords, ensembleConsistency } from './study/statistics/ensembleConsistency.js';
+export type { BinConsistency, BinSamples, EnsembleConsistency } from './study/statistics/ensembleConsistency.js';
 export { trialsNeeded, minimumSuccesses } from './study/statistics/trialsNeeded.js';
 export { designPoints, parseVary } from './study/sweepDesign.js';
 export { summarize } from './study/summarize.js';

@@ -1,7 +1,8 @@
 // A pinhole camera with Brown–Conrady distortion (Brown 1966; the k1 k2 k3 / p1 p2 form in
 // common use). Intrinsics K = [[fx, 0, cx], [0, fy, cy], [0, 0, 1]] (Hartley & Zisserman ch. 6),
 // with (cx, cy) in the continuous pixel coordinates of Box.ts (image centre = (width/2, height/2)).
-import type { CameraMount, Distortion } from '../sim/Scenario.js';
+import type { CameraMount } from './CameraMount.js';
+import type { Distortion } from './distortion.js';
 
 export interface PinholeCamera {
   /** Focal lengths (px). */

@@ -3,7 +3,15 @@
 //   r² = x² + y²,  radial = 1 + k1 r² + k2 r⁴ + k3 r⁶
 //   xd = x radial + 2 p1 x y + p2 (r² + 2 x²)
 //   yd = y radial + p1 (r² + 2 y²) + 2 p2 x y
-import type { Distortion } from '../sim/Scenario.js';
+
+/** Brown–Conrady coefficients: radial k1, k2, k3 and tangential p1, p2 (dimensionless). */
+export interface Distortion {
+  k1: number;
+  k2: number;
+  k3: number;
+  p1: number;
+  p2: number;
+}
 
 /** out = [xd, yd]. */
 export function distortNormalized(x: number, y: number, d: Distortion, out: Float64Array | number[]): Float64Array | number[] {

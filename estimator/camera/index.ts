@@ -5,3 +5,5 @@ export type { PinholeCamera } from './PinholeCamera.js';
 export { distortNormalized, distortionJacobian, undistortNormalized, UndistortionError } from './distortion.js';
 export { project, projectJacobian, normalizedFromPixel, undistortPixel, backProject, BehindCameraError } from './project.js';
 export { boxSizeAtDepth, boxMeasurement, boxMeasurementJacobian, boxFromRelativePosition, relativePositionFromMeasurement, relativePositionFromBox, relativePositionJacobian } from './boxGeometry.js';
+export type { Distortion } from './distortion.js';
+export type { CameraMount } from './CameraMount.js';

@@ -5,7 +5,7 @@ import type { Scenario } from '../sim/Scenario.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { CliError } from './CliError.js';
-import { loadScenarioForCli } from './simulateCommand.js';
+import { loadScenarioForCli } from './loadScenarioForCli.js';
 
 const OPTIONS: OptionSpec[] = [
   { name: 'height', kind: 'value', valueName: 'H', help: "camera height above the deck (m; default: the scenario's trailing height)" },

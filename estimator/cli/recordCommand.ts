@@ -8,7 +8,8 @@ import { STREAM_SPECS } from '../io/log/logStreams.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
-import { FLIGHT_CAUTION, loadScenarioForCli } from './simulateCommand.js';
+import { loadScenarioForCli } from './loadScenarioForCli.js';
+import { FLIGHT_CAUTION } from './simulateCommand.js';
 
 const OPTIONS: OptionSpec[] = [
   { name: 'out', kind: 'value', valueName: 'FOLDER', help: 'log folder to write (created; refused if it already holds a log, unless --force)' },

@@ -2,8 +2,6 @@
 // landing trial. Prints a short summary (or one JSON object); --trace writes a CSV row per step.
 import { writeFileSync } from 'node:fs';
 import { basename, isAbsolute, join } from 'node:path';
-import { loadScenario } from '../io/loadScenario.js';
-import { ScenarioError } from '../io/ScenarioError.js';
 import { runTrial } from '../sim/runTrial.js';
 import { TRACE_COLUMNS, traceCsvLine } from '../sim/trace.js';
 import type { Scenario } from '../sim/Scenario.js';
@@ -13,6 +11,9 @@ import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { cameraSummary } from './cameraCommand.js';
+import { loadScenarioForCli } from './loadScenarioForCli.js';
+
+export { loadScenarioForCli };
 
 const OPTIONS: OptionSpec[] = [
   { name: 'seed', kind: 'value', valueName: 'N', help: "master seed of the trial's random streams (default: the scenario's seed)" },
@@ -28,15 +29,6 @@ const USAGE = 'alight simulate <scenario.json> [--seed N] [--trace FILE.csv] [--
 const PURPOSE = 'fly one closed-loop landing trial of a scenario and judge the touchdown';
 export const FLIGHT_CAUTION = 'Caution: simulation clears nothing for flight. Fly under local aviation rules and licensed practice, with a safety pilot, geofence and kill switch.';
 
-export function loadScenarioForCli(command: string, path: string | undefined, cwd: string): Scenario {
-  if (!path) throw new CliError(`alight ${command}: give a scenario file (${command === 'simulate' ? USAGE : `alight ${command} --help`})`);
-  try {
-    return loadScenario(isAbsolute(path) ? path : join(cwd, path));
-  } catch (error) {
-    if (error instanceof ScenarioError) throw new CliError(error.problems.join('\n'));
-    throw error;
-  }
-}
 
 const f = (v: number | null, digits = 2): string => (v === null || !Number.isFinite(v) ? '-' : v.toFixed(digits));
 
@@ -68,7 +60,7 @@ export const simulateCommand: Command = {
       return 0;
     }
     if (parsed.positional.length > 1) throw new CliError(`alight simulate: one scenario file please, got ${parsed.positional.length} (${USAGE})`);
-    const scenario = loadScenarioForCli('simulate', parsed.positional[0], io.cwd);
+    const scenario = loadScenarioForCli('simulate', parsed.positional[0], io.cwd, USAGE);
     const seed = numberOption('simulate', parsed, 'seed', scenario.seed, (v) => Number.isSafeInteger(v) && v >= 0, 'a non-negative integer');
     const tracePath = parsed.values.get('trace');
     const traceLines: string[] = [];

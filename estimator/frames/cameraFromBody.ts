@@ -6,7 +6,7 @@
 // The mount's roll/pitch/yaw (deg) rotate the camera away from nominal about the BODY axes
 // (ZYX as quatFromEulerDeg): R_bc = R_zyx(roll, pitch, yaw) R_bc_nominal, and R_cb = R_bcᵀ.
 // So a camera "yaw" turns the image about the body z axis, whatever the mount.
-import type { CameraMount } from '../sim/Scenario.js';
+import type { CameraMount } from '../camera/CameraMount.js';
 import { quatFromEulerDeg } from './quatFromEulerDeg.js';
 import { mat3Multiply, mat3Transpose, rotationMatrixFromQuat } from './rotationMatrixFromQuat.js';
 

@@ -6,7 +6,7 @@
 //            (φ = sizeNoiseFraction, φc = pixelNoiseFraction: errors that scale with the box, see Scenario.ts)
 //   loose    z = back-projected r (m),     H = [I 0 0 0],       R = propagated box noise
 //   odometry z = vL (m/s, world),          H = [0 0 I 0],       R = σo² I · rScale
-import type { FilterSpec } from '../sim/Scenario.js';
+import type { FilterSpec } from './FilterSettings.js';
 import { BoxMeasurementModel } from './BoxMeasurementModel.js';
 import type { FilterCamera } from './FilterCamera.js';
 import { EVENT_ODOMETRY, EVENT_TIGHT } from './FilterHistory.js';

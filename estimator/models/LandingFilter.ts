@@ -8,7 +8,7 @@
 // that met a non-finite value, and whenever S = H P Hᵀ + R fails to be positive definite — a
 // non-PD P is reported within a few updates, a NaN never leaves the filter (x and P are
 // restored to the last good step).
-import type { FilterSpec } from '../sim/Scenario.js';
+import type { FilterSpec } from './FilterSettings.js';
 import { type Box, boxProblem } from '../camera/Box.js';
 import type { FilterCamera } from './FilterCamera.js';
 import { FilterHistory, EVENT_LOOSE, EVENT_ODOMETRY, EVENT_TIGHT, EVENTS_PER_STEP } from './FilterHistory.js';

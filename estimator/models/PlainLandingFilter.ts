@@ -3,7 +3,7 @@
 // exploits the block structure of F and H); kept as the reference it is tested against and as
 // the baseline of `npm run bench`. Measurements at the current time only (no delayed boxes).
 import { Matrix, inverse } from 'ml-matrix';
-import type { FilterSpec } from '../sim/Scenario.js';
+import type { FilterSpec } from './FilterSettings.js';
 import { type Box, boxProblem } from '../camera/Box.js';
 import { boxMeasurement, boxMeasurementJacobian } from '../camera/boxGeometry.js';
 import { BoxMeasurementModel } from './BoxMeasurementModel.js';

@@ -11,3 +11,4 @@ export { predictLanding } from './predictLanding.js';
 export { R_INDEX, VC_INDEX, VL_INDEX, BA_INDEX, AC_INDEX, STANDARD_GRAVITY, landingStateDimension } from './landingState.js';
 export { validateFilterSpec } from './validateFilterSpec.js';
 export { rejected } from './UpdateResult.js';
+export type { FilterSpec, CameraUpdateMode, CarrierModel } from './FilterSettings.js';

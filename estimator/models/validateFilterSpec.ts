@@ -1,6 +1,6 @@
 // FilterSpec checks at the boundary of the landing filter: every noise, rate and scale the
 // filter turns into Q, R or a gate must be a finite positive number (R positive definite).
-import type { FilterSpec } from '../sim/Scenario.js';
+import type { FilterSpec } from './FilterSettings.js';
 
 /** A FilterSpec field the filter cannot use; `field` is the scenario path. */
 export class FilterSpecError extends Error {

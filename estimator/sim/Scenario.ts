@@ -2,6 +2,9 @@
 // SI units throughout; angles in degrees where the key says Deg. World frame ENU,
 // body FLU, camera optical (REP 103). Validated once at the boundary (io/), then frozen.
 // Studies address fields by dotted path, e.g. "detector.pixelNoise": keep names stable.
+import type { FilterSpec } from '../models/FilterSettings.js';
+import type { Distortion } from '../camera/distortion.js';
+import type { CameraMount } from '../camera/CameraMount.js';
 
 export type PathShape = 'straight' | 'rectangle' | 'ellipse' | 'figure-eight' | 'survey' | 'recorded';
 export type CarrierKind = 'ground' | 'boat' | 'aircraft';
@@ -94,22 +97,9 @@ export interface LensSpec {
   sensorHeight: number;
 }
 
-export interface Distortion {
-  k1: number;
-  k2: number;
-  k3: number;
-  p1: number;
-  p2: number;
-}
+export type { Distortion } from '../camera/distortion.js';
 
-export interface CameraMount {
-  /** Camera position in the body frame FLU (m). */
-  offset: [number, number, number];
-  /** Optical-frame orientation relative to the nominal nadir mount (deg): roll, pitch, yaw. */
-  rollDeg: number;
-  pitchDeg: number;
-  yawDeg: number;
-}
+export type { CameraMount } from '../camera/CameraMount.js';
 
 export interface CameraSpec {
   /** Exactly one of intrinsics or lens. */
@@ -170,47 +160,8 @@ export interface LocalizationSpec {
   clockOffset: number;
 }
 
-export type CameraUpdateMode = 'tight' | 'loose';
-export type CarrierModel = 'constant-velocity' | 'singer';
-
-export interface FilterSpec {
-  /** Filter (and IMU integration) rate (Hz). */
-  rate: number;
-  cameraUpdate: CameraUpdateMode;
-  carrierModel: CarrierModel;
-  /** Carrier acceleration noise (m/s^2 / sqrt(Hz)) and Singer time constant (s). */
-  carrierAccelNoise: number;
-  singerTau: number;
-  /** Accelerometer noise density assumed (m/s^2 / sqrt(Hz)) and bias random walk (m/s^3 / sqrt(Hz)). */
-  accelNoise: number;
-  accelBiasWalk: number;
-  /** Measurement noise assumed: box centre (px), box size (px), odometry (m/s). */
-  pixelNoise: number;
-  sizeNoise: number;
-  /**
-   * Box-size noise assumed in proportion to the size (1 sigma, fraction; 0 = none): the size
-   * variance is sizeNoise² + (sizeNoiseFraction · s)², s the predicted (tight) or measured
-   * (loose) size in px. Covers what scales with the box: detector size noise, the box of a
-   * yawed, obliquely seen outline versus sqrt(deck area), target-size and focal errors.
-   */
-  sizeNoiseFraction: number;
-  /**
-   * Box-centre noise assumed in proportion to the box size (1 sigma, fraction; 0 = none): the
-   * centre variance per axis is pixelNoise² + (pixelNoiseFraction · s)². Covers the offset of
-   * the outline's box centre from the deck centre's image (the body below the deck seen
-   * obliquely), which is a fixed share of the box, so grows in px as the lander descends.
-   */
-  pixelNoiseFraction: number;
-  odometryNoise: number;
-  /** Gate: probability mass inside the chi-square gate (e.g. 0.997). */
-  gateProbability: number;
-  /** Tuning multipliers (log-scaled by the tuner): Q, R and gate threshold. */
-  qScale: number;
-  rScale: number;
-  gateScale: number;
-  /** History kept for delayed boxes (s). */
-  historyLength: number;
-}
+// The filter's own settings live beside the filter; the scenario composes them.
+export type { CameraUpdateMode, CarrierModel, FilterSpec } from '../models/FilterSettings.js';
 
 export type GuidanceLaw = 'pid' | 'lqr';
 

@@ -5,34 +5,8 @@ import type { GuidanceSpec, LanderSpec } from './Scenario.js';
 import { PidGuidance } from './guidancePid.js';
 import { LqrGuidance } from './guidanceLqr.js';
 
-/** The estimated horizontal relative state a law sees (m, m/s, world ENU axes x, y). */
-export interface HorizontalEstimate {
-  /** r = p_carrier - p_lander, horizontal (m). */
-  rx: number;
-  ry: number;
-  /** Estimated carrier and lander horizontal velocity (m/s). */
-  vcx: number;
-  vcy: number;
-  vlx: number;
-  vly: number;
-}
-
-export interface HorizontalGuidance {
-  /** Forget integrator state (after an abort or a filter re-initialization). */
-  reset(): void;
-  /** Velocity command (m/s, world ENU x, y) into out[0], out[1] for a step of dt (s). */
-  command(estimate: HorizontalEstimate, dt: number, out: Float64Array): void;
-}
-
-/** Scale (out[0], out[1]) down so its norm is at most `limit`; returns true when it clipped. */
-export function limitNorm2(out: Float64Array, limit: number): boolean {
-  const norm = Math.sqrt(out[0]! * out[0]! + out[1]! * out[1]!); // not Math.hypot: slow per step
-  if (norm <= limit) return false;
-  const s = limit / norm;
-  out[0] = out[0]! * s;
-  out[1] = out[1]! * s;
-  return true;
-}
+export { limitNorm2, type HorizontalEstimate, type HorizontalGuidance } from './HorizontalGuidance.js';
+import type { HorizontalGuidance } from './HorizontalGuidance.js';
 
 /**
  * The law named by guidance.law, with the lander's limits for saturation.

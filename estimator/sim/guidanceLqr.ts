@@ -5,7 +5,7 @@
 // |v_cmd| <= maxSpeed. The carrier's velocity enters through the relative rate, so no
 // separate feed-forward is needed (guidance.feedForward only affects the PID law).
 import type { GuidanceSpec, LanderSpec } from './Scenario.js';
-import { limitNorm2, type HorizontalEstimate, type HorizontalGuidance } from './guidance.js';
+import { limitNorm2, type HorizontalEstimate, type HorizontalGuidance } from './HorizontalGuidance.js';
 import { lqrGain } from './lqrGain.js';
 import { NewestCache } from './NewestCache.js';
 

@@ -6,7 +6,7 @@
 // asks for at most maxAccel (|v_cmd - vL| <= maxAccel tau) and in speed (maxSpeed); the integrator
 // stops integrating while the output saturates (conditional anti-windup).
 import type { GuidanceSpec, LanderSpec } from './Scenario.js';
-import { limitNorm2, type HorizontalEstimate, type HorizontalGuidance } from './guidance.js';
+import { limitNorm2, type HorizontalEstimate, type HorizontalGuidance } from './HorizontalGuidance.js';
 
 export class PidGuidance implements HorizontalGuidance {
   private readonly spec: GuidanceSpec;

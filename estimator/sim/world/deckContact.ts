@@ -1,7 +1,16 @@
 // Contact between the lander and the carrier's deck plane, and the quantities a landing
 // envelope is judged on. Allocation-free (writes into a DeckContact from createDeckContact).
 import type { CarrierState } from './carrierPath.js';
-import type { LanderState } from './landerDynamics.js';
+
+/** The lander's true motion as contact needs it (a LanderState fits; kept structural so
+ * contact does not import the dynamics that use it). */
+export interface ContactBody {
+  /** World ENU position (m) and velocity (m/s). */
+  position: Float64Array;
+  velocity: Float64Array;
+  /** Attitude q_wb (Hamilton [w, x, y, z], body FLU -> world ENU). */
+  qWorldBody: Float64Array;
+}
 
 export interface DeckContact {
   /** Height of the lander's feet above the deck plane, along the deck normal (m); <= 0 means contact. */
@@ -39,7 +48,7 @@ export function createDeckContact(): DeckContact {
  * footHeight: distance from the lander's body origin down to its feet (m), default 0.
  */
 export function deckContact(
-  lander: LanderState, carrier: CarrierState, deckLength: number, deckWidth: number,
+  lander: ContactBody, carrier: CarrierState, deckLength: number, deckWidth: number,
   out: DeckContact, footHeight = 0,
 ): DeckContact {
   const q = carrier.qWorldDeck;

@@ -161,4 +161,3 @@ export function copyLanderState(from: LanderState, to: LanderState): LanderState
   return to;
 }
 
-export { createDeckContact, deckContact, type DeckContact } from './deckContact.js';

@@ -1,0 +1,45 @@
+// The landing filter's settings: models, noise assumed, gates, tuning multipliers, history.
+// They belong to the filter, not to the simulator: a scenario composes them as its `filter`
+// field, and a flight-log replay builds them without any scenario.
+
+export type CameraUpdateMode = 'tight' | 'loose';
+export type CarrierModel = 'constant-velocity' | 'singer';
+
+export interface FilterSpec {
+  /** Filter (and IMU integration) rate (Hz). */
+  rate: number;
+  cameraUpdate: CameraUpdateMode;
+  carrierModel: CarrierModel;
+  /** Carrier acceleration noise (m/s^2 / sqrt(Hz)) and Singer time constant (s). */
+  carrierAccelNoise: number;
+  singerTau: number;
+  /** Accelerometer noise density assumed (m/s^2 / sqrt(Hz)) and bias random walk (m/s^3 / sqrt(Hz)). */
+  accelNoise: number;
+  accelBiasWalk: number;
+  /** Measurement noise assumed: box centre (px), box size (px), odometry (m/s). */
+  pixelNoise: number;
+  sizeNoise: number;
+  /**
+   * Box-size noise assumed in proportion to the size (1 sigma, fraction; 0 = none): the size
+   * variance is sizeNoise² + (sizeNoiseFraction · s)², s the predicted (tight) or measured
+   * (loose) size in px. Covers what scales with the box: detector size noise, the box of a
+   * yawed, obliquely seen outline versus sqrt(deck area), target-size and focal errors.
+   */
+  sizeNoiseFraction: number;
+  /**
+   * Box-centre noise assumed in proportion to the box size (1 sigma, fraction; 0 = none): the
+   * centre variance per axis is pixelNoise² + (pixelNoiseFraction · s)². Covers the offset of
+   * the outline's box centre from the deck centre's image (the body below the deck seen
+   * obliquely), which is a fixed share of the box, so grows in px as the lander descends.
+   */
+  pixelNoiseFraction: number;
+  odometryNoise: number;
+  /** Gate: probability mass inside the chi-square gate (e.g. 0.997). */
+  gateProbability: number;
+  /** Tuning multipliers (log-scaled by the tuner): Q, R and gate threshold. */
+  qScale: number;
+  rScale: number;
+  gateScale: number;
+  /** History kept for delayed boxes (s). */
+  historyLength: number;
+}

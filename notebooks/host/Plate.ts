@@ -3,6 +3,7 @@
 import type { FigureOutput, StudyFigure } from '../studies/Study.js';
 import { downloadBlob, downloadText, svgToPng } from './download.js';
 import { escapeXml } from '../figures/svg.js';
+import { withCaptions } from '../studies/figureOutput.js';
 
 export class Plate {
   readonly element: HTMLElement;
@@ -41,7 +42,7 @@ export class Plate {
     this.output = output;
     this.element.dataset.renders = String(this.renders);
     this.element.dataset.final = String(output.final);
-    this.body.innerHTML = output.markup;
+    this.body.innerHTML = withCaptions(output.markup, this.figure.title);
     this.numbers.innerHTML = output.numbers
       .map((n) => `<div><dt>${escapeXml(n.label)}</dt><dd data-key="${escapeXml(n.key)}" data-value="${n.value === null ? '' : String(n.value)}">${escapeXml(n.text)}</dd></div>`)
       .join('');
@@ -81,7 +82,7 @@ export class Plate {
       });
     }
     const attachment = output.attachment;
-    if (attachment) add(attachment.label, `Save ${attachment.fileName}`, () => downloadText(attachment.text, attachment.fileName, 'application/x-ndjson'));
+    if (attachment) add(attachment.label, `Save ${attachment.fileName}`, () => downloadText(attachment.text, attachment.fileName, attachment.fileName.endsWith('.csv') ? 'text/csv' : 'application/x-ndjson'));
     if (output.csv !== null) add('CSV', `Save the data of ${this.figure.title} as CSV`, () => downloadText(output.csv!, `${name}.csv`, 'text/csv'));
   }
 }

@@ -1,9 +1,10 @@
 // Browser entry (dist/notebooks/app.js): reads the analysis from the URL (or a study's default),
-// builds the study's reactive graph with a Web Worker job runner, and lays out the page.
-import { analysisToText, AnalysisError, isStudyId, type Analysis } from '../analysis/Analysis.js';
-import { defaultAnalysis } from '../analysis/defaultAnalysis.js';
+// builds the study's reactive graph with a Web Worker job runner, and lays out the page. Every
+// committed control change is a history entry, so Back undoes it and recomputes only what the
+// undone change touched.
+import { analysisToText, AnalysisError, type Analysis } from '../analysis/Analysis.js';
 import { parseAnalysis } from '../analysis/parseAnalysis.js';
-import { analysisTextFromFragment, permalinkFragment } from '../analysis/permalink.js';
+import { permalinkFragment } from '../analysis/permalink.js';
 import { WorkerJobRunner, type Activity } from '../jobs/WorkerJobRunner.js';
 import { mountStudy, type MountedStudy } from '../runtime/mountStudy.js';
 import { STUDIES, studyById } from '../studies/studies.js';
@@ -12,11 +13,21 @@ import { VERSION } from '../../estimator/version.js';
 import { Plate } from './Plate.js';
 import { renderSetup } from './renderSetup.js';
 import { renderDropzone } from './dropzone.js';
+import { readLink } from './readLink.js';
+import { showControlValue } from './renderControls.js';
+import { listenForPageDrops, looksLikeAnalysis } from './pageDrop.js';
+import { ProgressClock } from './ProgressClock.js';
+import { StudyProblems } from './StudyProblems.js';
 
-const runner = new WorkerJobRunner('/worker.js', Math.min(2, navigator.hardwareConcurrency || 2));
+const runner = new WorkerJobRunner('/worker.js', Math.max(1, navigator.hardwareConcurrency || 2));
 let mounted: MountedStudy | null = null;
+let current: Analysis | null = null;
 let plates = new Map<string, Plate>();
 let activity: readonly Activity[] = [];
+let problems: StudyProblems | null = null;
+/** The fragment the page shows now: history moves to any other one re-read the link. */
+let shownFragment = '';
+const clock = new ProgressClock();
 
 /** Read by the browser tests and handy in the console. */
 interface PageProbe {
@@ -30,20 +41,6 @@ declare global {
   }
 }
 
-function analysisFromLocation(): { analysis: Analysis; problem: string | null } {
-  const fragment = location.hash;
-  try {
-    const text = analysisTextFromFragment(fragment);
-    if (text !== null) return { analysis: parseAnalysis(text, 'the link', (id) => studyById(id).parameters), problem: null };
-  } catch (error) {
-    const problem = error instanceof AnalysisError ? error.problems.join('\n') : (error as Error).message;
-    return { analysis: defaultAnalysis(STUDIES[0]!), problem: `This link's analysis could not be used:\n${problem}` };
-  }
-  const match = /^#study=([a-z-]+)$/.exec(fragment);
-  const id = match?.[1];
-  return { analysis: defaultAnalysis(isStudyId(id) ? studyById(id) : STUDIES[0]!), problem: null };
-}
-
 function updateBusy(): void {
   const busy = activity.length > 0 || [...plates.values()].some((p) => p.element.dataset.final !== 'true');
   const cancelled = [...plates.values()].some((p) => p.output?.status.startsWith('cancelled'));
@@ -51,11 +48,12 @@ function updateBusy(): void {
   const bar = document.querySelector<HTMLElement>('.progress > div');
   const line = document.querySelector<HTMLElement>('.run-text');
   const button = document.querySelector<HTMLButtonElement>('#cancel');
-  const done = activity.reduce((s, a) => s + a.done, 0);
-  const total = activity.reduce((s, a) => s + a.total, 0);
-  document.querySelector('.progress')?.setAttribute('aria-valuenow', String(activity.length === 0 ? (cancelled ? 0 : 100) : total > 0 ? Math.round((100 * done) / total) : 0));
-  if (bar) bar.style.width = activity.length === 0 ? (cancelled ? '0%' : '100%') : `${total > 0 ? (100 * done) / total : 2}%`;
-  if (line) line.textContent = activity.length > 0 ? `${activity.map((a) => a.label).join(', ')}: ${done} of ${total || '…'}` : cancelled ? 'cancelled: partial results shown' : 'all results in';
+  const reading = clock.read(activity, performance.now());
+  const percent = activity.length === 0 ? (cancelled ? 0 : 100) : 100 * reading.fraction;
+  document.querySelector('.progress')?.setAttribute('aria-valuenow', String(Math.round(percent)));
+  document.querySelector('.progress')?.setAttribute('aria-valuetext', activity.length > 0 ? reading.text : cancelled ? 'cancelled' : 'all results in');
+  if (bar) bar.style.width = `${activity.length === 0 ? percent : Math.max(2, percent)}%`;
+  if (line) line.textContent = activity.length > 0 ? reading.text : cancelled ? 'cancelled: partial results shown' : 'all results in';
   if (button) {
     // While jobs run the button cancels them; after a cancel it runs the study again.
     button.textContent = activity.length === 0 && cancelled ? 'Run again' : 'Cancel';
@@ -63,13 +61,19 @@ function updateBusy(): void {
   }
 }
 
-function setPermalink(analysis: Analysis): void {
-  history.replaceState(null, '', permalinkFragment(analysisToText(analysis)));
+/** A committed change: a new history entry, so Back returns to the analysis before it. */
+function commitToHistory(analysis: Analysis): void {
+  shownFragment = permalinkFragment(analysisToText(analysis));
+  history.pushState(null, '', shownFragment);
 }
 
-function render(analysis: Analysis, problem: string | null): void {
+/** How a render meets the address bar: replace its entry, add one (Back returns), or keep it as it is. */
+type Address = 'replace' | 'push' | 'keep';
+
+function render(analysis: Analysis, problem: string | null, address: Address): void {
   mounted?.dispose();
   runner.cancelAll();
+  current = analysis;
   const study = studyById(analysis.study);
   const app = document.getElementById('app')!;
   app.innerHTML = '';
@@ -86,21 +90,27 @@ function render(analysis: Analysis, problem: string | null): void {
   const setup = renderSetup(study, analysis, {
     change: (name, value) => {
       mounted?.set(name, value);
-      setPermalink(analysis);
+      // Choosing a demo log replaces a dropped folder (the select would otherwise be inert).
+      if (name === 'log') mounted?.set('logFiles', null);
+      commitToHistory(analysis);
       updateBusy();
     },
     cancelOrRerun: () => {
       if (activity.length > 0) runner.cancelAll();
       else mounted?.set('seed', analysis.seed); // same value, new definition: every job reruns
     },
-    refuse: (message) => render(analysis, message),
+    refuse: (message) => problems?.show('open', message),
+    open: (next) => render(next, null, 'push'),
   });
-  const article = document.createElement('article');
-  article.className = 'study';
-  article.innerHTML = `<h1>${escapeXml(study.title)}</h1><p class="lede">${escapeXml(study.lede)}</p>`;
-  if (problem) article.insertAdjacentHTML('afterbegin', `<p class="message" role="alert">${escapeXml(problem)}</p>`);
+  const main = document.createElement('main');
+  main.className = 'study';
+  main.id = 'study';
+  main.innerHTML = `<h1>${escapeXml(study.title)}</h1><p class="lede">${escapeXml(study.lede)}</p>`;
+  problems = new StudyProblems();
+  main.querySelector('h1')!.before(problems.element);
+  if (problem) problems.show('link', problem);
   else if (analysis.toolVersion !== VERSION) {
-    article.insertAdjacentHTML('afterbegin', `<p class="message">This analysis was made with alight ${escapeXml(analysis.toolVersion)}; this page is ${VERSION}, so numbers may differ from the original.</p>`);
+    problems.note(`This analysis was made with alight ${analysis.toolVersion}; this page is ${VERSION}, so numbers may differ from the original.`);
   }
 
   plates = new Map(study.figures.map((f) => [f.name, new Plate(f, study.id)]));
@@ -110,7 +120,7 @@ function render(analysis: Analysis, problem: string | null): void {
       if (!group) {
         group = document.createElement('div');
         group.className = 'plates';
-        article.append(group);
+        main.append(group);
       }
       group.append(plates.get(block.figure)!.element);
       continue;
@@ -120,45 +130,96 @@ function render(analysis: Analysis, problem: string | null): void {
       const p = document.createElement('p');
       p.className = 'prose';
       p.textContent = block.prose;
-      article.append(p);
+      main.append(p);
     } else {
-      article.append(renderDropzone(block.dropzone, (files) => mounted?.set('logFiles', files)));
+      main.append(renderDropzone(block.dropzone, (files) => mounted?.set('logFiles', files)));
     }
   }
-  layout.append(setup, article);
+  layout.append(setup, main);
   app.append(masthead, layout);
 
+  const figureProblem = (name: string, message: string): void => {
+    // One failed job fails every figure that reads it: say it once, above the figures.
+    problems?.show('compute', message);
+    plates.get(name)?.fail('Not drawn: see the problem at the top of the study.');
+  };
   mounted = mountStudy(study, analysis, runner, {
     figure: (name, output) => {
-      plates.get(name)?.update(output);
+      if (output.failure) figureProblem(name, output.failure);
+      else plates.get(name)?.update(output);
       updateBusy();
     },
     failed: (name, message) => {
-      plates.get(name)?.fail(message);
+      figureProblem(name, message);
       updateBusy();
     },
     pending: (name) => {
       plates.get(name)?.markPending();
+      problems?.clear('compute');
       updateBusy();
     },
   });
-  const current = mounted;
+  const graph = mounted;
   window.alight = {
     renders: () => Object.fromEntries([...plates].map(([k, p]) => [k, p.renders])),
-    computeCounts: () => Object.fromEntries(current.graph.computeCounts),
+    computeCounts: () => Object.fromEntries(graph.graph.computeCounts),
     analysisText: () => analysisToText(analysis),
   };
-  setPermalink(analysis);
+  // A link that could not be used stays in the address bar, so the reader can see and fix it.
+  if (address === 'keep') shownFragment = location.hash;
+  else if (address === 'push') commitToHistory(analysis);
+  else {
+    shownFragment = permalinkFragment(analysisToText(analysis));
+    history.replaceState(null, '', shownFragment);
+  }
   updateBusy();
+}
+
+/** Back/Forward (or an edited address): same study and scenario -> set only what differs. */
+function followLocation(): void {
+  if (location.hash === shownFragment) return;
+  const { analysis, problem } = readLink(location.hash);
+  const study = studyById(analysis.study);
+  if (problem === null && current && mounted && analysis.study === current.study && JSON.stringify(analysis.scenario) === JSON.stringify(current.scenario) && analysis.toolVersion === current.toolVersion) {
+    const root = document.querySelector('.setup')!;
+    for (const p of study.parameters) {
+      const value = analysis.parameters[p.name] ?? p.default;
+      if (current.parameters[p.name] === value) continue;
+      current.parameters[p.name] = value;
+      showControlValue(root, p, value);
+      mounted.set(p.name, value);
+    }
+    if (analysis.seed !== current.seed) {
+      current.seed = analysis.seed;
+      showControlValue(root, 'seed', analysis.seed);
+      mounted.set('seed', analysis.seed);
+    }
+    shownFragment = location.hash;
+    updateBusy();
+    return;
+  }
+  render(analysis, problem, problem !== null ? 'keep' : 'replace');
+}
+
+async function openDroppedFile(file: File): Promise<void> {
+  const text = await file.text();
+  if (!looksLikeAnalysis(text)) {
+    problems?.show('open', `${file.name} is not an analysis file (a JSON object with study, scenario, parameters, seed and toolVersion), so it was not opened.`);
+    return;
+  }
+  try {
+    render(parseAnalysis(text, file.name, (id) => studyById(id).parameters), null, 'push');
+  } catch (error) {
+    problems?.show('open', error instanceof AnalysisError ? error.problems.join('\n') : (error as Error).message);
+  }
 }
 
 runner.onActivity((list) => {
   activity = list;
   updateBusy();
 });
-window.addEventListener('hashchange', () => {
-  const { analysis, problem } = analysisFromLocation();
-  render(analysis, problem);
-});
-const first = analysisFromLocation();
-render(first.analysis, first.problem);
+window.addEventListener('popstate', followLocation);
+window.addEventListener('hashchange', followLocation);
+listenForPageDrops((file) => void openDroppedFile(file));
+const first = readLink(location.hash);
+render(first.analysis, first.problem, first.problem !== null ? 'keep' : 'replace');

@@ -3,7 +3,6 @@
 import { parseScenario } from '../../estimator/io/parseScenario.js';
 import { analysisToText, AnalysisError, type Analysis } from '../analysis/Analysis.js';
 import { parseAnalysis } from '../analysis/parseAnalysis.js';
-import { permalinkFragment } from '../analysis/permalink.js';
 import { escapeXml } from '../figures/svg.js';
 import { studyById } from '../studies/studies.js';
 import type { Study } from '../studies/Study.js';
@@ -18,6 +17,8 @@ export interface SetupActions {
   cancelOrRerun(): void;
   /** An uploaded analysis file was refused: show why. */
   refuse(message: string): void;
+  /** An uploaded analysis file was read: show it (a new history entry). */
+  open(analysis: Analysis): void;
 }
 
 export function renderSetup(study: Study, analysis: Analysis, actions: SetupActions): HTMLElement {
@@ -77,7 +78,18 @@ export function renderSetup(study: Study, analysis: Analysis, actions: SetupActi
     b.addEventListener('click', action);
     share.append(b);
   };
-  button('Copy link', 'copy-link', () => void navigator.clipboard?.writeText(location.href));
+  button('Copy link', 'copy-link', () => {
+    const said = setup.querySelector<HTMLElement>('.share-said')!;
+    const clipboard = navigator.clipboard;
+    if (!clipboard) {
+      said.textContent = 'This browser gives the page no clipboard: copy the address bar instead.';
+      return;
+    }
+    clipboard.writeText(location.href).then(
+      () => (said.textContent = `Link copied (${location.href.length} characters): it holds the whole analysis.`),
+      () => (said.textContent = 'The browser refused the clipboard: copy the address bar instead.'),
+    );
+  });
   button('Download analysis', 'download-analysis', () => downloadText(analysisToText(analysis), `${study.id}-analysis.json`, 'application/json'));
   const upload = document.createElement('input');
   upload.type = 'file';
@@ -86,16 +98,17 @@ export function renderSetup(study: Study, analysis: Analysis, actions: SetupActi
   upload.id = 'upload-analysis';
   upload.addEventListener('change', async () => {
     const file = upload.files?.[0];
+    upload.value = ''; // the same file chosen again is a new choice
     if (!file) return;
     try {
-      const next = parseAnalysis(await file.text(), file.name, (id) => studyById(id).parameters);
-      location.hash = permalinkFragment(analysisToText(next));
+      actions.open(parseAnalysis(await file.text(), file.name, (id) => studyById(id).parameters));
     } catch (error) {
       actions.refuse(error instanceof AnalysisError ? error.problems.join('\n') : (error as Error).message);
     }
   });
   button('Open analysis…', 'open-analysis', () => upload.click());
   setup.append(share, upload);
+  setup.insertAdjacentHTML('beforeend', '<p class="hint share-said" role="status" aria-live="polite"></p>');
   setup.insertAdjacentHTML(
     'beforeend',
     `<p class="hint">The link holds the whole analysis. Headless: <code>alight report ${study.id}-analysis.json --out report.html</code></p><p class="caution">${escapeXml(SAFETY_CAUTION)}</p>`,

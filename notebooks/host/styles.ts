@@ -1,5 +1,7 @@
 // The one stylesheet of the page and of `alight report` (inlined in both), so they look alike.
 // Our own look: warm paper, a setup rail on the left, figures on plates with a coloured spine.
+import { FOCUS } from '../figures/palette.js';
+
 export const PAGE_CSS = `
 :root {
   --paper: #f3efe6; --plate: #fffdf8; --ink: #1f2a33; --muted: #5d6771; --rule: #d8d1c1;
@@ -10,7 +12,7 @@ export const PAGE_CSS = `
 * { box-sizing: border-box; }
 html, body { margin: 0; background: var(--paper); color: var(--ink); font: 14px/1.45 var(--ui); }
 a { color: var(--accent); }
-:focus-visible { outline: 3px solid #E69F00; outline-offset: 2px; }
+:focus-visible { outline: 3px solid ${FOCUS}; outline-offset: 2px; }
 .masthead { display: flex; align-items: center; gap: 18px; padding: 10px 22px; border-bottom: 2px solid var(--ink); background: var(--plate); }
 .wordmark { font: 700 20px/1 var(--prose); letter-spacing: 0.02em; }
 .wordmark small { font: 400 12px var(--ui); color: var(--muted); margin-left: 6px; letter-spacing: 0; }
@@ -45,7 +47,7 @@ button:disabled { opacity: 0.45; cursor: default; }
 .plates { display: grid; grid-template-columns: repeat(auto-fill, minmax(440px, 1fr)); gap: 14px; margin: 6px 0 14px; }
 .plate { margin: 0; background: var(--plate); border: 1px solid var(--rule); border-left: 4px solid var(--accent); border-radius: 4px; padding: 10px 12px 8px; min-width: 0; }
 .plate.wide { grid-column: 1 / -1; }
-.plate[data-final="false"] { border-left-color: #E69F00; }
+.plate[data-final="false"] { border-left-color: #A86F00; }
 .plate header h3 { font: 600 14px var(--ui); margin: 0; }
 .plate header p { margin: 2px 0 6px; font-size: 12px; color: var(--muted); }
 .plate-body svg { width: 100%; height: auto; display: block; }
@@ -64,5 +66,12 @@ button:disabled { opacity: 0.45; cursor: default; }
 .report-meta { font-size: 13px; border-collapse: collapse; margin: 6px 0 12px; }
 .report-meta td { padding: 2px 10px 2px 0; }
 .report-main { max-width: 1100px; margin: 0 auto; padding: 18px 22px 40px; }
+.field-problem { grid-column: 1 / -1; margin: 2px 0 0; color: var(--warn); font-size: 12px; }
+.control input[aria-invalid="true"] { border-color: var(--warn); outline: 2px solid var(--warn); }
+.plate-body caption { caption-side: top; text-align: left; font-size: 11px; color: var(--muted); padding: 0 0 3px; }
+.plate-body th[scope="row"] { font-weight: 400; }
+.verdict { font-weight: 600; }
+.verdict.bad { color: var(--warn); }
+.study-problems:empty { display: none; }
 details pre { font-size: 11px; background: var(--plate); border: 1px solid var(--rule); padding: 8px; overflow: auto; max-height: 320px; }
 `;

@@ -7,6 +7,7 @@ import { escapeXml } from '../figures/svg.js';
 import { SAFETY_CAUTION } from '../host/hostPage.js';
 import { PAGE_CSS } from '../host/styles.js';
 import type { FigureOutput, Study } from '../studies/Study.js';
+import { withCaptions } from '../studies/figureOutput.js';
 
 export function renderReport(study: Study, analysis: Analysis, figures: ReadonlyMap<string, FigureOutput>): string {
   const meta: [string, string][] = [
@@ -27,7 +28,7 @@ export function renderReport(study: Study, analysis: Analysis, figures: Readonly
       const output = figures.get(block.figure);
       parts.push(
         `<figure class="plate${figure.wide ? ' wide' : ''}" data-figure="${escapeXml(figure.name)}" data-final="true"><header><h3>${escapeXml(figure.title)}</h3><p>${escapeXml(figure.caption)}</p></header>` +
-          `<div class="plate-body">${output?.markup ?? '<p class="message">no result</p>'}</div>` +
+          `<div class="plate-body">${output ? withCaptions(output.markup, figure.title) : '<p class="message">no result</p>'}</div>` +
           `<dl class="numbers">${(output?.numbers ?? [])
             .map((n) => `<div><dt>${escapeXml(n.label)}</dt><dd data-key="${escapeXml(n.key)}" data-value="${n.value === null ? '' : String(n.value)}">${escapeXml(n.text)}</dd></div>`)
             .join('')}</dl>` +

@@ -40,9 +40,17 @@ export function toCsv(header: readonly string[], rows: readonly (readonly (numbe
   return [header.map(cell).join(','), ...rows.map((r) => r.map(cell).join(','))].join('\n') + '\n';
 }
 
-/** A plain HTML table (the page and the report both show it). */
-export function htmlTable(header: readonly string[], rows: readonly (readonly string[])[]): string {
-  return `<table><thead><tr>${header.map((h) => `<th>${escapeXml(h)}</th>`).join('')}</tr></thead><tbody>${rows
-    .map((r) => `<tr>${r.map((c) => `<td>${escapeXml(c)}</td>`).join('')}</tr>`)
-    .join('')}</tbody></table>`;
+/**
+ * A plain HTML table (the page and the report both show it): a caption for screen readers and
+ * the report's reader, column headers with scope, and each row's first cell as its row header.
+ */
+export function htmlTable(header: readonly string[], rows: readonly (readonly string[])[], caption = ''): string {
+  const head = `<thead><tr>${header.map((h) => `<th scope="col">${escapeXml(h)}</th>`).join('')}</tr></thead>`;
+  const body = rows.map((r) => `<tr>${r.map((c, i) => (i === 0 ? `<th scope="row">${escapeXml(c)}</th>` : `<td>${escapeXml(c)}</td>`)).join('')}</tr>`).join('');
+  return `<table>${caption ? `<caption>${escapeXml(caption)}</caption>` : ''}${head}<tbody>${body}</tbody></table>`;
+}
+
+/** Tables drawn without a caption get the figure's title as theirs (page and report alike). */
+export function withCaptions(markup: string, title: string): string {
+  return markup.replace(/<table>(?!<caption>)/g, `<table><caption>${escapeXml(title)}</caption>`);
 }

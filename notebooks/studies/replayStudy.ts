@@ -156,11 +156,19 @@ export const replayStudy: Study = {
         fromState(state, 'log', (value) => {
           const rep = value.report;
           const rows = Object.entries(rep.rows).map(([name, r]) => [name, String(r!.read), String(r!.used), String(r!.skipped), String(r!.unused)]);
-          const problems = rep.problems.shown.slice(0, 8).map((p) => `<li>${escapeXml(JSON.stringify(p))}</li>`).join('');
+          const shown = rep.problems.shown;
+          const problemRows = shown.map((p) => [p.file, String(p.line), p.column ?? '(whole row)', p.kind, p.message]);
+          const listed =
+            rep.problems.total === 0
+              ? '<p>No problem rows.</p>'
+              : `<p>${rep.problems.total} problem ${rep.problems.total === 1 ? 'row was' : 'rows were'} skipped${shown.length < rep.problems.total ? `; the first ${shown.length} are listed (all are counted by kind: ${Object.entries(rep.problems.byKind).map(([k, n]) => `${k} ${n}`).join(', ')})` : ''}.</p>` +
+                htmlTable(['file', 'line', 'field', 'kind', 'problem'], problemRows, 'Problem rows, skipped by the replay');
+          const problemsCsv = toCsv(['file', 'line', 'field', 'kind', 'problem'], shown.map((p) => [p.file, p.line, p.column, p.kind, p.message]));
           return {
-            kind: 'table',
-            markup: htmlTable(['stream', 'read', 'used', 'skipped', 'unused'], rows) + (rep.problems.total > 0 ? `<p>${rep.problems.total} problem rows; first ones:</p><ul>${problems}</ul>` : '<p>No problem rows.</p>'),
+            kind: 'table' as const,
+            markup: htmlTable(['stream', 'read', 'used', 'skipped', 'unused'], rows, 'Rows of each stream') + listed,
             csv: toCsv(['stream', 'read', 'used', 'skipped', 'unused'], Object.entries(rep.rows).map(([name, r]) => [name, r!.read, r!.used, r!.skipped, r!.unused])),
+            ...(rep.problems.total > 0 ? { attachment: { label: 'Problems (CSV)', fileName: 'replay-problems.csv', text: problemsCsv } } : {}),
             numbers: [keyNumber('filterSteps', 'filter steps', rep.filterSteps, String(rep.filterSteps))],
           };
         }),

@@ -236,7 +236,7 @@ describe.skipIf(!runBrowserTests)('studies in chromium', () => {
         document.querySelector('.dropzone')!.dispatchEvent(new DragEvent('drop', { dataTransfer: transfer, bubbles: true, cancelable: true }));
       }, files), 'rows');
     expect(dropped.after.source).toBeGreaterThan(dropped.before.source!);
-    expect(await page.locator('[data-figure="source"] td', { hasText: 'camera.json' }).count()).toBe(1);
+    expect(await page.locator('[data-figure="source"] th', { hasText: 'camera.json' }).count()).toBe(1);
     const expected = await replayLog(logSourceFromFolder(folder), { filter: { qScale: 1, rScale: 1 }, filterSource: 'study controls' });
     expect(await shownValue(page, 'rows', 'filterSteps')).toBe(expected.filterSteps);
     expect(await shownValue(page, 'consistency', 'gateRejections')).toBe(expected.gateRejections);

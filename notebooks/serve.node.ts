@@ -5,6 +5,7 @@ import { existsSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { startStaticServer } from './server/staticServer.node.js';
+import { SAFETY_CAUTION } from '../estimator/safetyCaution.js';
 
 const repo = join(dirname(fileURLToPath(import.meta.url)), '..');
 const pageDir = join(repo, 'dist', 'notebooks');
@@ -32,7 +33,7 @@ async function serve(): Promise<void> {
     try {
       const running = await startStaticServer({ pageDir, demoDir, port: first === 0 ? 0 : first + attempt });
       process.stdout.write(`alight notebooks: ${running.url}  (Ctrl-C stops)\n`);
-      process.stdout.write('Simulation results clear nothing for flight: fly under local aviation rules and licensed practice.\n');
+      process.stdout.write(`${SAFETY_CAUTION}\n`);
       return;
     } catch (error) {
       if ((error as { code?: string }).code !== 'EADDRINUSE') throw error;

@@ -1,13 +1,14 @@
 // `alight merge`: join shard result files into exactly the file an unsharded sweep writes.
-import { existsSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { mergeResults, type MergeInput } from '../study/mergeResults.js';
 import { describeProblems, parseResults } from '../study/resultsFile.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, parseArgs, type OptionSpec } from './parseArgs.js';
 import { asCliError, resolvePath } from './studyCli.js';
+import { checkOutputs, writeOutput, type OutputTarget } from './outputFiles.js';
 
-const USAGE = 'alight merge <shard.jsonl>... --out results.jsonl';
+const USAGE = 'alight merge <shard.jsonl>... --out results.jsonl [--allow-partial]';
 const PURPOSE = 'Join the result files of a sharded sweep; the output equals an unsharded run byte for byte.';
 const OPTIONS: OptionSpec[] = [
   { name: 'out', kind: 'value', valueName: 'FILE', help: 'merged results file (required; refuses to overwrite an input)' },
@@ -27,11 +28,11 @@ export const mergeCommand: Command = {
     const out = parsed.values.get('out');
     if (!out) throw new CliError('alight merge: --out FILE is required');
     if (parsed.positional.length === 0) throw new CliError(`alight merge: give the shard files (usage: ${USAGE})`);
-    const outPath = resolvePath(io.cwd, out);
+    const outTarget: OutputTarget = { option: '--out', name: out, path: resolvePath(io.cwd, out) };
+    checkOutputs('merge', [outTarget], parsed.positional.map((name) => resolvePath(io.cwd, name)));
     try {
       const inputs: MergeInput[] = parsed.positional.map((name) => {
         const path = resolvePath(io.cwd, name);
-        if (path === outPath) throw new CliError(`alight merge: --out ${out} is also an input`);
         if (!existsSync(path)) throw new CliError(`alight merge: ${name}: no such file`);
         const result = parseResults(readFileSync(path, 'utf8'), name);
         if (result.problems.length > 0) {
@@ -43,9 +44,7 @@ export const mergeCommand: Command = {
       if (merged.missing > 0 && !parsed.flags.has('allow-partial')) {
         throw new CliError(`alight merge: ${merged.missing} of ${merged.records + merged.missing} trials are missing (resume the unfinished shards, or pass --allow-partial)`);
       }
-      const temporary = `${outPath}.tmp-${process.pid}`;
-      writeFileSync(temporary, merged.text);
-      renameSync(temporary, outPath);
+      writeOutput('merge', outTarget, merged.text);
       io.stdout(`merged ${inputs.length} files, ${merged.records} trials${merged.missing ? ` (${merged.missing} missing)` : ''} -> ${out}\n`);
       return 0;
     } catch (error) {

@@ -12,8 +12,8 @@ export interface OptionSpec {
   valueName?: string;
 }
 
-/** The --help flag every command takes. */
-export const HELP_OPTION: OptionSpec = { name: 'help', kind: 'flag', help: 'show this help' };
+/** The --help flag every command takes (also -h). */
+export const HELP_OPTION: OptionSpec = { name: 'help', kind: 'flag', help: 'show this help (also -h)' };
 
 export interface ParsedArgs {
   positional: string[];
@@ -27,6 +27,13 @@ export function parseArgs(command: string, argv: readonly string[], specs: reado
   const parsed: ParsedArgs = { positional: [], flags: new Set(), values: new Map(), lists: new Map() };
   for (let i = 0; i < argv.length; i++) {
     const arg = argv[i]!;
+    // -h is the one short option (help, on every command); other short forms are refused
+    // rather than taken for a file name.
+    if (arg === '-h' && byName.has('help')) {
+      parsed.flags.add('help');
+      continue;
+    }
+    if (/^-[^-]/.test(arg) && !/^-\d/.test(arg)) throw new CliError(`alight ${command}: unknown option ${arg} (options are long, e.g. --help; see alight ${command} --help)`);
     if (!arg.startsWith('--') || arg === '--') {
       parsed.positional.push(arg);
       continue;

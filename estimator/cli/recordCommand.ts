@@ -9,7 +9,8 @@ import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { loadScenarioForCli } from './loadScenarioForCli.js';
-import { FLIGHT_CAUTION } from './simulateCommand.js';
+import { checkOutputs, scenarioFiles } from './outputFiles.js';
+import { SAFETY_CAUTION } from '../safetyCaution.js';
 
 const OPTIONS: OptionSpec[] = [
   { name: 'out', kind: 'value', valueName: 'FOLDER', help: 'log folder to write (created; refused if it already holds a log, unless --force)' },
@@ -34,7 +35,7 @@ export const recordCommand: Command = {
       io.stdout(
         formatHelp(
           USAGE,
-          `${PURPOSE}.\nFiles: camera.json (the camera as the filter believes it), filter.json, boxes.csv, imu.csv,\nattitude.csv, odometry.csv, truth.csv (unless --no-truth) and onboard.csv (the filter's own estimates).\nThe layout is described in the README, section "Flight-log layout".\n${FLIGHT_CAUTION}`,
+          `${PURPOSE}.\nFiles: camera.json (the camera as the filter believes it), filter.json, boxes.csv, imu.csv,\nattitude.csv, odometry.csv, truth.csv (unless --no-truth) and onboard.csv (the filter's own estimates).\nThe layout is described in the README, section "Flight-log layout".\n${SAFETY_CAUTION}`,
           OPTIONS,
         ),
       );
@@ -46,6 +47,7 @@ export const recordCommand: Command = {
     const scenario = loadScenarioForCli('record', parsed.positional[0], io.cwd);
     const seed = numberOption('record', parsed, 'seed', scenario.seed, (v) => Number.isSafeInteger(v) && v >= 0, 'a non-negative integer');
     const folder = isAbsolute(out) ? out : join(io.cwd, out);
+    checkOutputs('record', LOG_FILES.map((f) => ({ option: '--out', name: join(out, f), path: join(folder, f) })), scenarioFiles(parsed.positional[0]!, scenario, io.cwd));
     if (existsSync(folder)) {
       const present = readdirSync(folder).filter((f) => LOG_FILES.includes(f));
       if (present.length > 0 && !parsed.flags.has('force')) throw new CliError(`alight record: ${out} already holds a log (${present.slice(0, 3).join(', ')}${present.length > 3 ? ', ...' : ''}); use --force to overwrite`);
@@ -67,7 +69,7 @@ export const recordCommand: Command = {
         `  outcome  ${result.outcome}${result.touchdownTime !== null ? ` at ${result.touchdownTime.toFixed(2)} s` : ''}\n` +
         `  rows     ${files}\n` +
         `  replay   alight replay ${out}\n` +
-        `${FLIGHT_CAUTION}\n`,
+        `${SAFETY_CAUTION}\n`,
     );
     return 0;
   },

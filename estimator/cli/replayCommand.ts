@@ -1,6 +1,6 @@
 // `alight replay <log-folder> [--filter settings.json] [--out estimates.csv] [--json]`: run the
 // landing filter over a flight log and judge it from its innovations (and truth, if logged).
-import { closeSync, openSync, readFileSync, writeSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { isAbsolute, join } from 'node:path';
 import { jsonLines, JsonSyntaxError } from '../io/jsonPositions.js';
 import { estimatesHeader, estimatesRow } from '../io/log/estimatesCsv.js';
@@ -13,6 +13,7 @@ import { FilterSpecError } from '../models/LandingFilter.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
+import { checkOutputs, filesIn, openOutput, outputTarget, type StreamedOutput } from './outputFiles.js';
 
 const OPTIONS: OptionSpec[] = [
   { name: 'filter', kind: 'value', valueName: 'settings.json', help: 'filter settings over the log\'s own: a partial FilterSpec, e.g. {"qScale": 2, "pixelNoise": 3}' },
@@ -99,17 +100,15 @@ export const replayCommand: Command = {
     const settings: ReplaySettings = { lags };
     const filterPath = parsed.values.get('filter');
     if (filterPath !== undefined) Object.assign(settings, readFilterSettings('replay', filterPath, io.cwd));
-    const outPath = parsed.values.get('out');
-    let fd: number | null = null;
+    const outTarget = outputTarget('--out', parsed.values.get('out'), io.cwd);
+    const folderPath = isAbsolute(folder) ? folder : join(io.cwd, folder);
+    let stream: StreamedOutput | null = null;
     let buffer = '';
     let header = false;
-    if (outPath !== undefined) {
-      try {
-        fd = openSync(isAbsolute(outPath) ? outPath : join(io.cwd, outPath), 'w');
-      } catch (error) {
-        throw new CliError(`alight replay: cannot write --out ${outPath} (${(error as { code?: string }).code ?? String(error)})`);
-      }
-      const out = fd;
+    if (outTarget) {
+      checkOutputs('replay', [outTarget], [...filesIn(folderPath), ...(filterPath !== undefined ? [isAbsolute(filterPath) ? filterPath : join(io.cwd, filterPath)] : [])]);
+      const out = openOutput('replay', outTarget);
+      stream = out;
       settings.onEstimate = (t, x, P, n) => {
         if (!header) {
           buffer += estimatesHeader(n) + '\n';
@@ -117,7 +116,7 @@ export const replayCommand: Command = {
         }
         buffer += estimatesRow(t, x, P, n) + '\n';
         if (buffer.length > 1 << 16) {
-          writeSync(out, buffer);
+          out.write(buffer);
           buffer = '';
         }
       };
@@ -132,14 +131,17 @@ export const replayCommand: Command = {
       };
     }
     let report: ReplayReport;
+    let complete = false;
     try {
-      report = await replayLog(logSourceFromFolder(isAbsolute(folder) ? folder : join(io.cwd, folder), folder), settings);
+      report = await replayLog(logSourceFromFolder(folderPath, folder), settings);
+      complete = true;
     } catch (error) {
       inputError('replay', error);
     } finally {
-      if (fd !== null) {
-        if (buffer.length > 0) writeSync(fd, buffer);
-        closeSync(fd);
+      // The estimates file appears under its name only when the replay finished.
+      if (stream !== null) {
+        if (complete && buffer.length > 0) stream.write(buffer);
+        stream.finish(complete);
       }
     }
     if (io.interactive) io.stderr('\r\x1b[K');

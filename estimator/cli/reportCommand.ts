@@ -1,6 +1,6 @@
 // `alight report <analysis.json> --out report.html`: renders a study headlessly into one
 // self-contained HTML file with the numbers the notebook page shows for the same analysis.
-import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { AnalysisError } from '../../notebooks/analysis/Analysis.js';
@@ -13,6 +13,7 @@ import { logSourceFromFolder } from '../io/log/logSourceFromFolder.node.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, parseArgs, type OptionSpec } from './parseArgs.js';
+import { checkOutputs, writeOutput, type OutputTarget } from './outputFiles.js';
 
 const OPTIONS: OptionSpec[] = [
   { name: 'out', kind: 'value', valueName: 'FILE', help: 'HTML file to write (default: the analysis file name with .html)' },
@@ -46,6 +47,8 @@ export const reportCommand: Command = {
     if (parsed.positional.length !== 1) throw new CliError(`alight report: expected one analysis file\nusage: ${USAGE}`);
     const file = resolve(io.cwd, parsed.positional[0]!);
     const out = resolve(io.cwd, parsed.values.get('out') ?? file.replace(/\.json$/i, '') + '.html');
+    const outTarget: OutputTarget = { option: '--out', name: parsed.values.get('out') ?? out, path: out };
+    checkOutputs('report', [outTarget], [file]);
     let text: string;
     try {
       text = readFileSync(file, 'utf8');
@@ -76,7 +79,7 @@ export const reportCommand: Command = {
     if (failures.size > 0) {
       throw new CliError([...failures].map(([failure, names]) => `alight report: ${parsed.positional[0]}: ${failure} (figures: ${names.join(', ')})`).join('\n'), 1);
     }
-    writeFileSync(out, renderReport(study, analysis, figures));
+    writeOutput('report', outTarget, renderReport(study, analysis, figures));
     io.stdout(`alight report: wrote ${out}\n`);
     return 0;
   },

@@ -1,6 +1,5 @@
 // `alight require`: the largest impairment at which landing success, by its lower Wilson bound,
 // still meets a target (bisection with adaptive trial counts).
-import { writeFileSync } from 'node:fs';
 import { getPath } from '../io/scenarioPath.js';
 import { applyParams } from '../study/applyParams.js';
 import { successFigure } from '../study/figures/successFigure.js';
@@ -11,9 +10,11 @@ import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { createExecutor, loadScenarioOrFail, workerCount } from './studyRunner.js';
-import { asCliError, JSON_OPTION, resolvePath, SAFETY_NOTE, SEED_OPTION, WORKERS_OPTION } from './studyCli.js';
+import { SAFETY_CAUTION } from '../safetyCaution.js';
+import { asCliError, JSON_OPTION, SEED_OPTION, WORKERS_OPTION } from './studyCli.js';
+import { checkOutputs, outputTarget, scenarioFiles, writeOutput } from './outputFiles.js';
 
-const USAGE = 'alight require <scenario.json> --param PATH --target RATE [--from V] [--to V] [--trials MAX]';
+const USAGE = 'alight require <scenario.json> --param PATH --target RATE [--from V] [--to V] [--trials MAX] [--first-batch N] [--steps N] [--seed S] [--workers K] [--svg FILE] [--json]';
 const PURPOSE = 'Find the largest impairment at which the lower Wilson 95 % bound of landing success stays at or above\nthe target: bisection between --from (good) and --to (bad), each probe adding trials in doubling batches\nuntil the verdict is clear. Assumes success falls steadily from --from to --to.';
 const OPTIONS: OptionSpec[] = [
   { name: 'param', kind: 'value', valueName: 'PATH', help: 'dotted scenario path of the impairment, e.g. detector.latency (required)' },
@@ -41,6 +42,8 @@ export const requireCommand: Command = {
     }
     if (parsed.positional.length !== 1) throw new CliError(`alight require: give one scenario file (usage: ${USAGE})`);
     const scenario = loadScenarioOrFail(parsed.positional[0], 'require', io.cwd);
+    const svgOut = outputTarget('--svg', parsed.values.get('svg'), io.cwd);
+    if (svgOut) checkOutputs('require', [svgOut], scenarioFiles(parsed.positional[0]!, scenario, io.cwd));
     const path = parsed.values.get('param');
     if (!path) throw new CliError('alight require: --param PATH is required');
     if (!parsed.values.has('target')) throw new CliError('alight require: --target RATE is required');
@@ -79,9 +82,8 @@ export const requireCommand: Command = {
           if (!json) io.stderr(`  ${path} = ${p.value}: ${p.landed}/${p.trials} landed, Wilson 95 % ${p.wilsonLow.toFixed(3)}-${p.wilsonHigh.toFixed(3)} -> ${p.pass ? 'meets' : 'misses'} ${target}\n`);
         },
       });
-      const svg = parsed.values.get('svg');
-      if (svg) {
-        writeFileSync(resolvePath(io.cwd, svg), successFigure(result.probes.map((p) => ({ x: p.value, rate: p.landed / p.trials, low: p.wilsonLow, high: p.wilsonHigh, trials: p.trials })), { xLabel: path, target, title: `Requirement on ${path}: success >= ${target}` }));
+      if (svgOut) {
+        writeOutput('require', svgOut, successFigure(result.probes.map((p) => ({ x: p.value, rate: p.landed / p.trials, low: p.wilsonLow, high: p.wilsonHigh, trials: p.trials })), { xLabel: path, target, title: `Requirement on ${path}: success >= ${target}` }));
       }
       if (json) io.stdout(JSON.stringify({ param: path, target, from, to, ...result }, null, 1) + '\n');
       else {
@@ -90,7 +92,7 @@ export const requireCommand: Command = {
           : result.failsAt === null
             ? `${path}: the whole range ${from} .. ${to} meets the target ${target}.`
             : `${path} <= ${result.value} keeps the lower Wilson 95 % bound of success >= ${target} (fails at ${result.failsAt}).`;
-        io.stdout(`${answer}\n${result.probes.reduce((n, p) => n + p.trials, 0)} trials in ${result.probes.length} probes.\n${SAFETY_NOTE}\n`);
+        io.stdout(`${answer}\n${result.probes.reduce((n, p) => n + p.trials, 0)} trials in ${result.probes.length} probes.\n${SAFETY_CAUTION}\n`);
       }
       return 0;
     } catch (error) {

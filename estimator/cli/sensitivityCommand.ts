@@ -1,6 +1,5 @@
 // `alight sensitivity`: rank impairments by the landing success they cost over their plausible
 // range, one at a time around the scenario, with 95 % intervals.
-import { writeFileSync } from 'node:fs';
 import { applyParams } from '../study/applyParams.js';
 import { sensitivityFigure } from '../study/figures/sensitivityFigure.js';
 import { PLAUSIBLE_RANGES, type PlausibleRange } from '../study/plausibleRanges.js';
@@ -11,9 +10,11 @@ import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { createExecutor, loadScenarioOrFail, progressBar, workerCount } from './studyRunner.js';
-import { asCliError, JSON_OPTION, resolvePath, SAFETY_NOTE, SEED_OPTION, WORKERS_OPTION } from './studyCli.js';
+import { SAFETY_CAUTION } from '../safetyCaution.js';
+import { asCliError, JSON_OPTION, SEED_OPTION, WORKERS_OPTION } from './studyCli.js';
+import { checkOutputs, outputTarget, scenarioFiles, writeOutput } from './outputFiles.js';
 
-const USAGE = 'alight sensitivity <scenario.json> [--vary PATH=GOOD:BAD ...] [--trials N]';
+const USAGE = 'alight sensitivity <scenario.json> [--vary PATH=GOOD:BAD ...] [--trials N] [--seed S] [--workers K] [--svg FILE] [--json]';
 const PURPOSE = 'One impairment at a time, everything else as in the scenario: run N trials at the good and at the bad end\nof each plausible range and rank the impairments by the landing success lost, with Newcombe 95 % intervals.';
 const OPTIONS: OptionSpec[] = [
   { name: 'vary', kind: 'list', valueName: 'PATH=GOOD:BAD', help: 'impairment and its plausible range (default: the built-in list)' },
@@ -47,6 +48,8 @@ export const sensitivityCommand: Command = {
     }
     if (parsed.positional.length !== 1) throw new CliError(`alight sensitivity: give one scenario file (usage: ${USAGE})`);
     const scenario = loadScenarioOrFail(parsed.positional[0], 'sensitivity', io.cwd);
+    const svgOut = outputTarget('--svg', parsed.values.get('svg'), io.cwd);
+    if (svgOut) checkOutputs('sensitivity', [svgOut], scenarioFiles(parsed.positional[0]!, scenario, io.cwd));
     const trials = numberOption('sensitivity', parsed, 'trials', 100, (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
     const seed = numberOption('sensitivity', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
     const given = parsed.lists.get('vary');
@@ -62,14 +65,13 @@ export const sensitivityCommand: Command = {
       progress.stop();
       const landed = (i: number): [number, number] => [records[i]!.filter((r) => r.outcome === 'landed').length, records[i]!.length];
       const rows = rankSensitivity(factors, factors.map((_, i) => ({ good: landed(2 * i), bad: landed(2 * i + 1) })));
-      const svg = parsed.values.get('svg');
-      if (svg) writeFileSync(resolvePath(io.cwd, svg), sensitivityFigure(rows.map((r) => ({ label: `${r.path} ${r.good.value} → ${r.bad.value}`, loss: r.loss, low: r.lossLow, high: r.lossHigh }))));
+      if (svgOut) writeOutput('sensitivity', svgOut, sensitivityFigure(rows.map((r) => ({ label: `${r.path} ${r.good.value} → ${r.bad.value}`, loss: r.loss, low: r.lossLow, high: r.lossHigh }))));
       if (parsed.flags.has('json')) io.stdout(JSON.stringify(rows, null, 1) + '\n');
       else {
         const pct = (v: number) => `${(100 * v).toFixed(1)}`;
         const head = 'impairment (good -> bad)'.padEnd(48) + 'success good -> bad'.padEnd(22) + 'lost (95 % interval)';
         const body = rows.map((r) => `${`${r.path} ${r.good.value} -> ${r.bad.value}`.padEnd(48)}${`${pct(r.good.rate)} % -> ${pct(r.bad.rate)} %`.padEnd(22)}${pct(r.loss)} pts (${pct(r.lossLow)} .. ${pct(r.lossHigh)})`);
-        io.stdout([head, ...body].join('\n') + `\n${trials} trials at each end; one impairment at a time around ${scenario.name}.\n${SAFETY_NOTE}\n`);
+        io.stdout([head, ...body].join('\n') + `\n${trials} trials at each end; one impairment at a time around ${scenario.name}.\n${SAFETY_CAUTION}\n`);
       }
       return 0;
     } catch (error) {

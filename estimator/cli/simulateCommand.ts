@@ -1,6 +1,5 @@
 // `alight simulate <scenario.json> [--seed N] [--trace FILE.csv] [--json]`: one closed-loop
 // landing trial. Prints a short summary (or one JSON object); --trace writes a CSV row per step.
-import { writeFileSync } from 'node:fs';
 import { basename, isAbsolute, join } from 'node:path';
 import { runTrial } from '../sim/runTrial.js';
 import { TRACE_COLUMNS, traceCsvLine } from '../sim/trace.js';
@@ -12,6 +11,8 @@ import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { cameraSummary } from './cameraCommand.js';
 import { loadScenarioForCli } from './loadScenarioForCli.js';
+import { checkOutputs, outputTarget, scenarioFiles, writeOutput } from './outputFiles.js';
+import { SAFETY_CAUTION } from '../safetyCaution.js';
 
 export { loadScenarioForCli };
 
@@ -27,7 +28,6 @@ const SCENARIO_ERRORS = new Set(['CarrierPathError', 'CameraSpecError', 'CameraE
 
 const USAGE = 'alight simulate <scenario.json> [--seed N] [--trace FILE.csv] [--json]';
 const PURPOSE = 'fly one closed-loop landing trial of a scenario and judge the touchdown';
-export const FLIGHT_CAUTION = 'Caution: simulation clears nothing for flight. Fly under local aviation rules and licensed practice, with a safety pilot, geofence and kill switch.';
 
 
 const f = (v: number | null, digits = 2): string => (v === null || !Number.isFinite(v) ? '-' : v.toFixed(digits));
@@ -46,7 +46,7 @@ export function formatSummary(scenario: Scenario, seed: number, r: TrialResult):
   lines.push(`  phases     ${PHASES.map((p) => `${p} ${f(r.phaseTimes[p], 1)} s`).join(', ')}`);
   lines.push(`  sensing    ${r.boxes} boxes, ${r.dropped} dropped, ${r.falseBoxes} false, ${r.gateRejections} gated; ${r.aborts} abort${r.aborts === 1 ? '' : 's'}`);
   lines.push(`  camera     ${cameraSummary(scenario, scenario.guidance.trailHeight)}`);
-  lines.push(FLIGHT_CAUTION);
+  lines.push(SAFETY_CAUTION);
   return lines.join('\n') + '\n';
 }
 
@@ -56,13 +56,15 @@ export const simulateCommand: Command = {
   async run(argv, io) {
     const parsed = parseArgs('simulate', argv, OPTIONS);
     if (parsed.flags.has('help')) {
-      io.stdout(formatHelp(USAGE, `${PURPOSE}.\nThe summary names the outcome (landed, off-pad, hard-contact, aborted, timed-out, diverged), the\nmiss from the pad centre, contact speeds and tilt, estimate quality and time per phase.\n${FLIGHT_CAUTION}`, OPTIONS));
+      io.stdout(formatHelp(USAGE, `${PURPOSE}.\nThe summary names the outcome (landed, off-pad, hard-contact, aborted, timed-out, diverged), the\nmiss from the pad centre, contact speeds and tilt, estimate quality and time per phase.\n${SAFETY_CAUTION}`, OPTIONS));
       return 0;
     }
     if (parsed.positional.length > 1) throw new CliError(`alight simulate: one scenario file please, got ${parsed.positional.length} (${USAGE})`);
     const scenario = loadScenarioForCli('simulate', parsed.positional[0], io.cwd, USAGE);
     const seed = numberOption('simulate', parsed, 'seed', scenario.seed, (v) => Number.isSafeInteger(v) && v >= 0, 'a non-negative integer');
     const tracePath = parsed.values.get('trace');
+    const trace = outputTarget('--trace', tracePath, io.cwd);
+    if (trace) checkOutputs('simulate', [trace], scenarioFiles(parsed.positional[0]!, scenario, io.cwd));
     const traceLines: string[] = [];
     if (tracePath !== undefined) traceLines.push(TRACE_COLUMNS.join(','));
     let result: TrialResult;
@@ -76,14 +78,7 @@ export const simulateCommand: Command = {
       if (error instanceof Error && SCENARIO_ERRORS.has(error.name)) throw new CliError(`${basename(parsed.positional[0]!)}: ${error.message}`);
       throw error;
     }
-    if (tracePath !== undefined) {
-      const target = isAbsolute(tracePath) ? tracePath : join(io.cwd, tracePath);
-      try {
-        writeFileSync(target, traceLines.join('\n') + '\n');
-      } catch (error) {
-        throw new CliError(`alight simulate: cannot write --trace ${tracePath} (${(error as { code?: string }).code ?? String(error)})`);
-      }
-    }
+    if (trace) writeOutput('simulate', trace, traceLines.join('\n') + '\n');
     if (parsed.flags.has('json')) io.stdout(JSON.stringify({ scenario: scenario.name, seed, ...result }) + '\n');
     else io.stdout(formatSummary(scenario, seed, result));
     return 0;

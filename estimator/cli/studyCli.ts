@@ -1,10 +1,9 @@
-// Light helpers shared by the study commands: error translation, the flight-safety note,
+// Light helpers shared by the study commands: error translation, shared options,
 // paths relative to the working directory. Imports no simulation code.
 import { ScenarioError } from '../io/ScenarioError.js';
 import { CliError } from './CliError.js';
 import type { OptionSpec } from './parseArgs.js';
 
-export const SAFETY_NOTE = 'Simulation results clear nothing for flight: fly under local aviation rules and licensed practice, with a safety pilot, geofence and kill switch.';
 
 export const SEED_OPTION: OptionSpec = { name: 'seed', kind: 'value', valueName: 'S', help: 'master seed (default: the scenario\'s seed)' };
 export const JSON_OPTION: OptionSpec = { name: 'json', kind: 'flag', help: 'print JSON' };

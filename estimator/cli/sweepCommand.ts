@@ -8,8 +8,9 @@ import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { createExecutor, loadScenarioOrFail, progressBar, workerCount } from './studyRunner.js';
 import { asCliError, resolvePath, WORKERS_OPTION } from './studyCli.js';
+import { checkOutputs, scenarioFiles } from './outputFiles.js';
 
-const USAGE = 'alight sweep <scenario.json> --vary PATH=FROM:TO:COUNT [--vary ...] --trials N --out results.jsonl [options]';
+const USAGE = 'alight sweep <scenario.json> --vary PATH=FROM:TO:COUNT [--vary ...] --trials N --out results.jsonl [--design grid|random|lhs] [--points M] [--workers K] [--seed S] [--resume] [--shard I/N | --shard-count N]';
 const PURPOSE = 'Monte Carlo sweep: run N trials at each point of a grid, random or Latin-hypercube design over scenario paths.';
 const OPTIONS: OptionSpec[] = [
   { name: 'vary', kind: 'list', valueName: 'PATH=FROM:TO:COUNT', help: 'vary a dotted scenario path over COUNT even steps, or PATH=A,B,C' },
@@ -61,6 +62,7 @@ export const sweepCommand: Command = {
       const vary = (parsed.lists.get('vary') ?? []).map(parseVary);
       const shard = resolveShard(parsed.values.get('shard'), shardCount, io.env);
       const out = resolvePath(io.cwd, shard ? outText.replaceAll('{shard}', String(shard.index)) : outText);
+      checkOutputs('sweep', [{ option: '--out', name: outText, path: out }], scenarioFiles(parsed.positional[0]!, scenario, io.cwd));
       executor = createExecutor(workers, io.env);
       const result = await runSweep({
         scenario, vary, design, points, trials, seed, out, shard, executor,

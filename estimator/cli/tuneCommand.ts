@@ -1,6 +1,6 @@
 // `alight tune`: search the filter's Q, R and gate multipliers (log scale, grid then Nelder–Mead)
 // on simulated trials; a directory argument tunes on flight logs instead (REPLAY's tuneLog).
-import { statSync, writeFileSync } from 'node:fs';
+import { statSync } from 'node:fs';
 import type { Scenario } from '../sim/Scenario.js';
 import { runBatch } from '../study/runBatch.js';
 import { searchMultipliers, type Multipliers, type SurfaceSample } from '../study/search.js';
@@ -11,9 +11,11 @@ import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { createExecutor, loadScenarioOrFail, workerCount } from './studyRunner.js';
 import { surfaceHeatMap, tuneOnLog } from './tuneOnLog.js';
-import { asCliError, JSON_OPTION, resolvePath, SAFETY_NOTE, SEED_OPTION, WORKERS_OPTION } from './studyCli.js';
+import { SAFETY_CAUTION } from '../safetyCaution.js';
+import { asCliError, JSON_OPTION, resolvePath, SEED_OPTION, WORKERS_OPTION } from './studyCli.js';
+import { checkOutputs, filesIn, outputTarget, scenarioFiles, writeOutput, type OutputTarget } from './outputFiles.js';
 
-const USAGE = 'alight tune <scenario.json | log-folder> [--trials N] [--grid G] [--refine E] [--surface FILE] [--svg FILE]';
+const USAGE = 'alight tune <scenario.json | log-folder> [--trials N] [--grid G] [--refine E] [--q LO:HI] [--r LO:HI] [--gate LO:HI] [--nees-weight W] [--criterion nis|nees] [--filter FILE] [--seed S] [--workers K] [--surface FILE] [--svg FILE] [--json]';
 const LOG_NOTE = '\nWith a flight-log folder every setting replays the whole log and the cost is consistency alone:\nNIS near its dimension, white innovations and few gated updates (or NEES when the log has truth.csv).\n';
 const PURPOSE = 'Search the filter multipliers filter.qScale, filter.rScale and filter.gateScale on a log-spaced grid, then\nrefine with Nelder–Mead. Cost = (1 - landing success) + w·|ln(ANEES / n)|, lower is better; every setting\nruns the same trials (same random streams), so differences come from the settings, not from luck.';
 const OPTIONS: OptionSpec[] = [
@@ -68,13 +70,19 @@ export const tuneCommand: Command = {
     const target = parsed.positional[0]!;
     const grid = numberOption('tune', parsed, 'grid', 4, (v) => Number.isInteger(v) && v >= 1 && v <= 20, 'an integer 1..20');
     const refine = numberOption('tune', parsed, 'refine', 20, (v) => Number.isInteger(v) && v >= 0, 'a non-negative integer');
+    const surfaceOut = outputTarget('--surface', parsed.values.get('surface'), io.cwd);
+    const svgOut = outputTarget('--svg', parsed.values.get('svg'), io.cwd);
+    const outputs = [surfaceOut, svgOut].filter((o): o is OutputTarget => o !== undefined);
     if (isDirectory(resolvePath(io.cwd, target))) {
+      const filterFile = parsed.values.get('filter');
+      checkOutputs('tune', outputs, [...filesIn(resolvePath(io.cwd, target)), ...(filterFile ? [resolvePath(io.cwd, filterFile)] : [])]);
       return tuneOnLog(target, parsed, io, { q: range(parsed, 'q'), r: range(parsed, 'r'), gate: range(parsed, 'gate'), grid, refine });
     }
     for (const logOnly of ['criterion', 'filter']) {
       if (parsed.values.has(logOnly)) throw new CliError(`alight tune: --${logOnly} applies to a flight-log folder, not to a scenario`);
     }
     const scenario: Scenario = loadScenarioOrFail(target, 'tune', io.cwd);
+    checkOutputs('tune', outputs, scenarioFiles(target, scenario, io.cwd));
     const trials = numberOption('tune', parsed, 'trials', 16, (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
     const weight = numberOption('tune', parsed, 'nees-weight', 0.25, (v) => v >= 0, 'a non-negative number');
     const seed = numberOption('tune', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
@@ -100,15 +108,13 @@ export const tuneCommand: Command = {
         return { ...s, successRate: d.successRate, neesMean: d.neesMean };
       });
       const best = details.get(`${result.best.q},${result.best.r},${result.best.gate}`)!;
-      const surfaceFile = parsed.values.get('surface');
-      if (surfaceFile) {
-        const text = surfaceFile.endsWith('.csv')
+      if (surfaceOut) {
+        const text = surfaceOut.name.endsWith('.csv')
           ? ['qScale,rScale,gateScale,cost,stage,successRate,neesMean', ...rows.map((r) => [r.q, r.r, r.gate, r.score, r.stage, r.successRate, r.neesMean ?? ''].join(','))].join('\n') + '\n'
           : JSON.stringify(rows, null, 1) + '\n';
-        writeFileSync(resolvePath(io.cwd, surfaceFile), text);
+        writeOutput('tune', surfaceOut, text);
       }
-      const svg = parsed.values.get('svg');
-      if (svg) writeFileSync(resolvePath(io.cwd, svg), surfaceHeatMap(rows, result.best, 'Tuning cost'));
+      if (svgOut) writeOutput('tune', svgOut, surfaceHeatMap(rows, result.best, 'Tuning cost'));
       const recommended = { 'filter.qScale': result.best.q, 'filter.rScale': result.best.r, 'filter.gateScale': result.best.gate };
       if (json) io.stdout(JSON.stringify({ recommended, cost: result.best.score, successRate: best.successRate, wilsonLow: best.wilsonLow, wilsonHigh: best.wilsonHigh, neesMean: best.neesMean, neesDim: best.neesDim, neesVerdict: best.neesVerdict, evaluations: rows.length, trialsPerSetting: trials }, null, 1) + '\n');
       else {
@@ -116,7 +122,7 @@ export const tuneCommand: Command = {
           `recommended: qScale ${result.best.q}  rScale ${result.best.r}  gateScale ${result.best.gate}\n` +
           `  landing success ${(100 * best.successRate).toFixed(1)} % (Wilson 95 % ${(100 * best.wilsonLow).toFixed(1)}-${(100 * best.wilsonHigh).toFixed(1)} %), ` +
           `ANEES ${best.neesMean?.toFixed(2) ?? '-'} for n = ${best.neesDim ?? '-'} (${best.neesVerdict ?? 'no NEES'}), cost ${result.best.score.toFixed(4)}\n` +
-          `  ${rows.length} settings x ${trials} trials; put these in the scenario's filter section.\n${SAFETY_NOTE}\n`,
+          `  ${rows.length} settings x ${trials} trials; put these in the scenario's filter section.\n${SAFETY_CAUTION}\n`,
         );
       }
       return 0;

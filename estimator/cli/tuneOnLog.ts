@@ -1,6 +1,5 @@
 // `alight tune <log-folder>`: the flight-log branch of the tune command. The search and the
 // cost live in the library (estimator/io/log/tuneLog.ts); this prints and writes files.
-import { writeFileSync } from 'node:fs';
 import { tuneLog, type TuneCriterion } from '../io/log/tuneLog.js';
 import { heatMapFigure } from '../study/figures/heatMapFigure.js';
 import type { SurfaceSample } from '../study/search.js';
@@ -9,6 +8,7 @@ import type { CommandIo } from './Command.js';
 import type { ParsedArgs } from './parseArgs.js';
 import { inputError, readFilterSettings } from './replayCommand.js';
 import { resolvePath } from './studyCli.js';
+import { outputTarget, writeOutput } from './outputFiles.js';
 
 export interface LogTuneOptions {
   q?: [number, number];
@@ -40,17 +40,17 @@ export async function tuneOnLog(folder: string, parsed: ParsedArgs, io: CommandI
         if (!json && io.interactive) io.stderr(`  ${n}: q ${s.q} r ${s.r} gate ${s.gate} -> cost ${s.score.toFixed(4)}\n`);
       },
     });
-    const surfaceFile = parsed.values.get('surface');
-    if (surfaceFile) {
+    const surfaceOut = outputTarget('--surface', parsed.values.get('surface'), io.cwd);
+    if (surfaceOut) {
       const rows = result.surface;
-      const text = surfaceFile.endsWith('.csv')
+      const text = surfaceOut.name.endsWith('.csv')
         ? ['qScale,rScale,gateScale,cost,stage,nisMean,neesMean,white,gateRejections', ...rows.map((r) => [r.q, r.r, r.gate, r.score, r.stage, r.nisMean ?? '', r.neesMean ?? '', r.white ?? '', r.gateRejections].join(','))].join('\n') + '\n'
         : JSON.stringify(rows, null, 1) + '\n';
-      writeFileSync(resolvePath(io.cwd, surfaceFile), text);
+      writeOutput('tune', surfaceOut, text);
     }
-    const svg = parsed.values.get('svg');
+    const svgOut = outputTarget('--svg', parsed.values.get('svg'), io.cwd);
     const best = result.surface.find((s) => s.q === result.recommended.qScale && s.r === result.recommended.rScale && s.gate === result.recommended.gateScale)!;
-    if (svg) writeFileSync(resolvePath(io.cwd, svg), surfaceHeatMap(result.surface, best, `Log tuning cost (${result.criterion.toUpperCase()})`));
+    if (svgOut) writeOutput('tune', svgOut, surfaceHeatMap(result.surface, best, `Log tuning cost (${result.criterion.toUpperCase()})`));
     if (json) {
       io.stdout(JSON.stringify({ criterion: result.criterion, recommended: { 'filter.qScale': result.recommended.qScale, 'filter.rScale': result.recommended.rScale, 'filter.gateScale': result.recommended.gateScale }, cost: result.cost, baselineCost: result.baseline.cost, evaluations: result.surface.length, caution: result.caution }, null, 1) + '\n');
     } else {

@@ -2,9 +2,6 @@
 // dist/notebooks/app.js; styles are inline so page and report share one stylesheet.
 import { PAGE_CSS } from './styles.js';
 
-export const SAFETY_CAUTION =
-  'Simulation results clear nothing for flight. Flight tests follow local aviation rules and licensed practice, with a safety pilot, geofence and kill switch.';
-
 export function hostPageHtml(): string {
   return `<!doctype html>
 <html lang="en">

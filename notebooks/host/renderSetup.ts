@@ -7,7 +7,7 @@ import { escapeXml } from '../figures/svg.js';
 import { studyById } from '../studies/studies.js';
 import type { Study } from '../studies/Study.js';
 import { downloadText } from './download.js';
-import { SAFETY_CAUTION } from './hostPage.js';
+import { SAFETY_CAUTION } from '../../estimator/safetyCaution.js';
 import { renderControl, renderSeed } from './renderControls.js';
 
 export interface SetupActions {

@@ -4,7 +4,7 @@
 import { VERSION } from '../../estimator/version.js';
 import { analysisToText, type Analysis } from '../analysis/Analysis.js';
 import { escapeXml } from '../figures/svg.js';
-import { SAFETY_CAUTION } from '../host/hostPage.js';
+import { SAFETY_CAUTION } from '../../estimator/safetyCaution.js';
 import { PAGE_CSS } from '../host/styles.js';
 import type { FigureOutput, Study } from '../studies/Study.js';
 import { withCaptions } from '../studies/figureOutput.js';

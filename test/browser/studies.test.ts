@@ -155,7 +155,7 @@ describe.skipIf(!runBrowserTests)('studies in chromium', () => {
     expect(reportValue(html, 'successRate0')).toBe(expected.successRate);
     expect(reportValue(html, 'wilsonLow0')).toBe(expected.wilsonLow);
     expect(reportValue(html, 'wilsonHigh0')).toBe(expected.wilsonHigh);
-    expect(html).toContain('Simulation results clear nothing for flight');
+    expect(html).toContain('clear nothing for flight');
     await cli(['sweep', 'scenario.json', '--vary', 'detector.pixelNoise=0.5,2,4,8', '--trials', '2', '--seed', '5', '--workers', '1', '--out', 'results.jsonl'], work);
     const summaries = JSON.parse(await cli(['summarize', 'results.jsonl', '--json'], work)) as PointSummary[];
     expect(summaries[0]!.successRate).toBe(expected.successRate);

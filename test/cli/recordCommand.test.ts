@@ -1,3 +1,4 @@
+import { SAFETY_CAUTION } from '../../estimator/safetyCaution.js';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -23,7 +24,7 @@ describe('alight record', () => {
     expect(recorded.err).toBe('');
     expect(recorded.code).toBe(0);
     expect(recorded.out).toContain('alight record: short approach (seed 9) -> log');
-    expect(recorded.out).toContain('clears nothing for flight');
+    expect(recorded.out).toContain(SAFETY_CAUTION);
     for (const f of ['camera.json', 'filter.json', 'boxes.csv', 'imu.csv', 'attitude.csv', 'odometry.csv', 'truth.csv', 'onboard.csv']) expect(existsSync(join(dir, 'log', f)), f).toBe(true);
     expect(readFileSync(join(dir, 'log', 'boxes.csv'), 'utf8').split('\n')[0]).toBe('time,arrival,xMin,yMin,xMax,yMax,score');
     const replay = JSON.parse((await run('replay', 'log', '--json')).out);

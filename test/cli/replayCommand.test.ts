@@ -83,7 +83,7 @@ describe('alight replay', () => {
     writeFileSync(join(dir, 'broken.json'), '{ "rScale": }');
     const broken = await run('replay', 'flight', '--filter', 'broken.json');
     expect(broken.code).toBe(2);
-    expect(broken.err).toMatch(/^broken.json:1:\d+: /);
+    expect(broken.err).toMatch(/^alight replay: broken.json:1:\d+: /);
   });
 
   it('reports bad rows with file, line and column and counts them as skipped', async () => {

@@ -1,3 +1,4 @@
+import { SAFETY_CAUTION } from '../../estimator/safetyCaution.js';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -46,7 +47,7 @@ describe('alight report', () => {
     const expected = summarizeGroup(params, records);
     expect(value(html, 'successRate0')).toBe(expected.successRate);
     expect(value(html, 'wilsonLow0')).toBe(expected.wilsonLow);
-    expect(html).toContain('Simulation results clear nothing for flight');
+    expect(html).toContain(SAFETY_CAUTION);
     expect(html.match(/<svg /g)!.length).toBeGreaterThanOrEqual(2);
     // Self-contained: no script and no external resource.
     expect(html).not.toMatch(/<script|<link |src="http|href="http/);
@@ -77,7 +78,7 @@ describe('alight report', () => {
     writeFileSync(join(work, 'bad.json'), JSON.stringify({ study: 'detection', scenario: defaultScenario(), parameters: { trials: 0 }, seed: 1.5, toolVersion: VERSION }));
     const { code, err } = await run(['report', 'bad.json', '--out', 'bad.html']);
     expect(code).toBe(2);
-    expect(err).toBe('bad.json: field "seed" must be a non-negative whole number, got 1.5\nbad.json: parameters.trials must be within [1, 60], got 0\n');
+    expect(err).toBe('alight report: bad.json: field "seed" must be a non-negative whole number, got 1.5\nalight report: bad.json: parameters.trials must be within [1, 60], got 0\n');
   });
 
   it('refuses a missing file and a missing argument with a message, exit 2', async () => {

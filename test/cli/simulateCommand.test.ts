@@ -1,3 +1,4 @@
+import { SAFETY_CAUTION } from '../../estimator/safetyCaution.js';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -44,7 +45,7 @@ describe('alight simulate', () => {
     expect(stdout).toMatch(/^alight simulate: survey rover \(seed 101\)\n {2}outcome {4}(landed|off-pad|hard-contact|aborted|timed-out|diverged)/);
     expect(stdout).toMatch(/\n {2}phases {5}acquire [\d.]+ s, trail [\d.]+ s, align [\d.]+ s, descend [\d.]+ s, touchdown [\d.]+ s\n/);
     expect(stdout).toMatch(/field of view 93\.7 x 77\.3 deg/); // fx = 300 px: 2 atan(320 / 300), 2 atan(240 / 300)
-    expect(stdout).toContain('Caution: simulation clears nothing for flight.');
+    expect(stdout).toContain(SAFETY_CAUTION);
   });
 
   it('writes a CSV trace with one row per step until touchdown', async () => {
@@ -87,10 +88,10 @@ describe('alight simulate', () => {
     expect(stdout).toBe('');
     expect(stderr).not.toMatch(/\bat \w+ \(/); // no stack frames
     expect(stderr.trim().split('\n')).toEqual([
-      'rover.scenario.json:4: detector.pixelNoise: must be >= 0, got -1',
-      'rover.scenario.json:6: detector.latencyy: unknown key (expected one of: rate, pixelNoise, sizeNoise, latency, latencyJitter, dropout, burst, falseBoxRate, edgeMargin)',
-      'rover.scenario.json:9: lander.maxTiltDeg: must be < 90, got 120',
-      'rover.scenario.json:12: guidance.law: must be one of "pid", "lqr", got "bang-bang"',
+      'alight simulate: rover.scenario.json:4: detector.pixelNoise: must be >= 0, got -1',
+      'alight simulate: rover.scenario.json:6: detector.latencyy: unknown key (expected one of: rate, pixelNoise, sizeNoise, latency, latencyJitter, dropout, burst, falseBoxRate, edgeMargin)',
+      'alight simulate: rover.scenario.json:9: lander.maxTiltDeg: must be < 90, got 120',
+      'alight simulate: rover.scenario.json:12: guidance.law: must be one of "pid", "lqr", got "bang-bang"',
     ]);
   });
 
@@ -99,10 +100,10 @@ describe('alight simulate', () => {
     writeFileSync(broken, '{\n  "version": 1,\n  "seed": 3\n  "duration": 10\n}\n');
     const a = await run(['simulate', broken]);
     expect(a.code).toBe(2);
-    expect(a.stderr).toBe("broken.scenario.json:4:3: not valid JSON: expected ',' or '}', found '\"'\n");
+    expect(a.stderr).toBe("alight simulate: broken.scenario.json:4:3: not valid JSON: expected ',' or '}', found '\"'\n");
     const b = await run(['simulate', join(dir, 'absent.scenario.json')]);
     expect(b.code).toBe(2);
-    expect(b.stderr).toMatch(/^absent\.scenario\.json: cannot read .*absent\.scenario\.json \(ENOENT\)\n$/);
+    expect(b.stderr).toMatch(/^alight simulate: absent\.scenario\.json: cannot read .*absent\.scenario\.json \(ENOENT\)\n$/);
   });
 
   it('checks its options', async () => {

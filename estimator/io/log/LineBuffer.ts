@@ -9,12 +9,14 @@ export class LineBuffer {
   /** True once the source is exhausted (buffered lines may remain). */
   done = false;
   private readonly iterator: AsyncIterator<string>;
+  private readonly input: AsyncIterable<string>;
   private readonly chunked: boolean;
   private buffer: string[] = [];
   private index = 0;
   private carry = '';
 
   constructor(input: AsyncIterable<string>, chunked: boolean) {
+    this.input = input;
     this.iterator = input[Symbol.asyncIterator]();
     this.chunked = chunked;
   }
@@ -62,6 +64,9 @@ export class LineBuffer {
     if (this.done) return;
     this.done = true;
     await this.iterator.return?.();
+    // A file stream never read from is not closed by return() (the iterator never started):
+    // destroy it, or it opens its file later anyway and leaks the handle.
+    (this.input as { destroy?: () => void }).destroy?.();
   }
 
   /** Next line, waiting for the source as needed; null at the end. */

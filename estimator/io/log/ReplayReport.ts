@@ -10,8 +10,6 @@ import type { WhitenessSummary } from './WhitenessAccumulator.js';
 /** Start-up uncertainty, the same the simulator's runTrial uses. */
 export const DEFAULT_INITIAL_SIGMA = { velocity: 1, accelBias: 0.2 };
 
-export const REPLAY_CAUTION = 'Replay and simulation results clear nothing for flight: fly under local aviation rules and licensed practice, with a safety pilot, geofence and kill switch.';
-
 export interface ReplaySettings {
   /** Partial FilterSpec applied over the log's filter.json (and the defaults). Validated. */
   filter?: Partial<FilterSpec>;

@@ -11,10 +11,11 @@ import { UnparsedJson, type LogSource } from './LogSource.js';
 import { LogStreamReader } from './LogStreamReader.js';
 import { LOG_STREAMS, REQUIRED_STREAMS, STREAM_SPECS, type LogStreamName } from './logStreams.js';
 import { parseLogCamera, type LogCamera } from './parseLogCamera.js';
-import { REPLAY_CAUTION, type ReplayReport, type ReplaySettings, type StreamRows } from './ReplayReport.js';
+import { SAFETY_CAUTION } from '../../safetyCaution.js';
+import { type ReplayReport, type ReplaySettings, type StreamRows } from './ReplayReport.js';
 import { whitenessSummary } from './WhitenessAccumulator.js';
 
-export { DEFAULT_INITIAL_SIGMA, REPLAY_CAUTION } from './ReplayReport.js';
+export { DEFAULT_INITIAL_SIGMA } from './ReplayReport.js';
 export type { ReplayReport, ReplaySettings, StreamRows } from './ReplayReport.js';
 
 /** Same-time rows apply in this order (attitude first, comparisons last): see README.md, "Flight-log layout". */
@@ -164,6 +165,6 @@ function report(source: LogSource, spec: FilterSpec, level: number, readers: Log
     divergence: r.divergences.length > 0 ? r.divergences[0]!.event : null,
     divergences: r.divergences,
     restarts: r.restarts,
-    caution: REPLAY_CAUTION,
+    caution: SAFETY_CAUTION,
   };
 }

@@ -6,7 +6,8 @@
 import type { FilterSpec } from '../../sim/Scenario.js';
 import { searchMultipliers, type Multipliers, type SearchOptions, type SurfaceSample } from '../../study/search.js';
 import type { LogSource } from './LogSource.js';
-import { replayFilterSpec, replayLog, REPLAY_CAUTION, type ReplayReport, type ReplaySettings } from './replayLog.js';
+import { SAFETY_CAUTION } from '../../safetyCaution.js';
+import { replayFilterSpec, replayLog, type ReplayReport, type ReplaySettings } from './replayLog.js';
 
 export type TuneCriterion = 'nis' | 'nees';
 
@@ -105,6 +106,6 @@ export async function tuneLogSource(source: LogSource, options: TuneLogOptions =
     baseline: { cost: tuneCost(baselineReport, criterion), report: baselineReport },
     best: reports.get(`${result.best.q},${result.best.r},${result.best.gate}`)!,
     surface,
-    caution: REPLAY_CAUTION,
+    caution: SAFETY_CAUTION,
   };
 }

@@ -35,7 +35,7 @@ export function defaultScenario(): Scenario {
       maxTiltDeg: 30,
       maxSpeed: 15,
       maxVerticalSpeed: 2,
-      wind: { speed: 0, directionDeg: 0, turbulence: 'none' },
+      wind: { speed: 0, directionDeg: 0, turbulence: 'none', gusts: [] },
     },
     camera: {
       intrinsics: { fx: 320, fy: 320, cx: 320, cy: 240 },
@@ -54,6 +54,7 @@ export function defaultScenario(): Scenario {
       burst: null,
       falseBoxRate: 0,
       edgeMargin: 4,
+      script: [],
     },
     localization: {
       attitudeBiasDeg: 0.3,

@@ -95,6 +95,9 @@ function crossFieldProblems(s: Scenario, raw: Record<string, unknown>): [string,
   for (const [p, v] of [['detector.rate', s.detector.rate], ['localization.imuRate', s.localization.imuRate], ['localization.odometryRate', s.localization.odometryRate]] as const) {
     if (v > rate) out.push([p, `must be <= filter.rate (${rate} Hz), got ${v}`]);
   }
+  (s.detector.script ?? []).forEach((e, i) => {
+    if (e.kind === 'latency' && e.latency === undefined) out.push([`detector.script.${i}.latency`, 'a latency event needs its delay "latency" (s)']);
+  });
   if (s.guidance.flareHeight >= s.guidance.trailHeight) {
     out.push(['guidance.flareHeight', `must be < guidance.trailHeight (${s.guidance.trailHeight} m), got ${s.guidance.flareHeight}`]);
   }

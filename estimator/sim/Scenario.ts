@@ -68,6 +68,20 @@ export interface WindSpec {
   directionDeg: number;
   /** Dryden turbulence intensity (MIL-F-8785C low-altitude W20: light 15 kt, moderate 30 kt, severe 45 kt). */
   turbulence: TurbulenceLevel;
+  /** Scripted discrete gusts on top of the turbulence (for constructed studies); [] = none. */
+  gusts?: ScriptedGust[];
+}
+
+/**
+ * A discrete "1 - cosine" gust (common practice for a single gust): starting at `time` (s) it
+ * rises and falls over `duration` (s), peaking at `speed` (m/s, horizontal) towards `directionDeg`
+ * (deg from East, CCW):  v(t) = speed/2 (1 - cos(2 pi (t - time) / duration)).
+ */
+export interface ScriptedGust {
+  time: number;
+  duration: number;
+  speed: number;
+  directionDeg: number;
 }
 
 export interface LanderSpec {
@@ -118,6 +132,21 @@ export interface BurstLoss {
   exit: number;
 }
 
+/**
+ * A scripted detector event over the frames captured in [time, time + duration) (s):
+ *   dropout:   the carrier's box is lost (its loss is 'scripted');
+ *   latency:   every such frame arrives `latency` (s) after capture instead of the usual delay;
+ *   false-box: the detector reports a box of the carrier's size half an image away instead of
+ *              the carrier (a confusable object), flagged falseBox.
+ */
+export interface DetectorEvent {
+  kind: 'dropout' | 'latency' | 'false-box';
+  time: number;
+  duration: number;
+  /** latency only: arrival delay (s). */
+  latency?: number;
+}
+
 export interface DetectorSpec {
   /** Frame rate (Hz). */
   rate: number;
@@ -135,6 +164,8 @@ export interface DetectorSpec {
   falseBoxRate: number;
   /** A box whose true outline comes closer than this to the image edge is lost (px). */
   edgeMargin: number;
+  /** Scripted events (constructed studies of a known cause); [] = none. */
+  script?: DetectorEvent[];
 }
 
 export interface LocalizationSpec {

@@ -32,7 +32,7 @@ describe('parseScenario', () => {
       '}',
     ].join('\n');
     expect(problems(text)).toEqual([
-      'rover.scenario.json:3: detector.colour: unknown key (expected one of: rate, pixelNoise, sizeNoise, latency, latencyJitter, dropout, burst, falseBoxRate, edgeMargin)',
+      'rover.scenario.json:3: detector.colour: unknown key (expected one of: rate, pixelNoise, sizeNoise, latency, latencyJitter, dropout, burst, falseBoxRate, edgeMargin, script)',
       'rover.scenario.json:3: detector.rate: must be number, got "fast"',
       'rover.scenario.json:3: detector.pixelNoise: must be >= 0, got -1',
       'rover.scenario.json:4: carrier.kind: must be one of "ground", "boat", "aircraft", got "bus"',

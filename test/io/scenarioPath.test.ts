@@ -17,7 +17,7 @@ describe('setPath', () => {
 
   it('refuses an unknown path with the fields that do exist', () => {
     expect(() => setPath(base, 'detector.pixelNose', 3)).toThrow(
-      'unknown scenario field "detector.pixelNose" (detector has: rate, pixelNoise, sizeNoise, latency, latencyJitter, dropout, burst, falseBoxRate, edgeMargin)',
+      'unknown scenario field "detector.pixelNose" (detector has: rate, pixelNoise, sizeNoise, latency, latencyJitter, dropout, burst, falseBoxRate, edgeMargin, script)',
     );
     expect(() => setPath(base, 'detector.rate.x', 3)).toThrow('unknown scenario field "detector.rate.x" (detector.rate is a value, not a section)');
   });

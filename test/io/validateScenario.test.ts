@@ -5,7 +5,7 @@ import { validateScenario } from '../../estimator/io/validateScenario.js';
 describe('validateScenario', () => {
   it('fills defaults into a parsed object and deep-freezes the result', () => {
     const s = validateScenario({ version: 1, lander: { wind: { speed: 4 } } }, 'obj');
-    expect(s.lander.wind).toEqual({ speed: 4, directionDeg: 0, turbulence: 'none' });
+    expect(s.lander.wind).toEqual({ speed: 4, directionDeg: 0, turbulence: 'none', gusts: [] });
     expect(s.lander.maxSpeed).toBe(defaultScenario().lander.maxSpeed);
     expect(Object.isFrozen(s.lander.wind)).toBe(true);
     expect(Object.isFrozen(s.lander.startOffset)).toBe(true);

@@ -7,11 +7,12 @@ import { RandomStream } from '../../random/RandomStream.js';
 import type { DetectorSpec } from '../Scenario.js';
 import type { CarrierState } from './carrierPath.js';
 import { CarrierOutline, type CarrierDimensions, type LanderPose, type MountedCamera } from './carrierOutline.js';
+import { DetectorScript } from './detectorScript.js';
 import { GilbertElliott } from './gilbertElliott.js';
 import { poissonCount } from './poissonCount.js';
 
 /** Why the carrier gave no box in a frame. */
-export type DetectionLoss = 'behind-camera' | 'outside-image' | 'edge' | 'dropout' | 'burst' | null;
+export type DetectionLoss = 'behind-camera' | 'outside-image' | 'edge' | 'dropout' | 'burst' | 'scripted' | null;
 
 export interface DetectorTruth {
   /** The true outline lies in the image, inside the edge margin. */
@@ -80,6 +81,8 @@ export class Detector {
   private readonly latency: RandomStream;
   private readonly clutter: RandomStream;
   private readonly burst: GilbertElliott | null;
+  /** Scripted events (detector.script), null when there are none. */
+  private readonly script: DetectorScript | null;
   private readonly raw: Box = emptyBox();
 
   /**
@@ -98,8 +101,9 @@ export class Detector {
     this.clutter = RandomStream.childOf(stream);
     const burstStream = RandomStream.childOf(stream);
     this.burst = spec.burst ? new GilbertElliott(spec.burst.enter, spec.burst.exit, burstStream) : null;
+    this.script = spec.script && spec.script.length > 0 ? new DetectorScript(spec.script) : null;
     const perFrame = 1 + 2 * spec.falseBoxRate * this.frameInterval + 1;
-    const window = spec.rate * (spec.latency + 6 * spec.latencyJitter + 1);
+    const window = spec.rate * (Math.max(spec.latency, this.script ? this.script.maxLatency : 0) + 6 * spec.latencyJitter + 1);
     this.frameRingSize = Math.max(MIN_FRAME_RING, Math.ceil(window * perFrame) + 64);
     for (let i = 0; i < this.frameRingSize; i++) this.ring.push(createFrame());
   }
@@ -146,10 +150,16 @@ export class Detector {
     const du = this.noise.gaussian(), dv = this.noise.gaussian(), ds = this.noise.gaussian();
     const dropped = this.dropout.uniform() < spec.dropout;
     const burstLost = this.burst ? this.burst.lost() : false;
-    const delay = Math.max(0, spec.latency + (spec.latencyJitter > 0 ? spec.latencyJitter * this.latency.gaussian() : 0));
+    let delay = Math.max(0, spec.latency + (spec.latencyJitter > 0 ? spec.latencyJitter * this.latency.gaussian() : 0));
+    const script = this.script;
+    if (script !== null) {
+      const scripted = script.latencyAt(tCapture);
+      if (scripted === scripted) delay = scripted; // not NaN
+    }
     if (loss === null && dropped) loss = 'dropout';
     if (loss === null && burstLost) loss = 'burst';
-    truth.visible = loss === null || loss === 'dropout' || loss === 'burst';
+    if (loss === null && script !== null && script.lostAt(tCapture)) loss = 'scripted';
+    truth.visible = loss === null || loss === 'dropout' || loss === 'burst' || loss === 'scripted';
     truth.loss = loss;
     const arrival = Math.max(tCapture + delay, this.lastArrival);
     this.lastArrival = arrival;
@@ -157,8 +167,14 @@ export class Detector {
     let detection: DetectorFrame | null = null;
     if (loss === null) {
       // centre noise (px) and fractional size noise on the clipped true box
-      const u = (truth.box.xMin + truth.box.xMax) / 2 + spec.pixelNoise * du;
-      const v = (truth.box.yMin + truth.box.yMax) / 2 + spec.pixelNoise * dv;
+      let u = (truth.box.xMin + truth.box.xMax) / 2 + spec.pixelNoise * du;
+      let v = (truth.box.yMin + truth.box.yMax) / 2 + spec.pixelNoise * dv;
+      // scripted confusion: the carrier's box moved half an image away (wrapped), reported as if it were the carrier
+      const confused = script !== null && script.falseBoxAt(tCapture);
+      if (confused) {
+        u = (u + W / 2) % W;
+        v = (v + H / 2) % H;
+      }
       const factor = Math.max(MIN_SIZE_FACTOR, 1 + spec.sizeNoise * ds);
       const halfW = ((truth.box.xMax - truth.box.xMin) * factor) / 2;
       const halfH = ((truth.box.yMax - truth.box.yMin) * factor) / 2;
@@ -168,7 +184,11 @@ export class Detector {
       frame.box.xMax = Math.min(u + halfW, W);
       frame.box.yMax = Math.min(v + halfH, H);
       if (frame.box.xMax > frame.box.xMin && frame.box.yMax > frame.box.yMin) {
-        this.fill(frame, tCapture, arrival, false);
+        this.fill(frame, tCapture, arrival, confused);
+        if (confused) {
+          this.falseBoxTotal++;
+          truth.loss = 'scripted';
+        }
         detection = frame;
       } else {
         truth.loss = 'edge'; // noise pushed the box off the image

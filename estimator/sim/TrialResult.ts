@@ -1,3 +1,5 @@
+import type { FailureCause, FailureEvent } from './attribution/FailureEvent.js';
+
 // What one closed-loop trial reports. Field names are promises to users' scripts
 // (`alight simulate --json`, sweep JSON Lines): keep them.
 
@@ -40,4 +42,11 @@ export interface TrialResult {
   aborts: number;
   /** Named filter event if the estimate diverged (e.g. 'covariance-not-positive-definite'). */
   divergence: string | null;
+  /**
+   * Why a trial that did not land failed, by the rule in sim/attribution/attributeFailure.ts;
+   * null when it landed. Absent in results written before attribution existed.
+   */
+  cause?: FailureCause | null;
+  /** The cause and the events after it (time s, phase, true height above the deck m, value); [] when it landed. */
+  causeChain?: FailureEvent[];
 }

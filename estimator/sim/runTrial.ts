@@ -10,6 +10,8 @@ import { RandomStream, streamId } from '../random/RandomStream.js';
 import type { TrialRecorder } from '../io/log/TrialRecorder.js';
 import type { Scenario } from './Scenario.js';
 import type { Phase, TrialResult } from './TrialResult.js';
+import { attributeFailure } from './attribution/attributeFailure.js';
+import { FailureLog } from './attribution/FailureLog.js';
 import { createGuidance } from './guidance.js';
 import { blindHeight, LandingSupervisor, type SupervisorInput } from './supervisor.js';
 import { judgeTouchdown } from './touchdown.js';
@@ -21,6 +23,7 @@ import { Detector, type DetectorFrame } from './world/detector.js';
 import { DrydenGust } from './world/dryden.js';
 import { LanderDynamics } from './world/landerDynamics.js';
 import { LocalizationError } from './world/localizationError.js';
+import { ScriptedGusts } from './world/scriptedGusts.js';
 
 export type { TraceRow } from './trace.js';
 export { blindHeight } from './supervisor.js';
@@ -39,6 +42,8 @@ export interface TrialOptions {
   onStep?: (row: TraceRow) => void;
   /** Receives every input the filter saw, plus truth and estimates (for `alight record`). */
   recorder?: TrialRecorder;
+  /** Record events and name the cause of a failure (default true; false only to time the trial without it). */
+  attribution?: boolean;
 }
 
 const DEG = Math.PI / 180;
@@ -81,8 +86,11 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   const believed = errors.believedCamera(scenario.camera);
   const targetSize = errors.believedTargetSize(carrierSpec);
   const filter = new LandingFilter(filterSpec, believed, targetSize);
-  const supervisor = new LandingSupervisor(scenario.guidance, landerSpec, guidance, blindHeight(believed, carrierSpec.deckLength, carrierSpec.deckWidth, detectorSpec.edgeMargin));
+  const blind = blindHeight(believed, carrierSpec.deckLength, carrierSpec.deckWidth, detectorSpec.edgeMargin);
+  const supervisor = new LandingSupervisor(scenario.guidance, landerSpec, guidance, blind);
   const st = new TrialState(filter.n);
+  const log = options.attribution === false ? null : new FailureLog(scenario, blind);
+  const scripted = landerSpec.wind.gusts && landerSpec.wind.gusts.length > 0 ? new ScriptedGusts(landerSpec.wind.gusts) : null;
   st.command.set(cs.velocity);
   const contact = createDeckContact();
   const pending: DetectorFrame[] = new Array<DetectorFrame>(PENDING);
@@ -104,6 +112,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     const airspeed = Math.sqrt(ax * ax + ay * ay); // not Math.hypot: slow and allocating per step
     gust.step(dt, Math.max(ls.position[2]!, 1), airspeed, st.wind);
     for (let k = 0; k < 3; k++) st.wind[k] = st.wind[k]! + meanWind[k]!;
+    if (scripted) scripted.add(t, st.wind);
     lander.step(dt, st.command, st.wind, ls);
     carrier.stateAt(t, cs);
     deckContact(ls, cs, carrierSpec.deckLength, carrierSpec.deckWidth, contact);
@@ -145,6 +154,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       nextCapture += capturePeriod;
       const frame = detector.observe(t, ls, cs);
       st.noteOutline(detector.lastTruth.box);
+      log?.capture(t, frame, detector.lastTruth);
       if (frame) st.boxes++;
       else if (detector.lastTruth.visible) st.dropped++;
       if (frame && pendingCount < PENDING) pending[(pendingHead + pendingCount++) % PENDING] = frame;
@@ -164,6 +174,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       // starts nothing (a box 0.8 s old placed at its arrival flew the lander into the deck).
       if (!initialized || reacquire || filter.diverged) {
         if (acquire(filter, st, frame.box, t, stamp, filterSpec.historyLength)) {
+          log?.acquired(t, frame.falseBox, initialized);
           initialized = true;
           reacquire = false;
           guidance.reset();
@@ -171,7 +182,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
         }
         continue;
       }
-      if (updateWithBox(filter, st, frame.box, stamp)) lastSeen = t;
+      if (updateWithBox(filter, st, frame, stamp, log, t)) lastSeen = t;
     }
     // estimate -> supervisor -> command for the next step
     const x = filter.x;
@@ -186,9 +197,11 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     if (supervisor.aborts > abortsSeen) {
       abortsSeen = supervisor.aborts;
       reacquire = true;
+      log?.abort(t, supervisor.lastAbort);
       recorder?.reset?.(t); // a bit-exact replay of a restarted trial needs it
     }
     st.addPhaseTime(phase, dt);
+    log?.step(t, phase, st.rTrue, st.wind, input);
     for (let k = 0; k < 3; k++) st.vLTrue[k] = ls.velocity[k]!;
     if (input.valid && Math.abs(filter.time - t) < eps + 1e-12) {
       st.errors.add(x, filter.P, filter.n, st.rTrue, st.vCTrue, st.vLTrue);
@@ -197,13 +210,19 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     if (onStep) onStep(st.row(t, phase, input.valid ? x : null, input.valid ? filter.P : null));
   }
 
-  return st.result({
+  const result = st.result({
     touchdown: touchdownTime === null ? null : judgeTouchdown(scenario.envelope, contact),
     touchdownTime,
     aborts: supervisor.aborts,
     lastAbort: supervisor.lastAbort,
     falseBoxes: detector.falseBoxTotal,
   });
+  if (log) {
+    const attribution = attributeFailure(result.outcome === 'landed' ? [] : log.events(), result.outcome, touchdownTime ?? steps * dt);
+    result.cause = attribution.cause;
+    result.causeChain = attribution.causeChain;
+  }
+  return result;
 }
 
 /** A subsystem's random stream: from the trial key and the stream's name alone. */
@@ -232,10 +251,12 @@ function acquire(filter: LandingFilter, st: TrialState, box: Box, t: number, sta
   return filter.initializeFromBox(t, box, st.qEstimate, st.odometry, INITIAL_SIGMA).status === 'accepted';
 }
 
-/** Box update at its (clamped) capture stamp, tallied in st; true when the filter accepted it. */
-function updateWithBox(filter: LandingFilter, st: TrialState, box: Box, stamp: number): boolean {
+/** Box update at its (clamped) capture stamp, tallied in st (and the log); true when the filter accepted it. */
+function updateWithBox(filter: LandingFilter, st: TrialState, frame: DetectorFrame, stamp: number, log: FailureLog | null, t: number): boolean {
+  const box = frame.box;
   const r = filter.updateBox(Math.min(stamp, filter.time), box);
   st.noteUpdate(box, r);
+  log?.box(t, frame.falseBox, r.status);
   if (r.status === 'accepted') {
     st.addNis(r.nis);
     return true;

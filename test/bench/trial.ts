@@ -2,6 +2,8 @@
 // camera 30 Hz, every impairment of the demo on). Landing is held off (alignTime = duration)
 // so every trial flies the full 60 s; 10 seeded trials per demo scenario, 50 in all.
 // cpuMsZeroLatency: the same trials with detector latency 0 (no delayed-box re-propagation).
+// cpuMsNoAttribution: the same trials without the failure-attribution log (runTrial's
+// `attribution: false`); attributionShare = cpuMs / cpuMsNoAttribution - 1 (promise: < 10 %).
 //
 // Every scenario is warmed up before any is timed: process CPU time includes V8's background
 // compiler threads, so a trial timed while the code still tiers up (the first scenario, or the
@@ -32,9 +34,9 @@ function median(values: number[]): number {
 }
 
 /** CPU ms of one trial (process CPU: user + system, all threads). */
-function cpuOf(scenario: Scenario, trial: number): number {
+function cpuOf(scenario: Scenario, trial: number, attribution = true): number {
   const start = process.cpuUsage();
-  runTrial(scenario, { key: { seed: 1, point: 0, trial } });
+  runTrial(scenario, { key: { seed: 1, point: 0, trial }, attribution });
   const used = process.cpuUsage(start);
   return (used.user + used.system) / 1000;
 }
@@ -54,11 +56,13 @@ export const trialBench: BenchSection = {
       for (let i = 0; i < scenarios.length; i++) {
         runTrial(scenarios[i]!, { key: { seed: 999, point: 0, trial: round } });
         runTrial(prompt[i]!, { key: { seed: 999, point: 0, trial: round } });
+        runTrial(scenarios[i]!, { key: { seed: 999, point: 0, trial: round }, attribution: false });
       }
     }
     const count = scenarios.length * TRIALS_PER_DEMO;
     const best = new Array<number>(count).fill(Infinity);
     const bestPrompt = new Array<number>(count).fill(Infinity);
+    const bestPlain = new Array<number>(count).fill(Infinity);
     const perRound: number[] = [];
     for (let round = 0; round < ROUNDS; round++) {
       const mine: number[] = [];
@@ -72,6 +76,10 @@ export const trialBench: BenchSection = {
         for (let trial = 0; trial < TRIALS_PER_DEMO; trial++) {
           const k = i * TRIALS_PER_DEMO + trial;
           bestPrompt[k] = Math.min(bestPrompt[k]!, cpuOf(prompt[i]!, trial));
+        }
+        for (let trial = 0; trial < TRIALS_PER_DEMO; trial++) {
+          const k = i * TRIALS_PER_DEMO + trial;
+          bestPlain[k] = Math.min(bestPlain[k]!, cpuOf(scenarios[i]!, trial, false));
         }
       }
       perRound.push(round2(median(mine)));
@@ -91,6 +99,8 @@ export const trialBench: BenchSection = {
       cpuMs: round2(median(best)),
       stepsPerSec: Math.round(steps / (totalMs / 1000)),
       cpuMsZeroLatency: round2(median(bestPrompt)),
+      cpuMsNoAttribution: round2(median(bestPlain)),
+      attributionShare: round2(median(best) / median(bestPlain) - 1),
       cpuMsPerRound: perRound,
       perScenarioCpuMs: perScenario,
     };

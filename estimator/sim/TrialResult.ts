@@ -1,13 +1,13 @@
-import type { FailureCause, FailureEvent } from './attribution/FailureEvent.js';
-
 // What one closed-loop trial reports. Field names are promises to users' scripts
 // (`alight simulate --json`, sweep JSON Lines): keep them.
+import type { FailureCause, FailureEvent } from './attribution/FailureEvent.js';
+import type { Phase } from './Phase.js';
+
 
 export type Outcome = 'landed' | 'off-pad' | 'hard-contact' | 'aborted' | 'timed-out' | 'diverged';
 export const OUTCOMES: readonly Outcome[] = ['landed', 'off-pad', 'hard-contact', 'aborted', 'timed-out', 'diverged'];
 
-export type Phase = 'acquire' | 'trail' | 'align' | 'descend' | 'touchdown';
-export const PHASES: readonly Phase[] = ['acquire', 'trail', 'align', 'descend', 'touchdown'];
+export { PHASES, type Phase } from './Phase.js';
 
 export interface TrialResult {
   outcome: Outcome;

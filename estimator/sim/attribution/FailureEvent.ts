@@ -1,6 +1,6 @@
 // The events a trial records for failure attribution, and the cause it is given.
 // Kinds are small integers in the trial's event log (FailureLog) and names in results.
-import type { Phase } from '../TrialResult.js';
+import type { Phase } from '../Phase.js';
 
 /**
  * External events that can start a failure ("triggers"), then what follows from them

@@ -12,7 +12,7 @@
 import type { DetectorFrame, DetectorTruth } from '../world/detector.js';
 import { drydenScalesInto, W20_KNOTS } from '../world/dryden.js';
 import type { Scenario } from '../Scenario.js';
-import { PHASES, type Phase } from '../TrialResult.js';
+import { PHASES, type Phase } from '../Phase.js';
 import type { UpdateStatus } from '../../models/LandingFilter.js';
 import { EV_ABORT, EV_ACQUIRED, EV_BLIND, EV_BURST, EV_DIVERGENCE, EV_FALSE_BOX, EV_FUNNEL, EV_GATED, EV_GUST, EV_LATENCY, EVENT_NAMES, type FailureEvent } from './FailureEvent.js';
 

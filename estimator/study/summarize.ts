@@ -1,6 +1,7 @@
 // Per sweep point statistics of a results file: success with Wilson interval, miss CEP,
 // time to land, outcome counts and filter consistency (NEES/NIS) with its verdict.
 import { OUTCOMES, type Outcome } from '../sim/TrialResult.js';
+import { failureCauses, type CauseCount } from './failureCauses.js';
 import { cep } from './statistics/cep.js';
 import { neesVerdict, type Consistency } from './statistics/neesVerdict.js';
 import { percentile } from './statistics/percentile.js';
@@ -43,6 +44,8 @@ export interface PointSummary {
   nisVerdict: Consistency | null;
   /** Mean RMS error of the relative position estimate (m). */
   positionRmse: number | null;
+  /** Failed trials by attributed cause, with Wilson 95 % intervals and a trial of each to replay. */
+  causes: CauseCount[];
 }
 
 export class SummaryError extends Error {
@@ -68,8 +71,8 @@ function consistency(values: number[], dims: number[]) {
   return { mean: m, dim, low: v.low, high: v.high, verdict: v.verdict };
 }
 
-/** Statistics of one group of trial records. */
-export function summarizeGroup(point: Params, records: readonly SweepRecord[]): PointSummary {
+/** Statistics of one group of trial records; `seed` (the sweep's) goes into the causes' trial keys. */
+export function summarizeGroup(point: Params, records: readonly SweepRecord[], seed = 0): PointSummary {
   const trials = records.length;
   const outcomes = Object.fromEntries(OUTCOMES.map((o) => [o, 0])) as Record<Outcome, number>;
   const misses: number[] = [];
@@ -111,6 +114,7 @@ export function summarizeGroup(point: Params, records: readonly SweepRecord[]): 
     neesMean: n.mean, neesDim: n.dim, neesLow: n.low, neesHigh: n.high, neesVerdict: n.verdict,
     nisMean: s.mean, nisDim: s.dim, nisLow: s.low, nisHigh: s.high, nisVerdict: s.verdict,
     positionRmse: mean(rmse),
+    causes: failureCauses(records, seed),
   };
 }
 
@@ -135,13 +139,13 @@ export function summarize(header: SweepHeader, records: readonly SweepRecord[], 
       group.records.push(r);
       groups.set(key, group);
     }
-    return [...groups.values()].sort((a, b) => compareValues(a.value, b.value)).map((g) => summarizeGroup({ [by]: g.value }, g.records));
+    return [...groups.values()].sort((a, b) => compareValues(a.value, b.value)).map((g) => summarizeGroup({ [by]: g.value }, g.records, header.seed));
   }
   const byPoint: SweepRecord[][] = header.points.map(() => []);
   for (const r of records) byPoint[r.point]!.push(r);
   const out: PointSummary[] = [];
   byPoint.forEach((group, i) => {
-    if (group.length > 0) out.push(summarizeGroup(header.points[i]!, group.sort((a, b) => a.trial - b.trial)));
+    if (group.length > 0) out.push(summarizeGroup(header.points[i]!, group.sort((a, b) => a.trial - b.trial), header.seed));
   });
   return out;
 }

@@ -1,5 +1,7 @@
 // Summaries as text for a terminal and as CSV for spreadsheets (RFC 4180 quoting).
+import { FAILURE_CAUSES } from '../sim/attribution/FailureEvent.js';
 import { OUTCOMES } from '../sim/TrialResult.js';
+import { NOT_ATTRIBUTED } from './failureCauses.js';
 import type { PointSummary } from './summarize.js';
 
 function fixed(v: number | null, digits: number): string {
@@ -30,7 +32,17 @@ export function summaryTable(summaries: readonly PointSummary[]): string {
   const line = (cells: string[]) => cells.map((c, i) => (i === 0 ? c.padEnd(widths[i]!) : c.padStart(widths[i]!))).join('  ');
   const failures = summaries.filter((s) => s.trials - s.landed > 0);
   const notes = failures.length > 0 ? `\noutcomes: ${OUTCOMES.map((o) => `${o} ${summaries.reduce((n, s) => n + s.outcomes[o], 0)}`).join(', ')}` : '';
-  return [line(head), ...rows.map(line)].join('\n') + notes + '\n';
+  return [line(head), ...rows.map(line)].join('\n') + notes + '\n' + causeLines(failures);
+}
+
+/**
+ * Failures by cause, one line per point that had any:
+ *   point  cause count (Wilson 95 % of the rate) trial key, ...
+ */
+function causeLines(failures: readonly PointSummary[]): string {
+  if (failures.length === 0) return '';
+  const lines = failures.map((s) => `${pointLabel(s)}: ` + s.causes.map((c) => `${c.cause} ${c.count} (${fixed(c.wilsonLow, 3)}-${fixed(c.wilsonHigh, 3)}, e.g. trial ${c.example.point}/${c.example.trial})`).join('; '));
+  return `failures by cause (count, Wilson 95 % of the rate, example point/trial):\n${lines.join('\n')}\n`;
 }
 
 function csvCell(v: unknown): string {
@@ -39,12 +51,14 @@ function csvCell(v: unknown): string {
   return /[",\n]/.test(text) ? `"${text.replaceAll('"', '""')}"` : text;
 }
 
-/** CSV with one column per varied path, then the statistics; outcome counts as outcome.<name>. */
+/** CSV with one column per varied path, then the statistics; outcome counts as outcome.<name>, failure causes as cause.<name>. */
 export function summaryCsv(summaries: readonly PointSummary[], paths: readonly string[]): string {
   const stats = ['trials', 'landed', 'successRate', 'wilsonLow', 'wilsonHigh', 'ruleOfThreeLow', 'contacts', 'cep50', 'cep95',
     'timeToLandP10', 'timeToLandP50', 'timeToLandP90', 'neesMean', 'neesDim', 'neesLow', 'neesHigh', 'neesVerdict',
     'nisMean', 'nisDim', 'nisLow', 'nisHigh', 'nisVerdict', 'positionRmse'] as const;
-  const head = [...paths, ...stats, ...OUTCOMES.map((o) => `outcome.${o}`)];
-  const rows = summaries.map((s) => [...paths.map((p) => s.point[p]), ...stats.map((k) => s[k]), ...OUTCOMES.map((o) => s.outcomes[o])]);
+  const causes = [...FAILURE_CAUSES, NOT_ATTRIBUTED];
+  const head = [...paths, ...stats, ...OUTCOMES.map((o) => `outcome.${o}`), ...causes.map((c) => `cause.${c}`)];
+  const count = (s: PointSummary, c: string) => s.causes.find((x) => x.cause === c)?.count ?? 0;
+  const rows = summaries.map((s) => [...paths.map((p) => s.point[p]), ...stats.map((k) => s[k]), ...OUTCOMES.map((o) => s.outcomes[o]), ...causes.map((c) => count(s, c))]);
   return [head, ...rows].map((r) => r.map(csvCell).join(',')).join('\n') + '\n';
 }

@@ -1,5 +1,6 @@
 // `alight replay <log-folder> [--filter settings.json] [--out estimates.csv] [--json]`: run the
 // landing filter over a flight log and judge it from its innovations (and truth, if logged).
+import { consistencyWords } from '../study/statistics/ensembleConsistency.js';
 import { readFileSync } from 'node:fs';
 import { isAbsolute, join } from 'node:path';
 import { jsonLines, JsonSyntaxError } from '../io/jsonPositions.js';
@@ -55,7 +56,8 @@ const f = (v: number | null, digits = 2) => (v === null || !Number.isFinite(v) ?
 
 function nisLine(label: string, s: NisSummary): string {
   if (s.count === 0) return `  ${label.padEnd(11)}no accepted updates${s.gated ? `, ${s.gated} gated` : ''}`;
-  const verdict = s.consistent ? 'inside' : s.mean! < s.bounds![0] ? 'BELOW (assumed noise too large?)' : 'ABOVE (assumed noise too small?)';
+  // The verdict in the words every output shares (page, report, summarize): same rule, same sentence.
+  const verdict = consistencyWords(s.consistent ? 'consistent' : s.mean! < s.bounds![0] ? 'under-confident' : 'over-confident');
   return `  ${label.padEnd(11)}${f(s.mean)} (dim ${s.dim}, ${s.count} updates), 95 % bounds [${f(s.bounds![0])}, ${f(s.bounds![1])}]: ${verdict}; ${s.gated} gated`;
 }
 

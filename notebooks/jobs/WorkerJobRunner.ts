@@ -1,6 +1,10 @@
 // Browser only: runs each job in its own module Web Worker (dist/notebooks/worker.js), at most
 // `concurrency` at a time, and reports activity for the progress bar. Cancel = terminate.
+// A sweep is split into one interleaved part per core and its parts merged as they report, so a
+// study of hundreds of trials per point uses every core the browser offers; the merged results
+// are the very records, summaries and file one worker would give.
 import type { JobState } from './JobState.js';
+import { mergeSweepParts, splitSweep, type SweepInput, type SweepOutput } from './sweepJob.js';
 import { StateChannel, type JobRunner, type JobStates } from './JobRunner.js';
 import type { JobInput, JobKind, JobOutput } from './jobTable.js';
 import type { WorkerMessage } from './protocol.js';
@@ -43,6 +47,52 @@ export class WorkerJobRunner implements JobRunner {
   }
 
   run<K extends JobKind>(kind: K, input: JobInput<K>, label: string): JobStates<JobOutput<K>> {
+    if (kind === 'sweep' && this.concurrency > 1) return this.runSplit(input as SweepInput, label) as unknown as JobStates<JobOutput<K>>;
+    return this.runOne(kind, input, label);
+  }
+
+  /** One sweep as parts on several workers, seen as one job. */
+  private runSplit(input: SweepInput, label: string): JobStates<SweepOutput> {
+    const parts = splitSweep(input, this.concurrency);
+    const states: JobState<SweepOutput>[] = parts.map(() => ({ done: 0, total: 0, value: null, final: false, cancelled: false, error: null }));
+    const channels: JobStates<SweepOutput>[] = [];
+    const merged = new StateChannel<SweepOutput>(() => {
+      for (const c of channels) void c.return?.();
+    });
+    const publish = (): void => {
+      const final = states.every((s) => s.final);
+      merged.push({
+        done: states.reduce((sum, s) => sum + s.done, 0),
+        total: states.reduce((sum, s) => sum + s.total, 0),
+        value: states.some((s) => s.value !== null) ? mergeSweepParts(input, states.map((s) => s.value)) : null,
+        final,
+        cancelled: states.some((s) => s.cancelled),
+        error: states.find((s) => s.error !== null)?.error ?? null,
+      });
+    };
+    parts.forEach((part, k) => {
+      const channel = this.runOne('sweep', part, label);
+      channels.push(channel);
+      void (async () => {
+        for await (const state of channel) {
+          states[k] = state;
+          // One part failing fails the sweep: stop the others rather than finish work no one reads.
+          if (state.error !== null) {
+            channels.forEach((c, j) => {
+              if (j !== k && !states[j]!.final) {
+                states[j] = { ...states[j]!, final: true };
+                void c.return?.();
+              }
+            });
+          }
+          publish();
+        }
+      })();
+    });
+    return merged;
+  }
+
+  private runOne<K extends JobKind>(kind: K, input: JobInput<K>, label: string): JobStates<JobOutput<K>> {
     const id = this.nextId++;
     let worker: Worker | null = null;
     let last: JobState<JobOutput<K>> = { done: 0, total: 0, value: null, final: false, cancelled: false, error: null };

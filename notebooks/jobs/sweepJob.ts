@@ -19,6 +19,8 @@ export interface SweepInput {
   trials: number;
   /** Summaries pooled by one varied path (summarize --by); omit for one summary per point. */
   by?: string;
+  /** Run only every `count`-th trial starting at `index` (the page splits a sweep over its cores). */
+  part?: { index: number; count: number };
 }
 
 export interface SweepOutput {
@@ -27,6 +29,15 @@ export interface SweepOutput {
   records: SweepRecord[];
   /** The JSON Lines results file (header + records in canonical order). */
   resultsText: string;
+  /** Each record's line as the results file holds it, in the order of `records`. */
+  lines: string[];
+}
+
+/** Records in canonical order (point, then trial), so every sum runs in one order whatever split ran them. */
+export function sweepOutput(input: SweepInput, header: SweepHeader, found: readonly { record: SweepRecord; text: string }[]): SweepOutput {
+  const sorted = found.slice().sort((a, b) => a.record.point - b.record.point || a.record.trial - b.record.trial);
+  const records = sorted.map((l) => l.record);
+  return { header, summaries: summarize(header, records, input.by), records, resultsText: canonicalText(header, sorted), lines: sorted.map((l) => l.text) };
 }
 
 export function sweepHeaderFor(input: SweepInput): SweepHeader {
@@ -36,25 +47,38 @@ export function sweepHeaderFor(input: SweepInput): SweepHeader {
 
 export function sweepJob(input: SweepInput, progress: Progress<SweepOutput>): SweepOutput {
   const header = sweepHeaderFor(input);
-  const total = header.points.length * input.trials;
+  const { index, count } = input.part ?? { index: 0, count: 1 };
+  // Trial-major order: partial results cover every point evenly, and the parts of a split share
+  // the work item by item. The order changes nothing: a trial's streams depend on (seed, point, trial).
+  const all = header.points.length * input.trials;
+  const total = Math.max(0, Math.ceil((all - index) / count));
   const items = new Int32Array(2 * total);
-  for (let p = 0, k = 0; p < header.points.length; p++) {
-    for (let t = 0; t < input.trials; t++, k++) {
-      items[2 * k] = p;
-      items[2 * k + 1] = t;
-    }
+  for (let k = index, j = 0; k < all; k += count, j++) {
+    items[2 * j] = k % header.points.length;
+    items[2 * j + 1] = Math.floor(k / header.points.length);
   }
   const job: TrialJob = { scenario: input.scenario, seed: input.seed, points: header.points, items };
   const lines: { record: SweepRecord; text: string }[] = [];
   const cache = new Map<number, Scenario>();
-  const output = (): SweepOutput => {
-    const records = lines.map((l) => l.record);
-    return { header, summaries: summarize(header, records, input.by), records, resultsText: canonicalText(header, lines) };
-  };
+  const output = (): SweepOutput => sweepOutput(input, header, lines);
   progress(0, total, null);
   for (let i = 0; i < total; i++) {
     runItems(job, i, i + 1, simulateTrial, applyParams, cache, (text) => lines.push({ record: JSON.parse(text) as SweepRecord, text }));
     progress(i + 1, total, output);
   }
   return output();
+}
+
+/** A sweep's input split into `count` interleaved parts (fewer when it has fewer trials). */
+export function splitSweep(input: SweepInput, count: number): SweepInput[] {
+  const all = sweepHeaderFor(input).points.length * input.trials;
+  const n = Math.max(1, Math.min(count, all));
+  return Array.from({ length: n }, (_, index) => ({ ...input, part: { index, count: n } }));
+}
+
+/** The parts' outputs so far as one sweep's output: the same records, summaries and file an unsplit run gives. */
+export function mergeSweepParts(input: SweepInput, parts: readonly (SweepOutput | null)[]): SweepOutput {
+  const found: { record: SweepRecord; text: string }[] = [];
+  for (const p of parts) if (p) p.records.forEach((record, k) => found.push({ record, text: p.lines[k]! }));
+  return sweepOutput(input, sweepHeaderFor(input), found);
 }

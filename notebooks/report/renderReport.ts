@@ -10,13 +10,20 @@ import type { FigureOutput, Study } from '../studies/Study.js';
 import { withCaptions } from '../studies/figureOutput.js';
 
 export function renderReport(study: Study, analysis: Analysis, figures: ReadonlyMap<string, FigureOutput>): string {
+  // A study that flies no scenario (replay) does not list the one its analysis carries.
+  const fliesScenario = [...study.cells, ...study.figures].some((c) => c.inputs.includes('scenario'));
   const meta: [string, string][] = [
     ['study', study.title],
-    ['scenario', `${analysis.scenario.name}: ${analysis.scenario.description}`],
+    ...(fliesScenario ? [['scenario', `${analysis.scenario.name}: ${analysis.scenario.description}`] as [string, string]] : []),
     ['master seed', String(analysis.seed)],
     ['analysis made with', `alight ${analysis.toolVersion}`],
     ['report rendered by', `alight ${VERSION}`],
-    ...study.parameters.map((p): [string, string] => [p.label, String(analysis.parameters[p.name] ?? p.default) + (p.kind === 'number' && p.unit ? ` ${p.unit}` : '')]),
+    ...study.parameters.map((p): [string, string] => {
+      const value = analysis.parameters[p.name] ?? p.default;
+      // Choices read as their words ("its Wilson lower bound"), not their stored values ("lower").
+      if (p.kind === 'choice') return [p.label, p.options.find((o) => o.value === value)?.label ?? String(value)];
+      return [p.label, String(value) + (p.unit ? ` ${p.unit}` : '')];
+    }),
   ];
   const parts: string[] = [];
   let open = false;
@@ -38,8 +45,10 @@ export function renderReport(study: Study, analysis: Analysis, figures: Readonly
     }
     if (open) parts.push('</div>');
     open = false;
-    if ('prose' in block) parts.push(`<p class="prose">${escapeXml(block.prose)}</p>`);
-    else parts.push(`<p class="prose">(In the page, a log folder is dropped here. This report replays the log the analysis names.)</p>`);
+    if ('prose' in block) {
+      if (!block.pageOnly) parts.push(`<p class="prose">${escapeXml(block.prose)}</p>`);
+    }
+    else parts.push(`<p class="prose">This report replays the demo log the analysis names (${escapeXml(String(analysis.parameters.log ?? ''))}); a folder dropped in the page is not part of an analysis.</p>`);
   }
   if (open) parts.push('</div>');
   return `<!doctype html>

@@ -44,8 +44,12 @@ export interface StudyFigure extends StudyCell {
   wide?: boolean;
 }
 
-/** Reading order: prose, figures by name, and (replay) the log-folder drop target with its text. */
-export type StudyBlock = { prose: string } | { figure: string } | { dropzone: string };
+/**
+ * Reading order: prose, figures by name, and (replay) the log-folder drop target with its text.
+ * Prose about working the page (controls, workers, dropping files) is `pageOnly`: the headless
+ * report leaves it out, since its reader has no controls.
+ */
+export type StudyBlock = { prose: string; pageOnly?: boolean } | { figure: string } | { dropzone: string };
 
 export interface Study {
   id: StudyId;

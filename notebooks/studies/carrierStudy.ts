@@ -11,6 +11,7 @@ import { DASHES, MUTED, SERIES } from '../figures/palette.js';
 import { extent, plotSvg, type Layer } from '../figures/plot.js';
 import { formatNumber, formatPercent } from '../figures/svg.js';
 import { fromState, HALF, keyNumber, toCsv } from './figureOutput.js';
+import { claimReach } from './claimReach.js';
 import type { FigureOutput, Study } from './Study.js';
 
 export const SHAPES: readonly PathShape[] = ['straight', 'rectangle', 'ellipse', 'figure-eight', 'survey'];
@@ -41,7 +42,7 @@ export const carrierStudy: Study = {
   lede: 'How fast may the carrier drive, and does the shape of its path matter? Every path shape is flown at four speeds up to the chosen maximum.',
   parameters: [
     { kind: 'number', name: 'maxSpeed', label: 'Highest carrier speed', unit: 'm/s', min: 2, max: 16, step: 1, default: 8 },
-    { kind: 'number', name: 'trials', label: 'Trials per point', unit: '', min: 1, max: 40, step: 1, default: 2, integer: true },
+    { kind: 'number', name: 'trials', label: 'Trials per point', unit: 'trials', min: 1, max: 1000, step: 1, default: 2, integer: true },
     { kind: 'number', name: 'target', label: 'Success target', unit: '', min: 0.5, max: 1, step: 0.05, default: 0.8 },
     { kind: 'choice', name: 'envelopeRule', label: 'Envelope uses', options: [{ value: 'rate', label: 'the success rate' }, { value: 'lower', label: 'its Wilson lower bound' }], default: 'rate' },
   ],
@@ -93,17 +94,20 @@ export const carrierStudy: Study = {
     {
       name: 'success',
       title: 'Success versus carrier speed',
-      caption: 'Share of trials landed, per path shape, against the carrier’s cruise speed.',
+      caption: 'Share of trials landed, per path shape, against the carrier’s cruise speed, with Wilson 95 % bars. Shapes are drawn a little apart along the speed axis so equal results stay visible.',
       inputs: ['sweep'],
       compute: (state: SweepState) =>
         fromState(state, 'trials', (value, partial) => {
           const layers: Layer[] = [];
+          const top = Math.max(...value.header.points.map((p) => Number(p['carrier.speed'])));
           SHAPES.forEach((shape, i) => {
             const points = bySpeed(value.summaries, shape);
-            const x = points.map((p) => Number(p.point['carrier.speed']));
+            // Dodge: each shape sits 1.5 % of the widest speed to one side of the true speed.
+            const x = points.map((p) => Number(p.point['carrier.speed']) + (i - (SHAPES.length - 1) / 2) * 0.015 * top);
             const y = points.map((p) => p.successRate);
+            layers.push({ kind: 'errorbars', x, low: points.map((p) => p.wilsonLow), high: points.map((p) => p.wilsonHigh), color: SERIES[i]! });
             layers.push({ kind: 'line', x, y, color: SERIES[i]!, dash: i % DASHES.length, label: shape });
-            layers.push({ kind: 'points', x, y, color: SERIES[i]!, titles: points.map((p) => `${shape} at ${p.point['carrier.speed']} m/s: ${p.landed} of ${p.trials}`) });
+            layers.push({ kind: 'points', x, y, color: SERIES[i]!, titles: points.map((p) => `${shape} at ${p.point['carrier.speed']} m/s: ${p.landed} of ${p.trials} (Wilson ${formatPercent(p.wilsonLow, 0)} to ${formatPercent(p.wilsonHigh, 0)})`) });
           });
           const speeds = value.header.points.map((p) => Number(p['carrier.speed']));
           const straight = bySpeed(value.summaries, 'straight')[0];
@@ -122,6 +126,10 @@ export const carrierStudy: Study = {
       compute: (state: SweepState, target: number, rule: string) =>
         fromState(state, 'trials', (value, partial) => {
           const envelope = SHAPES.map((shape) => envelopeSpeed(bySpeed(value.summaries, shape), target, rule === 'lower'));
+          // With the lower-bound rule, too few trials can show nothing: say so rather than "none".
+          const reach = claimReach(value.header.trials, target, 1.96);
+          const emptyText = rule === 'lower' && !reach.reachable ? `cannot tell: ${value.header.trials} trials per speed cannot show ${formatPercent(target, 0)}` : 'none: not even the slowest speed';
+          const atEnvelope = SHAPES.map((shape, i) => bySpeed(value.summaries, shape).find((p) => Number(p.point['carrier.speed']) === envelope[i]) ?? null);
           const maxSwept = Math.max(...value.header.points.map((p) => Number(p['carrier.speed'])));
           return {
             markup: plotSvg({
@@ -132,13 +140,16 @@ export const carrierStudy: Study = {
               marginLeft: 92,
               note: partial ? 'partial results' : undefined,
               layers: [
-                { kind: 'rects', rects: envelope.map((v, i) => ({ x0: 0, x1: v ?? 0, y0: SHAPES.length - i - 0.8, y1: SHAPES.length - i - 0.2, fill: SERIES[i]!, title: `${SHAPES[i]}: ${v === null ? 'none' : v + ' m/s'}` })) },
+                { kind: 'rects', rects: envelope.map((v, i) => ({ x0: 0, x1: v ?? 0, y0: SHAPES.length - i - 0.8, y1: SHAPES.length - i - 0.2, fill: SERIES[i]!, title: `${SHAPES[i]}: ${v === null ? 'none' : `${v} m/s, ${atEnvelope[i]!.landed} of ${atEnvelope[i]!.trials} landed there (Wilson ${formatPercent(atEnvelope[i]!.wilsonLow, 0)} to ${formatPercent(atEnvelope[i]!.wilsonHigh, 0)})`}` })) },
                 // an empty row says so, rather than looking like missing data
-                ...envelope.flatMap((v, i): Layer[] => (v === null && !partial ? [{ kind: 'text', x: maxSwept * 0.02, y: SHAPES.length - i - 0.5 - 0.12, text: 'none: not even the slowest speed', color: MUTED }] : [])),
+                ...envelope.flatMap((v, i): Layer[] => (v === null && !partial ? [{ kind: 'text', x: maxSwept * 0.02, y: SHAPES.length - i - 0.5 - 0.12, text: emptyText, color: MUTED }] : [])),
               ],
             }),
             csv: toCsv(['shape', 'envelopeSpeed', 'target', 'rule'], SHAPES.map((s, i) => [s, envelope[i] ?? null, target, rule])),
-            numbers: SHAPES.map((s, i) => keyNumber(`envelope_${s}`, s, envelope[i] ?? null, envelope[i] === null ? 'none' : `${formatNumber(envelope[i]!)} m/s`)),
+            numbers: [
+              keyNumber('claimNeeds', `trials per speed to show ${formatPercent(target, 0)}`, Number.isFinite(reach.needed) ? reach.needed : null, !Number.isFinite(reach.needed) ? 'no number of trials' : reach.reachable ? `${reach.needed} (have ${value.header.trials})` : `${reach.needed}: have only ${value.header.trials}`),
+              ...SHAPES.map((s, i) => keyNumber(`envelope_${s}`, s, envelope[i] ?? null, envelope[i] === null ? 'none' : `${formatNumber(envelope[i]!)} m/s (Wilson low ${formatPercent(atEnvelope[i]!.wilsonLow, 0)})`)),
+            ],
           };
         }),
     },
@@ -147,7 +158,7 @@ export const carrierStudy: Study = {
     { prose: 'The path shape changes what the filter must follow: straight roads are easy, corners and the figure-eight make the carrier accelerate sideways, which a constant-velocity carrier model does not expect.' },
     { figure: 'paths' },
     { figure: 'success' },
-    { prose: 'The envelope reads the same trials: moving the target or switching to the lower confidence bound redraws only this figure.' },
+    { prose: 'The envelope reads the same trials: moving the target or switching to the lower confidence bound redraws only this figure.', pageOnly: true },
     { figure: 'envelope' },
   ],
 };

@@ -10,7 +10,8 @@ import type { JobState } from '../jobs/JobState.js';
 import type { SweepOutput } from '../jobs/sweepJob.js';
 import { ESTIMATE, SERIES, TRUTH } from '../figures/palette.js';
 import { extent, plotSvg } from '../figures/plot.js';
-import { formatNumber, formatPercent } from '../figures/svg.js';
+import { escapeXml, formatNumber, formatPercent } from '../figures/svg.js';
+import { claimReach } from './claimReach.js';
 import { CONFIDENCE_PARAMETER, Z_OF_LEVEL } from './confidence.js';
 import { fromState, HALF, htmlTable, keyNumber, toCsv } from './figureOutput.js';
 import type { Study } from './Study.js';
@@ -56,7 +57,7 @@ export const detectionStudy: Study = {
       options: Object.entries(IMPAIRMENTS).map(([value, i]) => ({ value, label: i.label })),
       default: 'pixelNoise',
     },
-    { kind: 'number', name: 'trials', label: 'Trials per point', unit: '', min: 1, max: 60, step: 1, default: 5, integer: true },
+    { kind: 'number', name: 'trials', label: 'Trials per point', unit: 'trials', min: 1, max: 1000, step: 1, default: 5, integer: true },
     CONFIDENCE_PARAMETER,
     { kind: 'number', name: 'target', label: 'Claim: success at least', unit: '', min: 0.5, max: 0.99, step: 0.01, default: 0.9 },
   ],
@@ -157,38 +158,42 @@ export const detectionStudy: Study = {
             return { p, low, needed };
           });
           const supported = rows.filter((r) => r.low >= target).length;
+          const reach = claimReach(value.header.trials, target, z);
           return {
             kind: 'table',
-            markup: htmlTable(
+            markup: `<p class="${reach.reachable ? 'verdict' : 'verdict bad'}">${escapeXml(reach.words)}</p>` + htmlTable(
               [`${imp.label} (${imp.unit})`, 'landed', `Wilson low (${Math.round(Number(confidence) * 100)} %)`, `≥ ${formatPercent(target, 0)}?`, 'n of n needed', 'needed at this rate (80 % power)'],
               rows.map(({ p, low, needed }) => [
                 String(p.point[imp.path]),
                 `${p.landed} / ${p.trials}`,
                 formatPercent(low),
-                low >= target ? 'supported' : 'not shown',
+                low >= target ? 'supported' : reach.reachable ? 'not shown' : 'too few trials',
                 String(needed?.allSucceed ?? '–'),
                 needed === null ? 'never lands' : needed.withPower === null ? 'rate below target' : String(needed.withPower),
               ]),
             ),
             csv: toCsv([imp.path, 'trials', 'landed', 'wilsonLow', 'z', 'target', 'supported', 'allSucceed', 'withPower'], rows.map(({ p, low, needed }) => [Number(p.point[imp.path]), p.trials, p.landed, low, z, target, low >= target ? 1 : 0, needed?.allSucceed ?? null, needed?.withPower ?? null])),
-            numbers: [keyNumber('supported', 'points supporting the claim', supported, `${supported} of ${rows.length}`)],
+            numbers: [
+              keyNumber('supported', 'points supporting the claim', supported, `${supported} of ${rows.length}`),
+              keyNumber('claimNeeds', 'straight successes the claim needs', reach.needed, String(reach.needed)),
+            ],
           };
         }),
     },
     {
       name: 'outcomes',
       title: 'Outcomes per point',
-      caption: 'How each trial ended. Download the results to rerun the numbers with `alight summarize`.',
+      caption: 'How each trial ended. The sweep’s results file (JSON Lines) gives the same counts through `alight summarize`.',
       wide: true,
       inputs: ['sweep', 'impairment'],
       compute: (state: SweepState, impairment: string) => fromState(state, 'trials', (value) => outcomeTable(value, IMPAIRMENTS[impairment]!.path)),
     },
   ],
   blocks: [
-    { prose: 'Pick an impairment on the left. The sweep runs in a background worker and the figures fill in as trials finish; the confidence level only redraws the band, it reruns nothing.' },
+    { prose: 'Each impairment is swept on its own, every point flown the chosen number of times. Changing the confidence level only redraws the bands and the claims; it reruns no trial.', pageOnly: true },
     { figure: 'success' },
     { figure: 'miss' },
-    { prose: 'Few trials give wide bands: five landings out of five still leave a lower bound near 57 % at 95 % confidence. Raise the trial count before trusting a flat curve.' },
+    { prose: 'Few trials give wide bands: n landings out of n leave a Wilson lower bound of n / (n + z²), so a claim of 95 % at 95 % confidence takes at least 73 trials, all landed. The claims table says what the chosen trials can and cannot show.' },
     { figure: 'claims' },
     { figure: 'outcomes' },
   ],

@@ -14,6 +14,7 @@ import type { JobState } from '../jobs/JobState.js';
 import type { LandingOutput } from '../jobs/landingJob.js';
 import { fromState, keyNumber, toCsv, WIDE } from './figureOutput.js';
 import type { StudyFigure } from './Study.js';
+import { verdictText } from './verdictText.js';
 
 /** Two-sided level of the per-update band. */
 export const NIS_BAND_LEVEL = 0.95;
@@ -115,6 +116,10 @@ export const consistencyFigure: StudyFigure = {
           keyNumber('nisUpdates', 'updates with a NIS', band.total, String(band.total)),
           keyNumber('gateRejections', 'gated', r.gateRejections, String(r.gateRejections)),
           keyNumber('nisMean', 'mean NIS', r.nisMean),
+          ...(() => {
+            const v = verdictText(r.nisMean, r.nisCount, r.nisDim);
+            return v ? [keyNumber('nisVerdict', `mean NIS ÷ ${r.nisDim} over ${r.nisCount} updates`, v.ratio, v.text)] : [];
+          })(),
           keyNumber('neesMean', 'mean NEES', r.neesMean),
         ],
       };

@@ -119,7 +119,7 @@ export const landingStudy: Study = {
     },
   ],
   blocks: [
-    { prose: 'The trial runs in a background worker (about a twentieth of a second of computing for a minute of flight). Changing the trial number, speed or noise flies it again; the time slider only moves markers and the camera view.' },
+    { prose: 'The trial runs in a background worker (about a twentieth of a second of computing for a minute of flight). Changing the trial number, speed or noise flies it again; the time slider only moves markers and the camera view.', pageOnly: true },
     { figure: 'topView' },
     { figure: 'sideView' },
     { prose: 'The detector’s box is the image of the carrier’s true 3-D outline, noisy, late and sometimes missing; the filter assumes a flat square target, so its size model is mismatched on purpose.' },

@@ -8,7 +8,8 @@ import type { JobRunner } from '../jobs/JobRunner.js';
 import type { JobState } from '../jobs/JobState.js';
 import type { SweepOutput } from '../jobs/sweepJob.js';
 import { ESTIMATE, SERIES, TRUTH } from '../figures/palette.js';
-import { plotSvg } from '../figures/plot.js';
+import { plotSvg, type Layer } from '../figures/plot.js';
+import { differenceInterval } from '../../estimator/study/statistics/differenceInterval.js';
 import { formatNumber, formatPercent } from '../figures/svg.js';
 import { fromState, HALF, htmlTable, keyNumber, toCsv } from './figureOutput.js';
 import type { Study, StudyCell } from './Study.js';
@@ -76,7 +77,7 @@ export const localizationStudy: Study = {
   lede: 'The filter trusts the lander’s attitude, odometry and camera model. Which error in them costs the most landings? Each source is turned from zero to the chosen severity while the others keep the scenario’s values.',
   parameters: [
     { kind: 'choice', name: 'severity', label: 'Severity of each error', options: [{ value: 'moderate', label: 'moderate' }, { value: 'severe', label: 'severe (twice)' }], default: 'moderate' },
-    { kind: 'number', name: 'trials', label: 'Trials per setting', unit: '', min: 1, max: 40, step: 1, default: 4, integer: true },
+    { kind: 'number', name: 'trials', label: 'Trials per setting', unit: 'trials', min: 1, max: 1000, step: 1, default: 4, integer: true },
     { kind: 'choice', name: 'rankBy', label: 'Rank by', options: [{ value: 'success', label: 'lost success' }, { value: 'cep50', label: 'added CEP50' }], default: 'success' },
   ],
   cells: ERROR_SOURCES.flatMap((s) => [sweepCell(s, 'zero'), sweepCell(s, 'on')]),
@@ -84,20 +85,25 @@ export const localizationStudy: Study = {
     {
       name: 'ranking',
       title: 'Which error hurts most',
-      caption: 'Harm of each error source: success lost, or CEP50 added, when it goes from zero to the chosen severity. Longest bar first.',
+      caption: 'Harm of each error source: success lost, or CEP50 added, when it goes from zero to the chosen severity. Longest bar first. Lost success carries the Newcombe 95 % interval of the difference (a line across the bar); an error is named as hurting most only when that interval lies above zero.',
       inputs: ['rankBy', ...SWEEP_NAMES],
       compute: (rankBy: string, ...states: JobState<SweepOutput>[]) =>
         fromState(combineStates(states), 'trials', (values, partial) => {
           const list = harms(values).sort((a, b) => (harmOf(b, rankBy) || 0) - (harmOf(a, rankBy) || 0));
+          // Newcombe's hybrid score interval treats the two settings as independent samples; they
+          // share random draws here, which only makes the true interval narrower: the rule is cautious.
+          const intervals = list.map((h) => (rankBy === 'success' ? differenceInterval(h.clean.landed, h.clean.trials, h.erred.landed, h.erred.trials) : null));
           const rects = list.map((h, i) => {
             const v = harmOf(h, rankBy);
             return { x0: Math.min(0, v), x1: Math.max(0, v), y0: list.length - i - 0.8, y1: list.length - i - 0.2, fill: v >= 0 ? SERIES[1] : SERIES[0], title: `${h.source.label}: ${formatNumber(v)}` };
           });
           // the axis covers every bar: a negative harm (the error helped, by chance with few trials) too
-          const harmValues = list.map((h) => harmOf(h, rankBy) || 0);
+          const harmValues = [...list.map((h) => harmOf(h, rankBy) || 0), ...intervals.flatMap((d) => (d ? [d.low, d.high] : []))];
           const span = Math.max(0.05, ...harmValues.map(Math.abs));
           const lowest = Math.min(0, ...harmValues);
           const worst = list[0];
+          const worstInterval = intervals[0] ?? null;
+          const shown = worst !== undefined && (worstInterval === null || worstInterval.low > 0);
           return {
             markup: plotSvg({
               title: 'Harm per error source',
@@ -110,10 +116,17 @@ export const localizationStudy: Study = {
                 { kind: 'rects', rects: rects.filter((r) => r.fill === SERIES[1]), label: 'worse with the error', legendColor: SERIES[1] },
                 { kind: 'rects', rects: rects.filter((r) => r.fill === SERIES[0]), label: rects.some((r) => r.fill === SERIES[0]) ? 'better with it (chance?)' : undefined, legendColor: SERIES[0] },
                 { kind: 'rule', axis: 'x', value: 0, color: SERIES[7], dash: 0 },
+                ...intervals.flatMap((d, i): Layer[] => (d ? [{ kind: 'line', x: [d.low, d.high], y: [list.length - i - 0.5, list.length - i - 0.5], color: SERIES[7], width: 1.6, ...(i === 0 ? { label: 'Newcombe 95 %' } : {}) }] : [])),
               ],
             }),
-            csv: toCsv(['source', 'path', 'value', 'successClean', 'successErred', 'cep50Clean', 'cep50Erred', 'harm'], list.map((h) => [h.source.key, h.source.path, Number(h.erred.point[h.source.path]), h.clean.successRate, h.erred.successRate, h.clean.cep50, h.erred.cep50, harmOf(h, rankBy)])),
-            numbers: worst ? [keyNumber('worst', 'hurts most', null, worst.source.label), keyNumber('worstHarm', rankBy === 'success' ? 'success lost' : 'CEP50 added (m)', harmOf(worst, rankBy))] : [],
+            csv: toCsv(['source', 'path', 'value', 'successClean', 'successErred', 'cep50Clean', 'cep50Erred', 'harm', 'harmLow', 'harmHigh'], list.map((h, i) => [h.source.key, h.source.path, Number(h.erred.point[h.source.path]), h.clean.successRate, h.erred.successRate, h.clean.cep50, h.erred.cep50, harmOf(h, rankBy), intervals[i]?.low ?? null, intervals[i]?.high ?? null])),
+            numbers: worst
+              ? [
+                  keyNumber('worst', 'hurts most', null, shown ? worst.source.label : `not shown: its interval includes 0 with ${worst.clean.trials} trials per setting`),
+                  keyNumber('worstHarm', rankBy === 'success' ? `success lost by ${worst.source.label}` : `CEP50 added by ${worst.source.label} (m)`, harmOf(worst, rankBy)),
+                  ...(worstInterval ? [keyNumber('worstLow', 'interval low', worstInterval.low), keyNumber('worstHigh', 'interval high', worstInterval.high)] : []),
+                ]
+              : [],
           };
         }),
     },

@@ -9,6 +9,7 @@ import type { JobRunner } from '../jobs/JobRunner.js';
 import type { JobState } from '../jobs/JobState.js';
 import type { LogChoice, ReplayOutput } from '../jobs/replayJob.js';
 import { fromState, HALF, htmlTable, keyNumber, toCsv, WIDE } from './figureOutput.js';
+import { verdictText } from './verdictText.js';
 import type { FigureOutput, Study } from './Study.js';
 
 /** Demo logs shipped in data-demo/ (folder names). */
@@ -83,16 +84,17 @@ export const replayStudy: Study = {
     {
       name: 'consistency',
       title: 'Consistency from innovations',
-      caption: 'Mean NIS of box and odometry updates divided by its dimension, with the chi-square acceptance interval (bars); with truth, NEES likewise.',
+      caption: 'Mean NIS of box and odometry updates divided by its dimension, with the chi-square acceptance interval (bars) and the verdict in words; with truth, NEES likewise.',
       inputs: ['replay'],
       compute: (state: ReplayState) =>
         fromState(state, 'log', (value) => {
           const rep = value.report;
           const items = [
-            { label: 'box NIS', mean: rep.boxes.mean, dim: rep.boxes.dim, bounds: rep.boxes.bounds },
-            { label: 'odometry NIS', mean: rep.odometry.mean, dim: rep.odometry.dim, bounds: rep.odometry.bounds },
-            { label: 'NEES', mean: rep.neesMean, dim: rep.neesDim, bounds: rep.neesBounds },
+            { key: 'box', label: 'box NIS', mean: rep.boxes.mean, count: rep.boxes.count, dim: rep.boxes.dim, bounds: rep.boxes.bounds },
+            { key: 'odometry', label: 'odometry NIS', mean: rep.odometry.mean, count: rep.odometry.count, dim: rep.odometry.dim, bounds: rep.odometry.bounds },
+            { key: 'nees', label: 'NEES', mean: rep.neesMean, count: rep.neesCount, dim: rep.neesDim, bounds: rep.neesBounds },
           ].filter((i) => i.mean !== null);
+          const verdicts = items.map((i) => verdictText(i.mean, i.count, i.dim, rep.level));
           const x = items.map((_, i) => i);
           const ratio = items.map((i) => i.mean! / i.dim);
           return {
@@ -110,6 +112,10 @@ export const replayStudy: Study = {
             }),
             csv: toCsv(['statistic', 'mean', 'dim', 'low', 'high'], items.map((i) => [i.label, i.mean, i.dim, i.bounds?.[0] ?? null, i.bounds?.[1] ?? null])),
             numbers: [
+              ...items.flatMap((it, k) => {
+                const v = verdicts[k];
+                return v ? [keyNumber(`${it.key}Verdict`, `${it.label} ÷ ${it.dim} (${it.count} ${it.key === 'nees' ? 'samples' : 'updates'})`, v.ratio, v.text)] : [];
+              }),
               keyNumber('nisMean', 'box NIS mean', rep.nisMean),
               keyNumber('gateRejections', 'gate rejections', rep.gateRejections, String(rep.gateRejections)),
               keyNumber('white', 'innovations white', rep.whiteness.white === null ? null : rep.whiteness.white ? 1 : 0, rep.whiteness.white === null ? 'too short' : rep.whiteness.white ? 'yes' : 'no'),
@@ -175,7 +181,7 @@ export const replayStudy: Study = {
     },
   ],
   blocks: [
-    { prose: 'Drop a log folder (camera.json plus boxes, imu, attitude, odometry and optional truth CSV files, as in the README’s flight-log layout) on the area below, or pick one with the button. The replay runs in a background worker.' },
+    { prose: 'Drop a log folder (camera.json plus boxes, imu, attitude, odometry and optional truth CSV files, as in the README’s flight-log layout) on the area below, or pick one with the button. The replay runs in a background worker.', pageOnly: true },
     { dropzone: 'Drop a flight-log folder here' },
     { figure: 'source' },
     { figure: 'consistency' },

@@ -136,7 +136,7 @@ export const tuningStudy: Study = {
     },
   ],
   blocks: [
-    { prose: 'The search runs in a background worker. Changing the acceptance level only re-judges the consistency surface; changing the weight reruns the search, because the refinement follows the cost.' },
+    { prose: 'The search runs in a background worker. Changing the acceptance level only re-judges the consistency surface; changing the weight reruns the search, because the refinement follows the cost.', pageOnly: true },
     { figure: 'consistency' },
     { figure: 'landing' },
     { prose: 'Put the recommended multipliers into the scenario’s filter section (qScale, rScale), then confirm them on flight logs with the replay study: consistency in simulation is necessary, not sufficient.' },

@@ -4,6 +4,7 @@ import { world } from './world.js';
 import { sweepBench } from './sweep.js';
 import { replayBench } from './replay.js';
 import { trialBench } from './trial.js';
+import { pageBench } from './page.js';
 export interface BenchSection {
   name: string;
   run(): Promise<Record<string, unknown>>;
@@ -15,4 +16,5 @@ export const sections: BenchSection[] = [
   sweepBench,
   replayBench,
   trialBench,
+  pageBench,
 ];

@@ -11,6 +11,7 @@ import { sensitivityCommand } from './sensitivityCommand.js';
 import { tuneCommand } from './tuneCommand.js';
 import { replayCommand } from './replayCommand.js';
 import { recordCommand } from './recordCommand.js';
+import { ingestCommand } from './ingestCommand.js';
 import { reportCommand } from './reportCommand.js';
 
 export const commands: Command[] = [
@@ -25,5 +26,6 @@ export const commands: Command[] = [
   tuneCommand,
   replayCommand,
   recordCommand,
+  ingestCommand,
   reportCommand,
 ];

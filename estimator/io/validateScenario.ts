@@ -21,7 +21,8 @@ function valueAt(root: unknown, path: string[]): unknown {
   return v;
 }
 
-function describe(error: ErrorObject, raw: unknown): { path: string; message: string } {
+/** One ajv error as a field path and a message in our words (shared by every schema-checked file). */
+export function describeSchemaError(error: ErrorObject, raw: unknown): { path: string; message: string } {
   const parts = error.instancePath.split('/').slice(1).map((p) => p.replace(/~1/g, '/').replace(/~0/g, '~'));
   const path = parts.join('.');
   const got = `, got ${shown(valueAt(raw, parts))}`;
@@ -126,7 +127,7 @@ export function validateScenario(raw: unknown, fileName: string, lines?: Readonl
   };
   if (!validateSchema(raw)) {
     for (const error of validateSchema.errors ?? []) {
-      const { path, message } = describe(error, raw);
+      const { path, message } = describeSchemaError(error, raw);
       add(path, message);
     }
   }

@@ -70,7 +70,10 @@ export function parseRosMap(text: string, fileName: string): RosMap {
   const problems: { line: number; text: string }[] = [];
   const add = (path: string, message: string) => {
     let line: number | undefined;
-    for (let p = path; line === undefined && p !== ''; p = p.includes('.') ? p.slice(0, p.lastIndexOf('.')) : '') line = lines.get(p);
+    for (let p = path; line === undefined; p = p.includes('.') ? p.slice(0, p.lastIndexOf('.')) : '') {
+      line = lines.get(p);
+      if (p === '') break;
+    }
     const text = `${fileName}${line !== undefined ? `:${line}` : ''}: ${path === '' ? '(top level)' : path}: ${message}`;
     if (!problems.some((p) => p.text === text)) problems.push({ line: line ?? 0, text });
   };

@@ -25,16 +25,17 @@ const PURPOSE = 'convert a ROS 2 recording (.mcap) into a flight log for replay 
 function summary(report: IngestReport, out: string): string {
   const lines = [`alight ingest: ${report.recording} (${(report.bytes / 1e6).toFixed(1)} MB${report.indexed ? '' : ', no index'}) -> ${out} in ${report.seconds.toFixed(1)} s`];
   const c = report.camera;
-  lines.push(`  camera    ${c.topic} "${c.frameId}": ${c.width}x${c.height} px, fx ${c.fx} fy ${c.fy}, cx ${c.cx} cy ${c.cy} (alight pixel coordinates)`);
+  lines.push(`  ${'camera'.padEnd(14)}${c.topic} "${c.frameId}": ${c.width}x${c.height} px, fx ${c.fx} fy ${c.fy}, cx ${c.cx} cy ${c.cy} (alight pixel coordinates)`);
   for (const [role, s] of Object.entries(report.streams)) {
     if (role === 'camera') continue;
     const left = Object.entries(s.left).map(([why, n]) => `${n} ${why}`).join(', ');
-    lines.push(`  ${role.padEnd(12)}${s.topic} (${s.type}): ${s.messages} messages -> ${s.rows} rows${left ? `; left out: ${left}` : ''}`);
+    const label = role === 'truthLander' ? 'truth.lander' : role === 'truthCarrier' ? 'truth.carrier' : role;
+    lines.push(`  ${label.padEnd(14)}${s.topic} (${s.type}): ${s.messages} messages -> ${s.rows} rows${left ? `; left out: ${left}` : ''}`);
   }
-  lines.push(`  time      seconds after ${report.timeOrigin} s of the recording's clock`);
-  if (report.otherTopics.length > 0) lines.push(`  unused    ${report.otherTopics.join(', ')}`);
-  for (const w of report.warnings) lines.push(`  warning   ${w}`);
-  lines.push(`  next      alight replay ${out}`);
+  lines.push(`  ${'time'.padEnd(14)}seconds after ${report.timeOrigin} s of the recording's clock`);
+  if (report.otherTopics.length > 0) lines.push(`  ${'unused topics'.padEnd(14)}${report.otherTopics.join(', ')}`);
+  for (const w of report.warnings) lines.push(`  ${'warning'.padEnd(14)}${w}`);
+  lines.push(`  ${'next'.padEnd(14)}alight replay ${out}`);
   return lines.join('\n') + '\n';
 }
 

@@ -29,7 +29,7 @@ describe('alight ingest', () => {
     expect(ingested.code).toBe(0);
     expect(ingested.out).toContain('alight ingest: flight.mcap');
     expect(ingested.out).toMatch(/boxes\s+\/deck\/detections \(vision_msgs\/msg\/Detection2DArray\): \d+ messages -> \d+ rows/);
-    expect(ingested.out).toContain('next      alight replay from-ros');
+    expect(ingested.out).toMatch(/next +alight replay from-ros/);
     const a = JSON.parse((await run('replay', 'log', '--json')).out);
     const b = JSON.parse((await run('replay', 'from-ros', '--json')).out);
     expect(b.problems.total).toBe(0);

@@ -11,6 +11,8 @@ import type { FilterSpec } from '../../sim/Scenario.js';
 import type { LogCamera } from './parseLogCamera.js';
 import { BOX_SLOTS } from './logStreams.js';
 import { DEFAULT_INITIAL_SIGMA, type ReplaySettings } from './ReplayReport.js';
+import { gateThreshold } from '../../filter/gate.js';
+import { InnovationLikelihood } from './InnovationLikelihood.js';
 import { MeasurementStatistics } from './MeasurementStatistics.js';
 import { TruthComparison } from './TruthComparison.js';
 import { WhitenessAccumulator } from './WhitenessAccumulator.js';
@@ -26,6 +28,9 @@ export class LogReplayer {
   readonly odometryWhiteness: WhitenessAccumulator[];
   /** Each box innovation component y_i / sqrt(S_ii) (tight: u, v, s; loose: the fix's rx, ry, rz), accepted updates, delayed ones at their capture time. */
   readonly boxWhiteness: WhitenessAccumulator[];
+  /** -2 ln L of the box and of the odometry innovations (accepted and gated updates). */
+  readonly boxLikelihood: InnovationLikelihood;
+  readonly odometryLikelihood: InnovationLikelihood;
   readonly truth = new TruthComparison();
   started = false;
   start: number | null = null;
@@ -52,6 +57,9 @@ export class LogReplayer {
     this.hasOdometry = hasOdometry;
     this.filter = new LandingFilter(spec, camera.camera, camera.targetSize);
     const lags = settings.lags ?? 20;
+    const gate = settings.likelihoodThreshold ?? gateThreshold(spec.gateProbability, 3, spec.gateScale);
+    this.boxLikelihood = new InnovationLikelihood(gate);
+    this.odometryLikelihood = new InnovationLikelihood(gate);
     this.boxes = new MeasurementStatistics('box', lags);
     this.odometry = new MeasurementStatistics('odometry', lags);
     this.odometryWhiteness = ['vx', 'vy', 'vz'].map((c) => new WhitenessAccumulator(`odometry innovation ${c} / sqrt(S)`, lags));
@@ -97,6 +105,7 @@ export class LogReplayer {
     this.noteDivergence();
     this.settings.onUpdate?.(t, 'odometry', result.status, result.nis);
     if (now && result.status === 'accepted') this.addNormalizedInnovation(this.odometryWhiteness);
+    this.addLikelihood(this.odometryLikelihood, result.status);
     return this.odometry.add(result) ? '' : `refused: ${this.odometry.lastReason}`;
   }
 
@@ -113,6 +122,7 @@ export class LogReplayer {
     this.noteDivergence();
     this.settings.onUpdate?.(t, 'boxes', result.status, result.nis);
     if (result.status === 'accepted') this.addNormalizedInnovation(this.boxWhiteness);
+    this.addLikelihood(this.boxLikelihood, result.status);
     return this.boxes.add(result) ? '' : `refused: ${this.boxes.lastReason}`;
   }
 
@@ -169,6 +179,10 @@ export class LogReplayer {
   private addNormalizedInnovation(accumulators: WhitenessAccumulator[]): void {
     const y = this.filter.lastInnovation, S = this.filter.lastInnovationCovariance;
     for (let i = 0; i < 3; i++) accumulators[i]!.add(y[i]! / Math.sqrt(S[4 * i]!));
+  }
+
+  private addLikelihood(likelihood: InnovationLikelihood, status: string): void {
+    if (status === 'accepted' || status === 'gated') likelihood.add(this.filter.lastInnovation, this.filter.lastInnovationCovariance, status === 'gated');
   }
 
   private noteDivergence(): void {

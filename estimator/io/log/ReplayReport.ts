@@ -4,6 +4,7 @@ import type { UpdateStatus } from '../../models/LandingFilter.js';
 import type { FilterSpec } from '../../sim/Scenario.js';
 import type { LogProblem, LogProblemKind } from './LogProblem.js';
 import type { LogStreamName } from './logStreams.js';
+import type { LikelihoodSummary } from './InnovationLikelihood.js';
 import type { NisSummary } from './MeasurementStatistics.js';
 import type { WhitenessSummary } from './WhitenessAccumulator.js';
 
@@ -19,6 +20,12 @@ export interface ReplaySettings {
   filterLines?: ReadonlyMap<string, number>;
   /** Initial 1-sigma of velocities (m/s) and accelerometer bias (m/s²) at a start. Default DEFAULT_INITIAL_SIGMA. */
   initialSigma?: { velocity: number; accelBias: number };
+  /**
+   * NIS beyond which an update's term of the innovation likelihood grows like sqrt(NIS) (Huber;
+   * default: the filter's gate threshold). Identification replays with the gate opened wide and
+   * this set to the nominal gate, so no gating decision makes the likelihood jump between settings.
+   */
+  likelihoodThreshold?: number;
   /** Whiteness lags L (default 20) and confidence level of the NIS/NEES bounds (default 0.95). */
   lags?: number;
   level?: number;
@@ -67,6 +74,12 @@ export interface ReplayReport {
   /** Gate rejections of boxes and odometry together. */
   gateRejections: number;
   whiteness: WhitenessSummary;
+  /**
+   * Innovation likelihood, -2 ln L = sum (ln|2 pi S_k| + y_kᵀ S_k⁻¹ y_k) over box and odometry
+   * updates (NIS beyond the gate Huber-weighted): the objective of noise identification
+   * (Mehra 1970; Bar-Shalom, Li, Kirubarajan 2001). Lower is more likely.
+   */
+  likelihood: { minus2LogL: number; boxes: LikelihoodSummary; odometry: LikelihoodSummary };
   /** With truth.csv: mean NEES of relative position + velocity (dim 6) with bounds, RMS errors; null without. */
   neesMean: number | null;
   neesDim: number;

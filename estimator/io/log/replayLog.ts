@@ -124,6 +124,11 @@ async function merge(source: LogSource, spec: FilterSpec, level: number, setting
   return report(source, spec, level, readers, unused, problems, replayer);
 }
 
+function likelihood(r: LogReplayer): ReplayReport['likelihood'] {
+  const boxes = r.boxLikelihood.summary(), odometry = r.odometryLikelihood.summary();
+  return { minus2LogL: boxes.minus2LogL + odometry.minus2LogL, boxes, odometry };
+}
+
 function report(source: LogSource, spec: FilterSpec, level: number, readers: LogStreamReader[], unused: Map<LogStreamReader, Record<string, number>>, problems: ProblemLog, r: LogReplayer): ReplayReport {
   const rows: Partial<Record<LogStreamName, StreamRows>> = {};
   for (const reader of readers) {
@@ -155,6 +160,7 @@ function report(source: LogSource, spec: FilterSpec, level: number, readers: Log
     gateRejections: boxes.gated + odometry.gated,
     // NIS sequences first, then each normalized innovation component (odometry, then boxes)
     whiteness: whitenessSummary([r.boxes.nisWhiteness, r.odometry.nisWhiteness, ...r.odometryWhiteness, ...r.boxWhiteness], lags),
+    likelihood: likelihood(r),
     neesMean: hasTruth && t.neesCount > 0 ? t.neesMean : null,
     neesDim: t.neesDim,
     neesCount: t.neesCount,

@@ -10,7 +10,8 @@ import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { createExecutor, loadScenarioOrFail, workerCount } from './studyRunner.js';
-import { surfaceHeatMap, tuneOnLog } from './tuneOnLog.js';
+import { tuneOnLog } from './tuneOnLog.js';
+import { heatMapFigure } from '../study/figures/heatMapFigure.js';
 import { SAFETY_CAUTION } from '../safetyCaution.js';
 import { asCliError, JSON_OPTION, resolvePath, SEED_OPTION, WORKERS_OPTION } from './studyCli.js';
 import { checkOutputs, filesIn, outputTarget, scenarioFiles, writeOutput, type OutputTarget } from './outputFiles.js';
@@ -28,6 +29,7 @@ const OPTIONS: OptionSpec[] = [
   { name: 'nees-weight', kind: 'value', valueName: 'W', help: 'weight of NEES consistency against landing success (default 0.25)' },
   { name: 'criterion', kind: 'value', valueName: 'nis|nees', help: 'log folder only: NIS + whiteness, or NEES against truth.csv (default: nees with truth)' },
   { name: 'filter', kind: 'value', valueName: 'FILE', help: 'log folder only: filter settings over the log\'s filter.json, as for alight replay' },
+  { name: 'free', kind: 'value', valueName: 'A,B,..', help: 'log folder only: noise terms to identify (default pixelNoise,sizeNoiseFraction,odometryNoise,carrierAccelNoise)' },
   SEED_OPTION,
   WORKERS_OPTION,
   { name: 'surface', kind: 'value', valueName: 'FILE', help: 'write every evaluated setting (.csv for CSV, else JSON)' },
@@ -42,6 +44,15 @@ function range(parsed: ReturnType<typeof parseArgs>, name: string): [number, num
   const [lo, hi] = text.split(':').map(Number);
   if (!(lo! > 0 && hi! >= lo! && Number.isFinite(hi))) throw new CliError(`alight tune: --${name} expects LO:HI with 0 < LO <= HI, got "${text}"`);
   return [lo!, hi!];
+}
+
+/** Heat map of the grid samples over qScale and rScale at the grid gate nearest the best. */
+function surfaceHeatMap(samples: readonly SurfaceSample[], best: SurfaceSample, title: string): string {
+  const grid = samples.filter((s) => s.stage === 'grid');
+  const gates = [...new Set(grid.map((s) => s.gate))];
+  const gate = gates.reduce((a, b) => (Math.abs(Math.log(b / best.gate)) < Math.abs(Math.log(a / best.gate)) ? b : a));
+  const cells = grid.filter((s) => s.gate === gate).map((s) => ({ x: s.q, y: s.r, value: s.score }));
+  return heatMapFigure(cells, { xLabel: 'filter.qScale', yLabel: 'filter.rScale', valueLabel: 'cost (lower = better)', lowerIsBetter: true, best: { x: best.q, y: best.r }, title: `${title} at gateScale ${gate}` });
 }
 
 function isDirectory(path: string): boolean {
@@ -66,19 +77,22 @@ export const tuneCommand: Command = {
       io.stdout(formatHelp(USAGE, PURPOSE, OPTIONS) + LOG_NOTE);
       return 0;
     }
-    if (parsed.positional.length !== 1) throw new CliError(`alight tune: give one scenario file or flight-log folder (usage: ${USAGE})`);
+    if (parsed.positional.length === 0) throw new CliError(`alight tune: give one scenario file or one or more flight-log folders (usage: ${USAGE})`);
     const target = parsed.positional[0]!;
+    if (isDirectory(resolvePath(io.cwd, target))) {
+      const notFolder = parsed.positional.find((p) => !isDirectory(resolvePath(io.cwd, p)));
+      if (notFolder !== undefined) throw new CliError(`alight tune: ${notFolder} is not a log folder; give one scenario file, or log folders only`);
+      const filterFile = parsed.values.get('filter');
+      const inputs = [...parsed.positional.flatMap((f) => filesIn(resolvePath(io.cwd, f))), ...(filterFile ? [resolvePath(io.cwd, filterFile)] : [])];
+      return tuneOnLog(parsed.positional, parsed, io, inputs);
+    }
+    if (parsed.positional.length > 1) throw new CliError(`alight tune: one scenario file please, got ${parsed.positional.length} arguments (usage: ${USAGE})`);
     const grid = numberOption('tune', parsed, 'grid', 4, (v) => Number.isInteger(v) && v >= 1 && v <= 20, 'an integer 1..20');
     const refine = numberOption('tune', parsed, 'refine', 20, (v) => Number.isInteger(v) && v >= 0, 'a non-negative integer');
     const surfaceOut = outputTarget('--surface', parsed.values.get('surface'), io.cwd);
     const svgOut = outputTarget('--svg', parsed.values.get('svg'), io.cwd);
     const outputs = [surfaceOut, svgOut].filter((o): o is OutputTarget => o !== undefined);
-    if (isDirectory(resolvePath(io.cwd, target))) {
-      const filterFile = parsed.values.get('filter');
-      checkOutputs('tune', outputs, [...filesIn(resolvePath(io.cwd, target)), ...(filterFile ? [resolvePath(io.cwd, filterFile)] : [])]);
-      return tuneOnLog(target, parsed, io, { q: range(parsed, 'q'), r: range(parsed, 'r'), gate: range(parsed, 'gate'), grid, refine });
-    }
-    for (const logOnly of ['criterion', 'filter']) {
+    for (const logOnly of ['criterion', 'filter', 'free']) {
       if (parsed.values.has(logOnly)) throw new CliError(`alight tune: --${logOnly} applies to a flight-log folder, not to a scenario`);
     }
     const scenario: Scenario = loadScenarioOrFail(target, 'tune', io.cwd);

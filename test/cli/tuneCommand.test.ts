@@ -25,25 +25,41 @@ describe('alight tune (real trials)', () => {
     const svg = readFileSync(join(dir, 'heat.svg'), 'utf8');
     expect((svg.match(/<title>filter\.qScale /g) ?? []).length).toBe(4);
   });
-  it('alight tune <log-folder> replays a recorded log per setting and recommends the lowest NIS cost', async () => {
+  it('alight tune <log-folder> identifies the named noise terms with intervals and compares the recommended setting', async () => {
     const record = fakeIo(dir);
     expect(await main(['record', scenario, '--out', 'log'], record), record.err.join('')).toBe(0);
     const io = fakeIo(dir);
-    expect(await main(['tune', 'log', '--criterion', 'nis', '--grid', '2', '--refine', '2', '--json', '--surface', 'log-surface.json'], io), io.err.join('')).toBe(0);
-    const r = JSON.parse(io.out.join('')) as { criterion: string; cost: number; baselineCost: number; evaluations: number; caution: string };
-    expect(r.criterion).toBe('nis');
-    const surface = JSON.parse(readFileSync(join(dir, 'log-surface.json'), 'utf8')) as { score: number; stage: string }[];
-    expect(surface).toHaveLength(r.evaluations);
-    expect(surface.filter((s) => s.stage === 'grid')).toHaveLength(8);
-    expect(r.cost).toBe(Math.min(...surface.map((s) => s.score)));
+    expect(await main(['tune', 'log', '--free', 'pixelNoise,odometryNoise', '--json', '--surface', 'profiles.csv'], io), io.err.join('')).toBe(0);
+    const r = JSON.parse(io.out.join('')) as {
+      criterion: string; cost: number; baselineCost: number; evaluations: number; caution: string;
+      recommended: Record<string, number>; identified: { term: string; status: string; recommended: number }[];
+      current: { boxes: { verdict: string } }; recommendedCheck: { boxes: { verdict: string } };
+    };
+    expect(r.criterion).toBe('likelihood');
+    expect(r.identified.map((t) => t.term)).toEqual(['pixelNoise', 'odometryNoise']);
+    expect(r.cost).toBeLessThan(r.baselineCost);
+    // The version-0.1 fields stay: the multipliers (held) and now the identified terms beside them.
+    expect(r.recommended['filter.qScale']).toBe(1);
+    expect(r.recommended['filter.pixelNoise']).toBe(r.identified[0]!.recommended);
+    expect(['consistent', 'over-confident', 'under-confident']).toContain(r.recommendedCheck.boxes.verdict);
+    const rows = readFileSync(join(dir, 'profiles.csv'), 'utf8').trim().split('\n');
+    expect(rows[0]).toBe('term,value,rise');
+    expect(rows.filter((l) => l.startsWith('pixelNoise,')).length).toBeGreaterThanOrEqual(3);
     expect(r.caution).toContain('clear nothing for flight');
+    const text = fakeIo(dir);
+    expect(await main(['tune', 'log', '--free', 'odometryNoise'], text), text.err.join('')).toBe(0);
+    expect(text.out.join('')).toMatch(/odometryNoise +\S+ m\/s \(95 %: /);
+    expect(text.out.join('')).toContain('box NIS (dim 3)');
   });
-  it('alight tune refuses log-only options for a scenario and a bad --criterion for a log (exit 2)', async () => {
+  it('alight tune refuses log-only options for a scenario, scenario-only options and unknown terms for a log (exit 2)', async () => {
     const a = fakeIo(dir);
     expect(await main(['tune', scenario, '--criterion', 'nis'], a)).toBe(2);
     expect(a.err.join('')).toContain('--criterion applies to a flight-log folder');
     const b = fakeIo(dir);
-    expect(await main(['tune', dir, '--criterion', 'foo'], b)).toBe(2);
-    expect(b.err.join('')).toContain('--criterion expects nis or nees');
+    expect(await main(['tune', dir, '--criterion', 'nis'], b)).toBe(2);
+    expect(b.err.join('')).toContain('--criterion applies to a scenario, not to flight logs');
+    const c = fakeIo(dir);
+    expect(await main(['tune', dir, '--free', 'pixelNoise,wobble'], c)).toBe(2);
+    expect(c.err.join('')).toContain('--free expects noise terms from pixelNoise');
   });
 });

@@ -11,11 +11,12 @@ import { STUDIES, studyById } from '../studies/studies.js';
 import { escapeXml } from '../figures/svg.js';
 import { VERSION } from '../../estimator/version.js';
 import { Plate } from './Plate.js';
-import { renderSetup } from './renderSetup.js';
+import { renderSetup, type Setup } from './renderSetup.js';
+import { parseScenario } from '../../estimator/io/parseScenario.js';
 import { renderDropzone } from './dropzone.js';
 import { readLink } from './readLink.js';
 import { showControlValue } from './renderControls.js';
-import { listenForPageDrops, looksLikeAnalysis } from './pageDrop.js';
+import { listenForPageDrops, looksLikeAnalysis, looksLikeScenario } from './pageDrop.js';
 import { ProgressClock } from './ProgressClock.js';
 import { StudyProblems } from './StudyProblems.js';
 
@@ -25,6 +26,7 @@ let current: Analysis | null = null;
 let plates = new Map<string, Plate>();
 let activity: readonly Activity[] = [];
 let problems: StudyProblems | null = null;
+let currentSetup: Setup | null = null;
 /** The fragment the page shows now: history moves to any other one re-read the link. */
 let shownFragment = '';
 const clock = new ProgressClock();
@@ -135,7 +137,8 @@ function render(analysis: Analysis, problem: string | null, address: Address): v
       main.append(renderDropzone(block.dropzone, (files) => mounted?.set('logFiles', files)));
     }
   }
-  layout.append(setup, main);
+  layout.append(setup.element, main);
+  currentSetup = setup;
   app.append(masthead, layout);
 
   const figureProblem = (name: string, message: string): void => {
@@ -204,7 +207,17 @@ function followLocation(): void {
 async function openDroppedFile(file: File): Promise<void> {
   const text = await file.text();
   if (!looksLikeAnalysis(text)) {
-    problems?.show('open', `${file.name} is not an analysis file (a JSON object with study, scenario, parameters, seed and toolVersion), so it was not opened.`);
+    // Not an analysis: a scenario file becomes the study's own scenario, checked like the CLI checks it.
+    if (/\.json$/i.test(file.name) && looksLikeScenario(text)) {
+      try {
+        currentSetup?.useScenario(parseScenario(text, file.name));
+        problems?.clear('open');
+      } catch (error) {
+        problems?.show('open', (error as Error).message);
+      }
+      return;
+    }
+    problems?.show('open', `${file.name} is neither an analysis file (a JSON object with study, scenario, parameters, seed and toolVersion) nor a scenario file, so it was not opened.`);
     return;
   }
   try {

@@ -11,6 +11,16 @@ export function looksLikeAnalysis(text: string): boolean {
   }
 }
 
+/** A JSON object with a scenario's version field, or text that fails to parse as JSON (the validator then says where). */
+export function looksLikeScenario(text: string): boolean {
+  try {
+    const value = JSON.parse(text) as unknown;
+    return value !== null && typeof value === 'object' && !Array.isArray(value) && ('version' in value || 'carrier' in value);
+  } catch {
+    return true;
+  }
+}
+
 export function listenForPageDrops(open: (file: File) => void): void {
   // Without preventDefault on both events the browser opens the dropped file itself, leaving the page.
   window.addEventListener('dragover', (event) => {

@@ -9,6 +9,8 @@ import type { Study } from '../studies/Study.js';
 import { downloadText } from './download.js';
 import { SAFETY_CAUTION } from '../../estimator/safetyCaution.js';
 import { renderControl, renderSeed } from './renderControls.js';
+import { renderScenarioForm } from './renderScenarioForm.js';
+import type { Scenario } from '../../estimator/sim/Scenario.js';
 
 export interface SetupActions {
   /** A graph input changed (parameter, seed or scenario); the analysis object is already updated. */
@@ -21,17 +23,81 @@ export interface SetupActions {
   open(analysis: Analysis): void;
 }
 
-export function renderSetup(study: Study, analysis: Analysis, actions: SetupActions): HTMLElement {
+export interface Setup {
+  element: HTMLElement;
+  /** Replace the analysis's scenario (a demo picked, a file opened or dropped, a field edited). */
+  useScenario(scenario: Scenario): void;
+}
+
+/** Does this study fly the analysis's scenario (the replay study reads logs instead)? */
+export function fliesScenario(study: Study): boolean {
+  return [...study.cells, ...study.figures].some((c) => c.inputs.includes('scenario'));
+}
+
+export function renderSetup(study: Study, analysis: Analysis, actions: SetupActions): Setup {
   const setup = document.createElement('aside');
   setup.className = 'setup';
   setup.setAttribute('aria-label', 'Setup');
-  setup.innerHTML = `<h2>Analysis</h2><div class="control"><label for="control-scenario">Scenario</label><span></span><select id="control-scenario" data-parameter="scenario"><option value="">${escapeXml(analysis.scenario.name)}</option></select></div><p class="hint scenario-description">${escapeXml(analysis.scenario.description)}</p><h2>Controls</h2>`;
+  setup.innerHTML = `<h2>Analysis</h2><div class="control"><label for="control-scenario">Scenario</label><span></span><select id="control-scenario" data-parameter="scenario"><option value="">${escapeXml(analysis.scenario.name)}</option></select></div><p class="hint scenario-description">${escapeXml(analysis.scenario.description)}</p>`;
   const picker = setup.querySelector<HTMLSelectElement>('#control-scenario')!;
-  if (![...study.cells, ...study.figures].some((c) => c.inputs.includes('scenario'))) {
+  const hint = setup.querySelector<HTMLElement>('.scenario-description')!;
+  const scenarioSaid = document.createElement('p');
+  scenarioSaid.className = 'field-problem';
+  scenarioSaid.id = 'scenario-problem';
+  scenarioSaid.setAttribute('role', 'alert');
+  scenarioSaid.hidden = true;
+  let form: HTMLElement | null = null;
+  const useScenario = (scenario: Scenario): void => {
+    analysis.scenario = scenario;
+    picker.options[0]!.textContent = scenario.name;
+    picker.value = '';
+    hint.textContent = scenario.description;
+    scenarioSaid.hidden = true;
+    const next = renderScenarioForm(scenario, (edited) => {
+      analysis.scenario = edited;
+      actions.change('scenario', edited);
+    });
+    form?.replaceWith(next);
+    form = next;
+    actions.change('scenario', scenario);
+  };
+  const refuseScenario = (message: string): void => {
+    scenarioSaid.textContent = message;
+    scenarioSaid.hidden = false;
+  };
+  if (!fliesScenario(study)) {
     // A study that reads flight logs flies no scenario: say so instead of offering a picker.
     picker.closest('.control')!.remove();
-    setup.querySelector('.scenario-description')!.textContent = 'This study replays flight logs; the analysis carries a scenario, but nothing here flies it.';
+    hint.textContent = 'This study replays flight logs; the analysis carries a scenario, but nothing here flies it.';
+  } else {
+    // An own scenario file, checked by the same validator with the same file:line messages as the CLI.
+    const file = document.createElement('input');
+    file.type = 'file';
+    file.accept = '.json,application/json';
+    file.hidden = true;
+    file.id = 'open-scenario-file';
+    file.addEventListener('change', async () => {
+      const chosen = file.files?.[0];
+      file.value = '';
+      if (!chosen) return;
+      try {
+        useScenario(parseScenario(await chosen.text(), chosen.name));
+      } catch (error) {
+        refuseScenario((error as Error).message);
+      }
+    });
+    const open = document.createElement('button');
+    open.type = 'button';
+    open.id = 'open-scenario';
+    open.textContent = 'Open scenario file…';
+    open.addEventListener('click', () => file.click());
+    form = renderScenarioForm(analysis.scenario, (edited) => {
+      analysis.scenario = edited;
+      actions.change('scenario', edited);
+    });
+    setup.append(open, file, scenarioSaid, form);
   }
+  setup.insertAdjacentHTML('beforeend', '<h2>Controls</h2>');
   // The demo scenarios the server offers; picking one replaces the analysis's scenario.
   fetch('/data-demo/scenarios.json')
     .then((r) => (r.ok ? (r.json() as Promise<string[]>) : []))
@@ -45,17 +111,11 @@ export function renderSetup(study: Study, analysis: Analysis, actions: SetupActi
     }, () => {});
   picker.addEventListener('change', async () => {
     if (picker.value === '') return;
-    const hint = setup.querySelector('.scenario-description')!;
     try {
       const text = await (await fetch(`/data-demo/${encodeURIComponent(picker.value)}`)).text();
-      const scenario = parseScenario(text, picker.value);
-      analysis.scenario = scenario;
-      picker.options[0]!.textContent = scenario.name;
-      picker.value = '';
-      hint.textContent = scenario.description;
-      actions.change('scenario', scenario);
+      useScenario(parseScenario(text, picker.value));
     } catch (error) {
-      hint.textContent = (error as Error).message;
+      refuseScenario((error as Error).message);
     }
   });
   const change = (name: string, value: unknown): void => {
@@ -113,6 +173,6 @@ export function renderSetup(study: Study, analysis: Analysis, actions: SetupActi
     'beforeend',
     `<p class="hint">The link holds the whole analysis. Headless: <code>alight report ${study.id}-analysis.json --out report.html</code></p><p class="caution">${escapeXml(SAFETY_CAUTION)}</p>`,
   );
-  return setup;
+  return { element: setup, useScenario: (scenario) => (fliesScenario(study) ? useScenario(scenario) : refuseScenario('This study flies no scenario.')) };
 }
 

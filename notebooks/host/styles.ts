@@ -73,5 +73,11 @@ button:disabled { opacity: 0.45; cursor: default; }
 .verdict { font-weight: 600; }
 .verdict.bad { color: var(--warn); }
 .study-problems:empty { display: none; }
+#open-scenario { margin: 0 0 6px; }
+.scenario-form { margin: 0 0 8px; font-size: 12px; }
+.scenario-form > summary, .scenario-section > summary { cursor: pointer; font-weight: 600; padding: 2px 0; }
+.scenario-section { margin-left: 8px; }
+.scenario-field label { font-weight: 400; font-size: 12px; }
+.scenario-field input { font: inherit; padding: 2px 4px; border: 1px solid var(--rule); border-radius: 4px; grid-column: 1 / -1; }
 details pre { font-size: 11px; background: var(--plate); border: 1px solid var(--rule); padding: 8px; overflow: auto; max-height: 320px; }
 `;

@@ -118,7 +118,7 @@ describe.skipIf(!runBrowserTests)('bad input and history in chromium', () => {
     // A dropped file that is no analysis is refused in words, and the study stays.
     await dropFiles(page, '.setup', [{ name: 'notes.txt', text: 'hello' }]);
     await page.waitForSelector('.message[data-source="open"]');
-    expect(await page.textContent('.message[data-source="open"]')).toContain('notes.txt is not an analysis file');
+    expect(await page.textContent('.message[data-source="open"]')).toContain('notes.txt is neither an analysis file');
     expect(await page.textContent('h1')).toBe('Carrier speed and path');
     // Back returns to the study before the drop.
     await page.goBack();

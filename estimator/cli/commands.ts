@@ -5,6 +5,7 @@ import { cameraCommand } from './cameraCommand.js';
 import { mergeCommand } from './mergeCommand.js';
 import { summarizeCommand } from './summarizeCommand.js';
 import { trialsCommand } from './trialsCommand.js';
+import { testCardCommand } from './testCardCommand.js';
 import { sweepCommand } from './sweepCommand.js';
 import { requireCommand } from './requireCommand.js';
 import { sensitivityCommand } from './sensitivityCommand.js';
@@ -21,6 +22,7 @@ export const commands: Command[] = [
   summarizeCommand,
   sweepCommand,
   trialsCommand,
+  testCardCommand,
   requireCommand,
   sensitivityCommand,
   tuneCommand,

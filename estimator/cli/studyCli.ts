@@ -9,7 +9,7 @@ export const SEED_OPTION: OptionSpec = { name: 'seed', kind: 'value', valueName:
 export const JSON_OPTION: OptionSpec = { name: 'json', kind: 'flag', help: 'print JSON' };
 export const WORKERS_OPTION: OptionSpec = { name: 'workers', kind: 'value', valueName: 'K', help: 'worker threads (default: one per core; 1 = run in this thread)' };
 
-const STUDY_ERRORS = new Set(['SweepError', 'TrialError', 'DesignError', 'ShardError', 'ResultsError', 'MergeError', 'SummaryError', 'SearchError', 'RequirementError', 'SensitivityError']);
+const STUDY_ERRORS = new Set(['SweepError', 'TrialError', 'DesignError', 'ShardError', 'ResultsError', 'MergeError', 'SummaryError', 'SearchError', 'RequirementError', 'SensitivityError', 'TestCardError']);
 
 /** Library errors are bad input or a failed study: message without stack, exit 2. */
 export function asCliError(command: string, error: unknown): never {

@@ -14,6 +14,11 @@ export class Plate {
   private readonly status: HTMLElement;
   private readonly exports: HTMLElement;
 
+  /** The figure's name in its study (the key of its outputs). */
+  get name(): string {
+    return this.figure.name;
+  }
+
   constructor(private readonly figure: StudyFigure, private readonly filePrefix: string) {
     const element = document.createElement('figure');
     element.className = figure.wide ? 'plate wide' : 'plate';

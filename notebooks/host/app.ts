@@ -19,6 +19,7 @@ import { showControlValue } from './renderControls.js';
 import { listenForPageDrops, looksLikeAnalysis, looksLikeScenario } from './pageDrop.js';
 import { ProgressClock } from './ProgressClock.js';
 import { StudyProblems } from './StudyProblems.js';
+import { ComparePanel } from './ComparePanel.js';
 
 const runner = new WorkerJobRunner('/worker.js', Math.max(1, navigator.hardwareConcurrency || 2));
 let mounted: MountedStudy | null = null;
@@ -30,6 +31,15 @@ let currentSetup: Setup | null = null;
 /** The fragment the page shows now: history moves to any other one re-read the link. */
 let shownFragment = '';
 const clock = new ProgressClock();
+const compare = new ComparePanel(
+  runner,
+  () => {
+    const all = [...plates.values()];
+    const ready = all.length > 0 && all.every((p) => p.output !== null && p.output.final && p.element.dataset.final === 'true');
+    return { analysis: current!, outputs: ready ? new Map(all.map((p) => [p.name, p.output!])) : null };
+  },
+  (message) => problems?.show('open', message),
+);
 
 /** Read by the browser tests and handy in the console. */
 interface PageProbe {
@@ -115,6 +125,12 @@ function render(analysis: Analysis, problem: string | null, address: Address): v
     problems.note(`This analysis was made with alight ${analysis.toolVersion}; this page is ${VERSION}, so numbers may differ from the original.`);
   }
 
+  const comparison = document.createElement('section');
+  comparison.className = 'comparison';
+  comparison.setAttribute('aria-labelledby', 'compare-heading');
+  main.append(comparison);
+  setup.element.querySelector('.share')!.after(compare.controls());
+
   plates = new Map(study.figures.map((f) => [f.name, new Plate(f, study.id)]));
   let group: HTMLElement | null = null;
   for (const block of study.blocks) {
@@ -151,6 +167,7 @@ function render(analysis: Analysis, problem: string | null, address: Address): v
       if (output.failure) figureProblem(name, output.failure);
       else plates.get(name)?.update(output);
       updateBusy();
+      compare.draw();
     },
     failed: (name, message) => {
       figureProblem(name, message);
@@ -162,6 +179,7 @@ function render(analysis: Analysis, problem: string | null, address: Address): v
       updateBusy();
     },
   });
+  compare.attach(comparison);
   const graph = mounted;
   window.alight = {
     renders: () => Object.fromEntries([...plates].map(([k, p]) => [k, p.renders])),

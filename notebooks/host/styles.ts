@@ -74,6 +74,13 @@ button:disabled { opacity: 0.45; cursor: default; }
 .verdict.bad { color: var(--warn); }
 .study-problems:empty { display: none; }
 #open-scenario { margin: 0 0 6px; }
+.compare-controls { margin-top: 6px; }
+.comparison { background: var(--plate); border: 1px solid var(--rule); border-left: 4px solid var(--ink); border-radius: 4px; padding: 8px 12px; margin: 0 0 14px; }
+.comparison h2 { font: 600 15px var(--ui); margin: 0 0 4px; }
+.comparison table { border-collapse: collapse; width: 100%; font-size: 12px; font-variant-numeric: tabular-nums; margin: 6px 0; }
+.comparison caption { caption-side: top; text-align: left; font-size: 11px; color: var(--muted); padding: 0 0 3px; }
+.comparison th, .comparison td { text-align: right; padding: 3px 6px; border-bottom: 1px solid var(--rule); }
+.comparison th[scope="row"], .comparison th:first-child { text-align: left; font-weight: 400; }
 .scenario-form { margin: 0 0 8px; font-size: 12px; }
 .scenario-form > summary, .scenario-section > summary { cursor: pointer; font-weight: 600; padding: 2px 0; }
 .scenario-section { margin-left: 8px; }

@@ -5,7 +5,7 @@ import { describeProblems, parseResults } from '../study/resultsFile.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, parseArgs, type OptionSpec } from './parseArgs.js';
-import { asCliError, resolvePath } from './studyCli.js';
+import { asCliError, checkResultsSize, resolvePath } from './studyCli.js';
 import { checkOutputs, writeOutput, type OutputTarget } from './outputFiles.js';
 
 const USAGE = 'alight merge <shard.jsonl>... --out results.jsonl [--allow-partial]';
@@ -34,6 +34,7 @@ export const mergeCommand: Command = {
       const inputs: MergeInput[] = parsed.positional.map((name) => {
         const path = resolvePath(io.cwd, name);
         if (!existsSync(path)) throw new CliError(`alight merge: ${name}: no such file`);
+        checkResultsSize('merge', name, path);
         const result = parseResults(readFileSync(path, 'utf8'), name);
         if (result.problems.length > 0) {
           throw new CliError(`alight merge: ${name} has lines that are not trial records (finish it with alight sweep --resume):\n${describeProblems(name, result.problems)}`);

@@ -3,7 +3,7 @@
 import { consistencyWords } from '../study/statistics/ensembleConsistency.js';
 import { readFileSync } from 'node:fs';
 import { isAbsolute, join } from 'node:path';
-import { jsonLines, JsonSyntaxError } from '../io/jsonPositions.js';
+import { JsonSyntaxError, parseJsonText } from '../io/jsonPositions.js';
 import { estimatesHeader, estimatesRow } from '../io/log/estimatesCsv.js';
 import { FilterSettingsError } from '../io/log/filterSettings.js';
 import { logSourceFromFolder } from '../io/log/logSourceFromFolder.node.js';
@@ -36,8 +36,8 @@ export function readFilterSettings(command: string, path: string, cwd: string): 
     throw new CliError(`alight ${command}: cannot read --filter ${path} (${(error as { code?: string }).code ?? String(error)})`);
   }
   try {
-    const filterLines = jsonLines(text);
-    return { filter: JSON.parse(text) as ReplaySettings['filter'], filterSource: path, filterLines };
+    const { value, lines } = parseJsonText(text);
+    return { filter: value as ReplaySettings['filter'], filterSource: path, filterLines: lines };
   } catch (error) {
     if (error instanceof JsonSyntaxError) throw new CliError(`${path}:${error.line}:${error.column}: ${error.message}`);
     throw error;

@@ -6,6 +6,7 @@ import { successFigure } from '../study/figures/successFigure.js';
 import { findRequirement } from '../study/findRequirement.js';
 import { plausibleRange } from '../study/plausibleRanges.js';
 import { runBatch } from '../study/runBatch.js';
+import { MAX_TRIALS_PER_POINT } from '../study/studyLimits.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
@@ -59,7 +60,7 @@ export const requireCommand: Command = {
     const from = numberOption('require', parsed, 'from', known?.from ?? current);
     if (!parsed.values.has('to') && !known) throw new CliError(`alight require: give --to V for ${path} (no plausible range is built in)`);
     const to = numberOption('require', parsed, 'to', known?.to ?? 0);
-    const maxTrials = numberOption('require', parsed, 'trials', 400, (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
+    const maxTrials = numberOption('require', parsed, 'trials', 400, (v) => Number.isInteger(v) && v >= 1 && v <= MAX_TRIALS_PER_POINT, `an integer from 1 to ${MAX_TRIALS_PER_POINT}`);
     const firstBatch = numberOption('require', parsed, 'first-batch', 25, (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
     const steps = numberOption('require', parsed, 'steps', 6, (v) => Number.isInteger(v) && v >= 0 && v <= 30, 'an integer 0..30');
     const seed = numberOption('require', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
@@ -68,7 +69,7 @@ export const requireCommand: Command = {
     } catch (error) {
       return asCliError('require', error);
     }
-    const executor = createExecutor(workerCount('require', parsed), io.env);
+    const executor = createExecutor(workerCount('require', parsed, io), io.env);
     const json = parsed.flags.has('json');
     try {
       const result = await findRequirement({

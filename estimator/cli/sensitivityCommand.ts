@@ -6,6 +6,7 @@ import { PLAUSIBLE_RANGES, type PlausibleRange } from '../study/plausibleRanges.
 import { rankSensitivity } from '../study/rankSensitivity.js';
 import { runBatch } from '../study/runBatch.js';
 import { parseVary } from '../study/sweepDesign.js';
+import { MAX_TRIALS_PER_POINT } from '../study/studyLimits.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
@@ -50,11 +51,11 @@ export const sensitivityCommand: Command = {
     const scenario = loadScenarioOrFail(parsed.positional[0], 'sensitivity', io.cwd);
     const svgOut = outputTarget('--svg', parsed.values.get('svg'), io.cwd);
     if (svgOut) checkOutputs('sensitivity', [svgOut], scenarioFiles(parsed.positional[0]!, scenario, io.cwd));
-    const trials = numberOption('sensitivity', parsed, 'trials', 100, (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
+    const trials = numberOption('sensitivity', parsed, 'trials', 100, (v) => Number.isInteger(v) && v >= 1 && v <= MAX_TRIALS_PER_POINT, `an integer from 1 to ${MAX_TRIALS_PER_POINT}`);
     const seed = numberOption('sensitivity', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
     const given = parsed.lists.get('vary');
     const factors = given ? given.map(factorFrom) : PLAUSIBLE_RANGES.slice();
-    const executor = createExecutor(workerCount('sensitivity', parsed), io.env);
+    const executor = createExecutor(workerCount('sensitivity', parsed, io), io.env);
     const progress = progressBar(io, 'sensitivity');
     try {
       const points = factors.flatMap((f) => [{ [f.path]: f.from }, { [f.path]: f.to }]);

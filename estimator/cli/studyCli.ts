@@ -1,6 +1,8 @@
 // Light helpers shared by the study commands: error translation, shared options,
 // paths relative to the working directory. Imports no simulation code.
+import { statSync } from 'node:fs';
 import { ScenarioError } from '../io/ScenarioError.js';
+import { MAX_RESULTS_BYTES, MAX_TRIALS_PER_FILE } from '../study/studyLimits.js';
 import { CliError } from './CliError.js';
 import type { OptionSpec } from './parseArgs.js';
 
@@ -9,7 +11,7 @@ export const SEED_OPTION: OptionSpec = { name: 'seed', kind: 'value', valueName:
 export const JSON_OPTION: OptionSpec = { name: 'json', kind: 'flag', help: 'print JSON' };
 export const WORKERS_OPTION: OptionSpec = { name: 'workers', kind: 'value', valueName: 'K', help: 'worker threads (default: one per core; 1 = run in this thread)' };
 
-const STUDY_ERRORS = new Set(['SweepError', 'TrialError', 'DesignError', 'ShardError', 'ResultsError', 'MergeError', 'SummaryError', 'SearchError', 'RequirementError', 'SensitivityError', 'TestCardError']);
+const STUDY_ERRORS = new Set(['StudyLimitError', 'SweepError', 'TrialError', 'DesignError', 'ShardError', 'ResultsError', 'MergeError', 'SummaryError', 'SearchError', 'RequirementError', 'SensitivityError', 'TestCardError']);
 
 /** Library errors are bad input or a failed study: message without stack, exit 2. */
 export function asCliError(command: string, error: unknown): never {
@@ -21,6 +23,12 @@ export function asCliError(command: string, error: unknown): never {
     throw new CliError(`alight ${command}: ${internal ? 'a trial failed (please report): ' : ''}${error.message}`, internal ? 70 : 2);
   }
   throw error;
+}
+
+/** Refuse a results file too large to read whole (see studyLimits.ts), before reading it. */
+export function checkResultsSize(command: string, name: string, path: string): void {
+  const bytes = statSync(path).size;
+  if (bytes > MAX_RESULTS_BYTES) throw new CliError(`alight ${command}: ${name} is ${(bytes / 2 ** 20).toFixed(0)} MB, over the limit of ${MAX_RESULTS_BYTES / 2 ** 20} MB for a results file (a sweep writes at most ${MAX_TRIALS_PER_FILE} trials per file)`);
 }
 
 export function resolvePath(cwd: string, path: string): string {

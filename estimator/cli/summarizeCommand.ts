@@ -10,7 +10,7 @@ import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { SAFETY_CAUTION } from '../safetyCaution.js';
-import { asCliError, resolvePath } from './studyCli.js';
+import { asCliError, checkResultsSize, resolvePath } from './studyCli.js';
 import { checkOutputs, outputTarget, writeOutput, type OutputTarget } from './outputFiles.js';
 
 const USAGE = 'alight summarize <results.jsonl> [--by PATH] [--json | --format text|json|csv] [--csv FILE] [--svg FILE] [--miss-svg FILE] [--target RATE] [--skip-bad]';
@@ -40,6 +40,7 @@ export const summarizeCommand: Command = {
     const name = parsed.positional[0]!;
     const path = resolvePath(io.cwd, name);
     if (!existsSync(path)) throw new CliError(`alight summarize: ${name}: no such file`);
+    checkResultsSize('summarize', name, path);
     const format = parsed.flags.has('json') ? 'json' : (parsed.values.get('format') ?? 'text');
     if (!['text', 'json', 'csv'].includes(format)) throw new CliError(`alight summarize: --format expects text, json or csv, got "${format}"`);
     const csvOut = outputTarget('--csv', parsed.values.get('csv'), io.cwd);

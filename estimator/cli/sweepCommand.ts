@@ -55,7 +55,7 @@ export const sweepCommand: Command = {
     const points = parsed.values.has('points') ? numberOption('sweep', parsed, 'points', 1, (v) => Number.isInteger(v) && v >= 1, 'a positive integer') : undefined;
     if (points !== undefined && design === 'grid') throw new CliError('alight sweep: --points applies to --design random or lhs (a grid has one point per combination)');
     const shardCount = parsed.values.has('shard-count') ? numberOption('sweep', parsed, 'shard-count', 1, (v) => Number.isInteger(v) && v >= 1, 'a positive integer') : undefined;
-    const workers = workerCount('sweep', parsed);
+    const workers = workerCount('sweep', parsed, io);
     let executor;
     const progress = progressBar(io, 'sweep');
     try {

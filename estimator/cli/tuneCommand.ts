@@ -6,6 +6,7 @@ import { runBatch } from '../study/runBatch.js';
 import { searchMultipliers, type Multipliers, type SurfaceSample } from '../study/search.js';
 import { summarizeGroup, type PointSummary } from '../study/summarize.js';
 import { tuningCost } from '../study/tuningCost.js';
+import { MAX_TRIALS_PER_POINT } from '../study/studyLimits.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
@@ -97,11 +98,11 @@ export const tuneCommand: Command = {
     }
     const scenario: Scenario = loadScenarioOrFail(target, 'tune', io.cwd);
     checkOutputs('tune', outputs, scenarioFiles(target, scenario, io.cwd));
-    const trials = numberOption('tune', parsed, 'trials', 16, (v) => Number.isInteger(v) && v >= 1, 'a positive integer');
+    const trials = numberOption('tune', parsed, 'trials', 16, (v) => Number.isInteger(v) && v >= 1 && v <= MAX_TRIALS_PER_POINT, `an integer from 1 to ${MAX_TRIALS_PER_POINT}`);
     const weight = numberOption('tune', parsed, 'nees-weight', 0.25, (v) => v >= 0, 'a non-negative number');
     const seed = numberOption('tune', parsed, 'seed', scenario.seed, Number.isSafeInteger, 'an integer');
     const json = parsed.flags.has('json');
-    const executor = createExecutor(workerCount('tune', parsed), io.env);
+    const executor = createExecutor(workerCount('tune', parsed, io), io.env);
     const details = new Map<string, PointSummary>();
     try {
       const result = await searchMultipliers(async (m: Multipliers) => {

@@ -1,7 +1,10 @@
 // Where things are in a JSON text: the line of every value by its field path, and the
 // line/column of the first syntax error. JSON.parse reports neither on Node 20, and users
 // need "file:line: field" messages. A small recursive-descent scanner; values themselves
-// still come from JSON.parse.
+// still come from JSON.parse. It also refuses what JSON.parse lets through silently: a key
+// given twice (JSON.parse keeps the last), a number beyond the double range (1e999 becomes
+// Infinity, then null on the next write), and nesting deep enough to overflow the stack.
+// A leading UTF-8 byte-order mark is skipped, as editors on some systems write one.
 
 /** A JSON syntax error at a 1-based line and column. */
 export class JsonSyntaxError extends Error {
@@ -15,6 +18,22 @@ export class JsonSyntaxError extends Error {
   }
 }
 
+/** Deepest nesting of objects and arrays accepted (a scenario needs 5). */
+export const MAX_DEPTH = 64;
+
+const LITERAL = /true|false|null|-?(?:0|[1-9]\d*)(?:\.\d+)?(?:[eE][+-]?\d+)?/y;
+
+/**
+ * Parse JSON text (a leading byte-order mark skipped) with the line of every value.
+ * @throws JsonSyntaxError at the first syntax error, duplicate key, non-finite number or
+ *   nesting beyond MAX_DEPTH, with 1-based line and column.
+ * @example parseJsonText('\uFEFF{"a": 1}').value // { a: 1 }
+ */
+export function parseJsonText(text: string): { value: unknown; lines: Map<string, number> } {
+  const lines = jsonLines(text);
+  return { value: JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text) as unknown, lines };
+}
+
 /**
  * Scan `text` and return the 1-based line of every value, keyed by dotted path
  * ('' for the root, 'detector.pixelNoise', 'lander.startOffset.2'). Throws JsonSyntaxError
@@ -23,15 +42,20 @@ export class JsonSyntaxError extends Error {
  */
 export function jsonLines(text: string): Map<string, number> {
   const lines = new Map<string, number>();
-  let i = 0;
+  const start = text.charCodeAt(0) === 0xfeff ? 1 : 0;
+  let i = start;
+  let depth = 0;
 
-  const fail = (what: string): never => {
+  const failAt = (at: number, message: string): never => {
     let line = 1, column = 1;
-    for (let k = 0; k < i && k < text.length; k++) {
+    for (let k = start; k < at && k < text.length; k++) {
       if (text.charCodeAt(k) === 10) { line++; column = 1; } else column++;
     }
+    throw new JsonSyntaxError(message, line, column);
+  };
+  const fail = (what: string): never => {
     const found = i < text.length ? `'${text[i]}'` : 'end of file';
-    throw new JsonSyntaxError(`expected ${what}, found ${found}`, line, column);
+    return failAt(i, `expected ${what}, found ${found}`);
   };
   const lineStarts = [0];
   for (let k = 0; k < text.length; k++) if (text.charCodeAt(k) === 10) lineStarts.push(k + 1);
@@ -62,39 +86,50 @@ export function jsonLines(text: string): Map<string, number> {
     lines.set(path, lineAt(i));
     const c = text[i];
     const join = (key: string) => (path === '' ? key : `${path}.${key}`);
+    if ((c === '{' || c === '[') && ++depth > MAX_DEPTH) failAt(i, `nesting deeper than ${MAX_DEPTH} levels`);
     if (c === '{') {
       i++;
       space();
-      if (text[i] === '}') { i++; return; }
+      if (text[i] === '}') { i++; depth--; return; }
+      const keyLines = new Map<string, number>();
       for (;;) {
         space();
+        const keyAt = i;
         const key = string();
+        const first = keyLines.get(key);
+        if (first !== undefined) failAt(keyAt, `duplicate key "${key}" (first given on line ${first}); each key may appear once`);
+        keyLines.set(key, lineAt(keyAt));
         space();
         if (text[i] !== ':') fail("':'");
         i++;
         value(join(key));
         space();
         if (text[i] === ',') { i++; continue; }
-        if (text[i] === '}') { i++; return; }
+        if (text[i] === '}') { i++; depth--; return; }
         fail("',' or '}'");
       }
     }
     if (c === '[') {
       i++;
       space();
-      if (text[i] === ']') { i++; return; }
+      if (text[i] === ']') { i++; depth--; return; }
       for (let n = 0; ; n++) {
         value(join(String(n)));
         space();
         if (text[i] === ',') { i++; continue; }
-        if (text[i] === ']') { i++; return; }
+        if (text[i] === ']') { i++; depth--; return; }
         fail("',' or ']'");
       }
     }
     if (c === '"') { string(); return; }
-    const literal = /^(?:true|false|null|-?(?:0|[1-9]\d*)(?:\.\d+)?(?:[eE][+-]?\d+)?)/.exec(text.slice(i, i + 64));
+    LITERAL.lastIndex = i;
+    const literal = LITERAL.exec(text);
     if (!literal) fail('a value');
-    i += literal![0].length;
+    const word = literal![0];
+    if (word !== 'true' && word !== 'false' && word !== 'null' && !Number.isFinite(Number(word))) {
+      failAt(i, `number ${word.length > 24 ? `${word.slice(0, 21)}...` : word} is not finite (beyond the largest double, about 1.8e308)`);
+    }
+    i += word.length;
   };
 
   value('');

@@ -2,7 +2,7 @@
 // loadScenario.ts. Bad JSON is reported with file, line and column; schema and cross-field
 // problems one per line with file, line and field path (see validateScenario).
 import type { Scenario } from '../sim/Scenario.js';
-import { JsonSyntaxError, jsonLines } from './jsonPositions.js';
+import { JsonSyntaxError, parseJsonText } from './jsonPositions.js';
 import { ScenarioError } from './ScenarioError.js';
 import { validateScenario } from './validateScenario.js';
 
@@ -13,14 +13,14 @@ import { validateScenario } from './validateScenario.js';
  *   `rover.scenario.json:14: detector.pixelNoise: must be >= 0, got -1`.
  */
 export function parseScenario(text: string, fileName: string): Scenario {
-  let lines: Map<string, number>;
+  let parsed: { value: unknown; lines: Map<string, number> };
   try {
-    lines = jsonLines(text);
+    parsed = parseJsonText(text);
   } catch (error) {
     if (error instanceof JsonSyntaxError) {
       throw new ScenarioError(fileName, [`${fileName}:${error.line}:${error.column}: not valid JSON: ${error.message}`]);
     }
     throw error;
   }
-  return validateScenario(JSON.parse(text) as unknown, fileName, lines);
+  return validateScenario(parsed.value, fileName, parsed.lines);
 }

@@ -9,7 +9,7 @@ const isContainer = (v: unknown): v is Record<string, unknown> => v !== null && 
 function unknownPath(path: string, at: string, container: unknown): ScenarioError {
   const keys = isContainer(container) ? Object.keys(container) : [];
   const hint = keys.length > 0 ? ` (${at || 'the scenario'} has: ${keys.join(', ')})` : ` (${at} is a value, not a section)`;
-  return new ScenarioError('setPath', [`unknown scenario field "${path}"${hint}`]);
+  return new ScenarioError('changed scenario', [`unknown scenario field "${path}"${hint}`]);
 }
 
 /**
@@ -31,7 +31,7 @@ export function getPath(scenario: Scenario, path: string): unknown {
 /**
  * A validated copy of `scenario` with the field at `path` set to `value`.
  * @throws ScenarioError for an unknown path, or with one message per problem when the
- *   new value is out of range (`setPath: detector.pixelNoise: must be >= 0, got -1`).
+ *   new value is out of range (`changed scenario: detector.pixelNoise: must be >= 0, got -1`).
  * @example setPath(s, 'detector.pixelNoise', 4).detector.pixelNoise // 4
  */
 export function setPath(scenario: Scenario, path: string, value: unknown): Scenario {
@@ -53,5 +53,5 @@ export function setPaths(scenario: Scenario, values: Readonly<Record<string, unk
     for (const key of keys.slice(0, -1)) parent = parent[key] as Record<string, unknown>;
     parent[keys[keys.length - 1]!] = value;
   }
-  return validateScenario(copy, 'setPath');
+  return validateScenario(copy, 'changed scenario');
 }

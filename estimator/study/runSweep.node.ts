@@ -5,6 +5,7 @@ import type { Scenario } from '../sim/Scenario.js';
 import { VERSION } from '../version.js';
 import { canonicalText, describeProblems, formatHeader, parseResults, type ShardInfo, type SweepHeader } from './resultsFile.js';
 import { inShard } from './shard.js';
+import { checkStudySize, designSize } from './studyLimits.js';
 import { designPoints, type DesignKind, type VarySpec } from './sweepDesign.js';
 import type { ApplyParams, TrialExecutor } from './trialExecutor.js';
 
@@ -63,6 +64,7 @@ export function sweepHeader(o: Pick<SweepOptions, 'scenario' | 'vary' | 'design'
 
 export async function runSweep(o: SweepOptions): Promise<SweepSummary> {
   if (!Number.isInteger(o.trials) || o.trials < 1) throw new SweepError(`--trials must be a positive integer, got ${o.trials}`);
+  checkStudySize(designSize(o.vary, o.design, o.points), o.trials);
   const header = sweepHeader(o);
   if (o.check) {
     header.points.forEach((params, i) => {

@@ -1,4 +1,5 @@
 // Sweep designs: which scenario values each sweep point gets (grid, random, Latin hypercube).
+import { MAX_POINTS } from './studyLimits.js';
 import { RandomStream, streamId } from '../random/RandomStream.js';
 
 export type ParamValue = number | string | boolean;
@@ -53,6 +54,7 @@ export function parseVary(text: string): VarySpec {
     if (![from, to].every(Number.isFinite) || !Number.isInteger(count) || count < 1 || parts.some((p) => p.trim() === '')) {
       throw new DesignError(`--vary "${text}": FROM and TO must be numbers and COUNT a positive integer`);
     }
+    if (count > MAX_POINTS) throw new DesignError(`--vary "${text}": COUNT ${count} is over the limit of ${MAX_POINTS} points`);
     if (count === 1 && from !== to) throw new DesignError(`--vary "${text}": COUNT 1 needs FROM = TO`);
     return { path, from, to, count };
   }

@@ -104,8 +104,8 @@ describe('alight replay', () => {
       [['replay', 'nowhere'], 'alight replay: nowhere: no such log folder'],
       [['replay', variant('no-imu', 'imu.csv', null)], 'alight replay: imu.csv: missing'],
       [['replay', variant('no-column', 'boxes.csv', 'time,xMin,yMin,xMax\n1,2,3,4\n')], 'alight replay: boxes.csv:1 yMax: missing column "yMax"'],
-      [['replay', variant('bad-camera', 'camera.json', '{"format":"alight-log","version":1,"width":640,"height":480,"intrinsics":{"fx":500,"fy":500,"cx":320,"cy":900},"targetSize":1}')], 'alight replay: camera.json intrinsics.cy: expected a number in [0, height=480] (px), got 900'],
-      [['replay', variant('old-camera', 'camera.json', '{"format":"alight-log","version":7}')], 'camera.json version: this alight reads log layout version 1, got 7'],
+      [['replay', variant('bad-camera', 'camera.json', '{"format":"alight-log","version":1,"width":640,"height":480,"intrinsics":{"fx":500,"fy":500,"cx":320,"cy":900},"targetSize":1}')], 'alight replay: camera.json:1 intrinsics.cy: expected a number in [0, height=480] (px), got 900'],
+      [['replay', variant('old-camera', 'camera.json', '{"format":"alight-log","version":7}')], 'camera.json:1 version: this alight reads log layout version 1, got 7'],
       [['replay'], 'alight replay: give one log folder'],
       [['replay', 'flight', '--lags', '0'], '--lags expects an integer from 1 to 1000'],
     ];

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { JsonSyntaxError, jsonLines } from '../../estimator/io/jsonPositions.js';
+import { JsonSyntaxError, jsonLines, MAX_DEPTH, parseJsonText } from '../../estimator/io/jsonPositions.js';
 
 describe('jsonLines', () => {
   it('maps every field path to its line', () => {
@@ -21,6 +21,27 @@ describe('jsonLines', () => {
       expect((error as JsonSyntaxError).column).toBe(8);
       expect((error as JsonSyntaxError).message).toBe("expected a value, found '}'");
     }
+  });
+
+  it('skips a byte-order mark without shifting columns', () => {
+    expect(parseJsonText('\uFEFF{"a": 1}').value).toEqual({ a: 1 });
+    expect(() => jsonLines('\uFEFF{"a": }')).toThrow(expect.objectContaining({ line: 1, column: 7 }));
+  });
+
+  it('refuses a duplicate key at its second place, naming the first line; equal keys in different objects are fine', () => {
+    expect(() => jsonLines('{"a": {"b": 1},\n "a": 2}')).toThrow(expect.objectContaining({ line: 2, column: 2, message: 'duplicate key "a" (first given on line 1); each key may appear once' }));
+    expect(jsonLines('{"a": {"b": 1}, "c": {"b": 2}}').get('c.b')).toBe(1);
+  });
+
+  it('refuses numbers beyond the double range and accepts the largest finite one', () => {
+    expect(() => jsonLines('[1, -2e400]')).toThrow(expect.objectContaining({ column: 5, message: 'number -2e400 is not finite (beyond the largest double, about 1.8e308)' }));
+    expect(() => jsonLines(`[${'9'.repeat(400)}]`)).toThrow(/^number 9{21}\.\.\. is not finite/);
+    expect(parseJsonText('[1.7976931348623157e308]').value).toEqual([Number.MAX_VALUE]);
+  });
+
+  it('refuses nesting deeper than MAX_DEPTH instead of overflowing the stack', () => {
+    expect(jsonLines(`${'['.repeat(MAX_DEPTH)}${']'.repeat(MAX_DEPTH)}`).size).toBe(MAX_DEPTH);
+    expect(() => jsonLines('['.repeat(100_000))).toThrow(expect.objectContaining({ line: 1, column: MAX_DEPTH + 1, message: `nesting deeper than ${MAX_DEPTH} levels` }));
   });
 
   it('refuses a trailing comma and trailing text', () => {

@@ -23,14 +23,14 @@ describe('setPath', () => {
   });
 
   it('refuses an out-of-range value naming the field', () => {
-    expect(() => setPath(base, 'detector.pixelNoise', -3)).toThrow('setPath: detector.pixelNoise: must be >= 0, got -3');
-    expect(() => setPath(base, 'detector.dropout', 'x')).toThrow('setPath: detector.dropout: must be number, got "x"');
+    expect(() => setPath(base, 'detector.pixelNoise', -3)).toThrow('changed scenario: detector.pixelNoise: must be >= 0, got -3');
+    expect(() => setPath(base, 'detector.dropout', 'x')).toThrow('changed scenario: detector.dropout: must be number, got "x"');
   });
 });
 
 describe('setPaths', () => {
   it('sets fields that are only valid together, which one-at-a-time setPath refuses', () => {
-    expect(() => setPath(base, 'filter.rate', 50)).toThrow('setPath: localization.imuRate: must be <= filter.rate (50 Hz), got 100');
+    expect(() => setPath(base, 'filter.rate', 50)).toThrow('changed scenario: localization.imuRate: must be <= filter.rate (50 Hz), got 100');
     const s = setPaths(base, { 'filter.rate': 50, 'localization.imuRate': 50 });
     expect([s.filter.rate, s.localization.imuRate]).toEqual([50, 50]);
     expect(() => setPaths(base, { 'filter.rate': 50, 'filter.nope': 1 })).toThrow('unknown scenario field "filter.nope"');

@@ -3,6 +3,7 @@
 // files with readline; in a page, logSourceFromFiles() wraps dropped File objects.
 import type { LogStreamName } from './logStreams.js';
 import { STREAM_SPECS } from './logStreams.js';
+import { JsonSyntaxError, parseJsonText } from '../jsonPositions.js';
 
 export interface LogSource {
   /** A name for messages and reports (folder path or "dropped files"). */
@@ -11,6 +12,9 @@ export interface LogSource {
   camera: unknown;
   /** filter.json, parsed JSON (a partial FilterSpec the lander flew with), or null. */
   filter: unknown;
+  /** Line of each camera.json / filter.json field by dotted path (jsonLines), for messages. */
+  cameraLines?: ReadonlyMap<string, number>;
+  filterLines?: ReadonlyMap<string, number>;
   /** Text lines of a stream's CSV file (without line ends), or null when the file is absent. */
   open(stream: LogStreamName): AsyncIterable<string> | null;
   /**
@@ -79,10 +83,14 @@ export async function logSourceFromFiles(files: ReadonlyMap<string, LogFile>, na
     file === undefined ? null : typeof file === 'string' ? file : await file.text();
   const cameraText = await text(files.get('camera.json'));
   const filterText = await text(files.get('filter.json'));
+  const camera = cameraText === null ? undefined : parseJsonFile(cameraText);
+  const filter = filterText === null ? undefined : parseJsonFile(filterText);
   return {
     name,
-    camera: cameraText === null ? undefined : parseJsonOrText(cameraText),
-    filter: filterText === null ? null : parseJsonOrText(filterText),
+    camera: camera?.value,
+    filter: filter === undefined ? null : filter.value,
+    cameraLines: camera?.lines,
+    filterLines: filter?.lines,
     open(stream) {
       const file = files.get(STREAM_SPECS[stream].file);
       if (file === undefined) return null;
@@ -97,20 +105,26 @@ export async function logSourceFromFiles(files: ReadonlyMap<string, LogFile>, na
   };
 }
 
-/** JSON text -> value; invalid JSON is passed on as a JsonTextError marker for a clear message later. */
+/** Invalid JSON passed on as a marker, with where it broke, for a clear message later. */
 export class UnparsedJson {
   readonly text: string;
   readonly error: string;
-  constructor(text: string, error: string) {
+  readonly line: number;
+  readonly column: number;
+  constructor(text: string, error: string, line: number, column: number) {
     this.text = text;
     this.error = error;
+    this.line = line;
+    this.column = column;
   }
 }
 
-export function parseJsonOrText(text: string): unknown {
+/** JSON text -> value and the line of each field; invalid JSON (also a duplicate key or 1e999) as an UnparsedJson marker. */
+export function parseJsonFile(text: string): { value: unknown; lines?: Map<string, number> } {
   try {
-    return JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
+    return parseJsonText(text);
   } catch (error) {
-    return new UnparsedJson(text, (error as Error).message);
+    if (error instanceof JsonSyntaxError) return { value: new UnparsedJson(text, error.message, error.line, error.column) };
+    throw error;
   }
 }

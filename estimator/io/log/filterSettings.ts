@@ -3,7 +3,7 @@
 // validated by the scenario schema, so messages read `settings.json:3: qScale: must be > 0`.
 // Browser-safe.
 import type { FilterSpec } from '../../sim/Scenario.js';
-import { jsonLines, JsonSyntaxError } from '../jsonPositions.js';
+import { JsonSyntaxError, parseJsonText } from '../jsonPositions.js';
 import { ScenarioError } from '../ScenarioError.js';
 import { validateScenario } from '../validateScenario.js';
 import { defaultScenario } from '../defaultScenario.js';
@@ -54,12 +54,12 @@ export function applyFilterSettings(base: FilterSpec, partial: unknown, fileName
 
 /** Settings file text -> FilterSpec over `base`; JSON syntax errors name line and column. */
 export function parseFilterSettings(text: string, fileName: string, base: FilterSpec): FilterSpec {
-  let lines: Map<string, number>;
+  let parsed: { value: unknown; lines: Map<string, number> };
   try {
-    lines = jsonLines(text);
+    parsed = parseJsonText(text);
   } catch (error) {
     if (error instanceof JsonSyntaxError) throw new FilterSettingsError([`${fileName}:${error.line}:${error.column}: ${error.message}`]);
     throw error;
   }
-  return applyFilterSettings(base, JSON.parse(text), fileName, lines);
+  return applyFilterSettings(base, parsed.value, fileName, parsed.lines);
 }

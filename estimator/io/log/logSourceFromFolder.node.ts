@@ -5,8 +5,11 @@ import { createReadStream, existsSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { createInterface } from 'node:readline';
 import { LogLayoutError } from './LogProblem.js';
-import { parseJsonOrText, type LogSource } from './LogSource.js';
+import { parseJsonFile, type LogSource } from './LogSource.js';
 import { STREAM_SPECS } from './logStreams.js';
+
+/** Largest camera.json or filter.json read (they hold a few hundred bytes). */
+const MAX_JSON_BYTES = 1 << 20;
 
 /** Read chunk size: large enough that readline, not the disk, sets the pace. */
 const CHUNK_BYTES = 1 << 20;
@@ -15,14 +18,21 @@ const CHUNK_BYTES = 1 << 20;
 export function logSourceFromFolder(folder: string, name = folder): LogSource {
   if (!existsSync(folder)) throw new LogLayoutError(name, null, null, 'no such log folder');
   if (!statSync(folder).isDirectory()) throw new LogLayoutError(name, null, null, 'not a folder (a log is a folder with camera.json and CSV files)');
-  const json = (name: string): unknown => {
-    const path = join(folder, name);
-    return existsSync(path) ? parseJsonOrText(readFileSync(path, 'utf8')) : undefined;
+  const json = (file: string): { value: unknown; lines?: Map<string, number> } | undefined => {
+    const path = join(folder, file);
+    if (!existsSync(path)) return undefined;
+    const bytes = statSync(path).size;
+    if (bytes > MAX_JSON_BYTES) throw new LogLayoutError(file, null, null, `${bytes} bytes is over the limit of ${MAX_JSON_BYTES} for a settings file`);
+    return parseJsonFile(readFileSync(path, 'utf8'));
   };
+  const camera = json('camera.json');
+  const filter = json('filter.json');
   return {
     name,
-    camera: json('camera.json'),
-    filter: json('filter.json') ?? null,
+    camera: camera?.value,
+    filter: filter === undefined ? null : filter.value,
+    cameraLines: camera?.lines,
+    filterLines: filter?.lines,
     open(stream) {
       const path = join(folder, STREAM_SPECS[stream].file);
       if (!existsSync(path)) return null;

@@ -3,6 +3,7 @@
 // Validated once here; every problem names the field. Browser-safe (takes parsed JSON).
 import type { CameraMount, Distortion } from '../../sim/Scenario.js';
 import type { FilterCamera } from '../../models/FilterCamera.js';
+import { JsonSyntaxError, parseJsonText } from '../jsonPositions.js';
 import { LogLayoutError } from './LogProblem.js';
 import { LOG_STREAMS, type LogStreamName } from './logStreams.js';
 
@@ -22,8 +23,20 @@ export interface LogCamera {
 const FILE = 'camera.json';
 const TOP_KEYS = ['format', 'version', 'width', 'height', 'intrinsics', 'distortion', 'mount', 'targetSize', 'timeOffsets', 'note'];
 
+/** Lines of the fields of the camera.json being checked (set by parseLogCamera for its call). */
+let fieldLines: ReadonlyMap<string, number> | undefined;
+
+/** The line of a field ('mount.offset[0]' is 'mount.offset.0' in jsonLines), else of its parent. */
+function lineOf(field: string): number | null {
+  for (let path = field.replace(/\[(\d+)\]/g, '.$1'); ; path = path.includes('.') ? path.slice(0, path.lastIndexOf('.')) : '') {
+    const line = fieldLines?.get(path);
+    if (line !== undefined) return line;
+    if (path === '') return null;
+  }
+}
+
 function fail(field: string, message: string): never {
-  throw new LogLayoutError(FILE, null, field, message);
+  throw new LogLayoutError(FILE, lineOf(field), field, message);
 }
 
 function isRecord(v: unknown): v is Record<string, unknown> {
@@ -44,7 +57,16 @@ function num(v: unknown, field: string, check: (x: number) => boolean = () => tr
 const positive = (x: number) => x > 0;
 
 /** Validate camera.json (already parsed from JSON text). Throws LogLayoutError naming the field. */
-export function parseLogCamera(json: unknown): LogCamera {
+export function parseLogCamera(json: unknown, lines?: ReadonlyMap<string, number>): LogCamera {
+  fieldLines = lines;
+  try {
+    return checkLogCamera(json);
+  } finally {
+    fieldLines = undefined;
+  }
+}
+
+function checkLogCamera(json: unknown): LogCamera {
   const top = record(json, '', TOP_KEYS);
   if (top.format !== LOG_FORMAT) fail('format', `expected "${LOG_FORMAT}", got ${JSON.stringify(top.format) ?? 'nothing'}`);
   if (top.version !== LOG_VERSION) fail('version', `this alight reads log layout version ${LOG_VERSION}, got ${JSON.stringify(top.version) ?? 'nothing'}`);
@@ -80,11 +102,12 @@ export function parseLogCamera(json: unknown): LogCamera {
 
 /** camera.json text -> LogCamera; bad JSON is a layout problem too. */
 export function parseLogCameraText(text: string): LogCamera {
-  let json: unknown;
+  let parsed: { value: unknown; lines: Map<string, number> };
   try {
-    json = JSON.parse(text);
+    parsed = parseJsonText(text);
   } catch (error) {
-    throw new LogLayoutError(FILE, null, null, `not valid JSON (${(error as Error).message})`);
+    if (error instanceof JsonSyntaxError) throw new LogLayoutError(`${FILE}:${error.line}:${error.column}`, null, null, `not valid JSON: ${error.message}`);
+    throw error;
   }
-  return parseLogCamera(json);
+  return parseLogCamera(parsed.value, parsed.lines);
 }

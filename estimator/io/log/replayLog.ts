@@ -23,15 +23,15 @@ const TIE_ORDER: Record<LogStreamName, number> = { attitude: 0, imu: 1, odometry
 
 function readCameraJson(source: LogSource) {
   if (source.camera === undefined || source.camera === null) throw new LogLayoutError('camera.json', null, null, 'missing: a flight log needs camera.json (see the flight-log layout)');
-  if (source.camera instanceof UnparsedJson) throw new LogLayoutError('camera.json', null, null, `not valid JSON (${source.camera.error})`);
-  return parseLogCamera(source.camera);
+  if (source.camera instanceof UnparsedJson) throw new LogLayoutError(`camera.json:${source.camera.line}:${source.camera.column}`, null, null, `not valid JSON: ${source.camera.error}`);
+  return parseLogCamera(source.camera, source.cameraLines);
 }
 
 /** The FilterSpec a replay runs with: defaults <- the log's filter.json <- settings.filter. */
 export function replayFilterSpec(source: LogSource, settings: ReplaySettings = {}): FilterSpec {
   let spec = defaultFilterSpec();
-  if (source.filter instanceof UnparsedJson) throw new FilterSettingsError([`filter.json: not valid JSON (${source.filter.error})`]);
-  if (source.filter !== null && source.filter !== undefined) spec = applyFilterSettings(spec, source.filter, 'filter.json');
+  if (source.filter instanceof UnparsedJson) throw new FilterSettingsError([`filter.json:${source.filter.line}:${source.filter.column}: not valid JSON: ${source.filter.error}`]);
+  if (source.filter !== null && source.filter !== undefined) spec = applyFilterSettings(spec, source.filter, 'filter.json', source.filterLines);
   if (settings.filter) spec = applyFilterSettings(spec, settings.filter, settings.filterSource ?? 'settings', settings.filterLines);
   return spec;
 }

@@ -50,6 +50,10 @@ describe('parseLogCamera', () => {
   });
 
   it('reports text that is not JSON', () => {
-    expect(() => parseLogCameraText('{"width": 640,')).toThrow(/^camera.json: not valid JSON/);
+    const lined = '{\n "format": "alight-log",\n "version": 1,\n "width": 640, "height": 480,\n "intrinsics": { "fx": 505, "fy": 505,\n   "cx": 320, "cy": 900 },\n "targetSize": 1.84 }';
+    expect(() => parseLogCameraText(lined)).toThrow('camera.json:6 intrinsics.cy: expected a number in [0, height=480] (px), got 900');
+    expect(() => parseLogCameraText('\uFEFF' + lined.replace('900', '240'))).not.toThrow(); // byte-order mark accepted
+    expect(() => parseLogCameraText(lined.replace('"version": 1', '"version": 1, "width": 1'))).toThrow('camera.json:4:2: not valid JSON: duplicate key "width" (first given on line 3)');
+    expect(() => parseLogCameraText('{"width": 640,')).toThrow("camera.json:1:15: not valid JSON: expected a string, found end of file");
   });
 });

@@ -149,8 +149,8 @@ describe('replayLog validation', () => {
 
   it('stops with a layout error naming the file and field', async () => {
     await expect(replayTexts(withFile('camera.json', () => undefined))).rejects.toThrow('camera.json: missing');
-    await expect(replayTexts(withFile('camera.json', () => '{"format": "alight-log",'))).rejects.toThrow(/camera.json: not valid JSON/);
-    await expect(replayTexts(withFile('camera.json', (t) => t.replace('"fx": 500', '"fx": -500')))).rejects.toThrow('camera.json intrinsics.fx: expected a positive number (px), got -500');
+    await expect(replayTexts(withFile('camera.json', () => '{"format": "alight-log",'))).rejects.toThrow(/camera.json:1:25: not valid JSON/);
+    await expect(replayTexts(withFile('camera.json', (t) => t.replace('"fx": 500', '"fx": -500')))).rejects.toThrow(/^camera.json:\d+ intrinsics.fx: expected a positive number \(px\), got -500$/);
     await expect(replayTexts(withFile('imu.csv', () => undefined))).rejects.toThrow(LogLayoutError);
     await expect(replayTexts(withFile('attitude.csv', () => undefined))).rejects.toThrow('attitude.csv: missing');
     await expect(replayTexts(withFile('odometry.csv', (t) => t.replace('time,vx,vy,vz', 'time,vx,vy')))).rejects.toThrow('odometry.csv:1 vz: missing column "vz"');

@@ -9,6 +9,7 @@ import { parseRosMap, RosMapError } from '../io/ros/parseRosMap.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, parseArgs, type OptionSpec } from './parseArgs.js';
+import { checkOutputs } from './outputFiles.js';
 
 const OPTIONS: OptionSpec[] = [
   { name: 'map', kind: 'value', valueName: 'map.json', help: 'which topics and fields give boxes, IMU, attitude, odometry, truth and the camera (schema: estimator/io/ros/rosMap.schema.json)' },
@@ -54,6 +55,7 @@ export const ingestCommand: Command = {
     if (mapPath === undefined) throw new CliError(`alight ingest: say which topics to read with --map map.json (${USAGE})`);
     if (out === undefined) throw new CliError(`alight ingest: say where to write the log with --out <log-folder> (${USAGE})`);
     const resolve = (p: string) => (isAbsolute(p) ? p : join(io.cwd, p));
+    checkOutputs('ingest', LOG_FILES.map((f) => ({ option: '--out', name: join(out, f), path: join(resolve(out), f) })), [resolve(parsed.positional[0]!), resolve(mapPath)]);
     let mapText: string;
     try {
       mapText = readFileSync(resolve(mapPath), 'utf8');

@@ -17,7 +17,7 @@ import { SAFETY_CAUTION } from '../safetyCaution.js';
 import { asCliError, JSON_OPTION, resolvePath, SEED_OPTION, WORKERS_OPTION } from './studyCli.js';
 import { checkOutputs, filesIn, outputTarget, scenarioFiles, writeOutput, type OutputTarget } from './outputFiles.js';
 
-const USAGE = 'alight tune <scenario.json | log-folder> [--trials N] [--grid G] [--refine E] [--q LO:HI] [--r LO:HI] [--gate LO:HI] [--nees-weight W] [--criterion nis|nees] [--filter FILE] [--seed S] [--workers K] [--surface FILE] [--svg FILE] [--json]';
+const USAGE = 'alight tune <scenario.json | log-folder> [--trials N] [--grid G] [--refine E] [--q LO:HI] [--r LO:HI] [--gate LO:HI] [--nees-weight W] [--criterion nis|nees] [--filter FILE] [--free A,B,..] [--seed S] [--workers K] [--surface FILE] [--svg FILE] [--json]';
 const LOG_NOTE = '\nWith a flight-log folder every setting replays the whole log and the cost is consistency alone:\nNIS near its dimension, white innovations and few gated updates (or NEES when the log has truth.csv).\n';
 const PURPOSE = 'Search the filter multipliers filter.qScale, filter.rScale and filter.gateScale on a log-spaced grid, then\nrefine with Nelder–Mead. Cost = (1 - landing success) + w·|ln(ANEES / n)|, lower is better; every setting\nruns the same trials (same random streams), so differences come from the settings, not from luck.';
 const OPTIONS: OptionSpec[] = [

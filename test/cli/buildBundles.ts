@@ -15,6 +15,7 @@ export async function buildBundles(): Promise<Bundles> {
   const dir = mkdtempSync(join(tmpdir(), 'alight-bundles-'));
   const common = {
     bundle: true, platform: 'node' as const, format: 'esm' as const, target: 'node20', logLevel: 'error' as const,
+    loader: { '.wasm': 'file' as const }, // the ROS 2 reader's zstd/lz4 decoders ship .wasm files beside their code
     banner: { js: "import { createRequire as __alightRequire } from 'node:module'; const require = __alightRequire(import.meta.url);" },
   };
   await build({ ...common, entryPoints: ['estimator/cli/node.ts'], outfile: join(dir, 'alight.mjs') });

@@ -48,10 +48,11 @@ describe('outputs never replace inputs', () => {
     ['require --svg onto its scenario', ['require', 'sc.json', '--param', 'detector.pixelNoise', '--target', '0.9', '--svg', 'sc.json'], 'sc.json'],
     ['sensitivity --svg onto its scenario', ['sensitivity', 'sc.json', '--svg', 'sc.json'], 'sc.json'],
     ['tune --surface onto its scenario', ['tune', 'sc.json', '--surface', 'sc.json'], 'sc.json'],
-    ['tune --svg onto a file of its log', ['tune', 'log', '--svg', 'log/camera.json'], 'log/camera.json'],
+    ['tune --surface onto a file of its log', ['tune', 'log', '--surface', 'log/camera.json'], 'log/camera.json'],
     ['replay --out onto a file of its log', ['replay', 'log', '--out', 'log/imu.csv'], 'log/imu.csv'],
     ['replay --out onto its --filter file', ['replay', 'log', '--filter', 'log/filter.json', '--out', 'log/filter.json'], 'log/filter.json'],
     ['report --out onto its analysis', ['report', 'analysis.json', '--out', 'analysis.json'], 'analysis.json'],
+    ['ingest --out into the folder holding its map as filter.json', ['ingest', 'log/imu.csv', '--map', 'log/filter.json', '--out', 'log', '--force'], 'log/filter.json'],
     ['record --out into the folder holding its scenario as camera.json', ['record', 'log/camera.json', '--out', 'log', '--force'], 'log/camera.json'],
   ];
   for (const [label, argv, input] of cases) {

@@ -78,9 +78,7 @@ describe('alight report', () => {
     writeFileSync(join(work, 'bad.json'), JSON.stringify({ study: 'detection', scenario: defaultScenario(), parameters: { trials: 0 }, seed: 1.5, toolVersion: VERSION }));
     const { code, err } = await run(['report', 'bad.json', '--out', 'bad.html']);
     expect(code).toBe(2);
-    expect(err).toBe('alight report: bad.json:1: field "seed" must be a non-negative whole number, got 1.5
-alight report: bad.json:1: parameters.trials must be within [1, 1000] trials, got 0
-');
+    expect(err).toBe('alight report: bad.json:1: field "seed" must be a non-negative whole number, got 1.5\nalight report: bad.json:1: parameters.trials must be within [1, 1000] trials, got 0\n');
   });
 
   it('refuses a missing file and a missing argument with a message, exit 2', async () => {

@@ -52,6 +52,23 @@ function makeScale(axis: Axis, range: [number, number]): ScaleContinuousNumeric<
   return (axis.log ? scaleLog() : scaleLinear()).domain(domain).range(range);
 }
 
+/**
+ * A mark with a tooltip can take keyboard focus and names itself to screen readers; the page
+ * shows the same text beside it on focus (data-tip), as the SVG title shows it on hover.
+ */
+function focusTip(text: string | undefined): Record<string, string> {
+  return text ? { tabindex: '0', role: 'img', 'aria-label': text, 'data-tip': text } : {};
+}
+
+/** Tick values; a log axis over two or more decades ticks at the decades only (1, 10, 100...), else at 1, 2 and 5 of each. */
+function axisTicks(scale: ScaleContinuousNumeric<number, number>, axis: Axis, count: number): number[] {
+  const ticks = scale.ticks(axis.ticks ?? count);
+  if (!axis.log) return ticks;
+  const mantissa = (v: number): number => Math.round(v / 10 ** Math.floor(Math.log10(v) + 1e-9));
+  const decades = ticks.filter((v) => mantissa(v) === 1);
+  return decades.length >= 2 ? decades : ticks.filter((v) => [1, 2, 5].includes(mantissa(v)));
+}
+
 function widen(domain: [number, number], span: number): [number, number] {
   const mid = (domain[0] + domain[1]) / 2;
   return [mid - span / 2, mid + span / 2];
@@ -76,16 +93,24 @@ export function plotSvg(spec: PlotSpec): string {
   const parts: string[] = [];
 
   // Grid and axes.
-  const xTicks = xAxis.tickLabels ?? x.ticks(xAxis.ticks ?? 6).map((v) => ({ value: v, label: (xAxis.format ?? formatNumber)(v) }));
-  const yTicks = yAxis.tickLabels ?? y.ticks(yAxis.ticks ?? 5).map((v) => ({ value: v, label: (yAxis.format ?? formatNumber)(v) }));
+  const xTicks = xAxis.tickLabels ?? axisTicks(x, xAxis, 6).map((v) => ({ value: v, label: (xAxis.format ?? formatNumber)(v) }));
+  const yTicks = yAxis.tickLabels ?? axisTicks(y, yAxis, 5).map((v) => ({ value: v, label: (yAxis.format ?? formatNumber)(v) }));
+  // Labels that would touch the previous one are left out (their grid line stays).
+  let lastRight = -Infinity;
   for (const t of xTicks) {
     const px = x(t.value);
     parts.push(el('line', { x1: px, x2: px, y1: MARGIN.top, y2: MARGIN.top + innerH, stroke: GRID }));
+    const half = (t.label.length * 6.2) / 2;
+    if (px - half < lastRight + 4) continue;
+    lastRight = px + half;
     parts.push(el('text', { x: px, y: MARGIN.top + innerH + 16, 'text-anchor': 'middle', fill: MUTED, 'font-size': 11 }, escapeXml(t.label)));
   }
+  let lastY = Infinity;
   for (const t of yTicks) {
     const py = y(t.value);
     parts.push(el('line', { x1: MARGIN.left, x2: MARGIN.left + innerW, y1: py, y2: py, stroke: GRID }));
+    if (Math.abs(py - lastY) < 13) continue;
+    lastY = py;
     parts.push(el('text', { x: MARGIN.left - 6, y: py + 4, 'text-anchor': 'end', fill: MUTED, 'font-size': 11 }, escapeXml(t.label)));
   }
   parts.push(el('rect', { x: MARGIN.left, y: MARGIN.top, width: innerW, height: innerH, fill: 'none', stroke: MUTED, 'stroke-width': 0.8 }));
@@ -160,9 +185,10 @@ function drawLayer(layer: Layer, x: Scale, y: Scale): string {
         const py = y(layer.y[i]!);
         if (!finite(px, py)) continue;
         const r = layer.radius ?? 3.5;
-        const title = layer.titles?.[i] ? el('title', {}, escapeXml(layer.titles[i]!)) : '';
+        const text = layer.titles?.[i];
+        const title = text ? el('title', {}, escapeXml(text)) : '';
         const shape = layer.shape ?? 'circle';
-        marks.push(pointMark(shape, px, py, r, { fill: layer.color, stroke: '#fffdf8', 'stroke-width': 0.8 }, title));
+        marks.push(pointMark(shape, px, py, r, { fill: layer.color, stroke: '#fffdf8', 'stroke-width': 0.8, ...focusTip(text) }, title));
       }
       return marks.join('');
     }
@@ -182,7 +208,7 @@ function drawLayer(layer: Layer, x: Scale, y: Scale): string {
         .map((r) => {
           const x0 = x(r.x0), x1 = x(r.x1), y0 = y(r.y0), y1 = y(r.y1);
           if (!finite(x0, x1, y0, y1)) return '';
-          return el('rect', { x: Math.min(x0, x1), y: Math.min(y0, y1), width: Math.abs(x1 - x0), height: Math.abs(y1 - y0), fill: r.fill, stroke: r.stroke ?? null },
+          return el('rect', { x: Math.min(x0, x1), y: Math.min(y0, y1), width: Math.abs(x1 - x0), height: Math.abs(y1 - y0), fill: r.fill, stroke: r.stroke ?? null, ...focusTip(r.title) },
             ...(r.title ? [el('title', {}, escapeXml(r.title))] : []));
         })
         .join('');

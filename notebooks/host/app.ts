@@ -20,6 +20,7 @@ import { listenForPageDrops, looksLikeAnalysis, looksLikeScenario } from './page
 import { ProgressClock } from './ProgressClock.js';
 import { StudyProblems } from './StudyProblems.js';
 import { ComparePanel } from './ComparePanel.js';
+import { listenForFocusTips } from './focusTips.js';
 
 const runner = new WorkerJobRunner('/worker.js', Math.max(1, navigator.hardwareConcurrency || 2));
 let mounted: MountedStudy | null = null;
@@ -252,5 +253,6 @@ runner.onActivity((list) => {
 window.addEventListener('popstate', followLocation);
 window.addEventListener('hashchange', followLocation);
 listenForPageDrops((file) => void openDroppedFile(file));
+listenForFocusTips();
 const first = readLink(location.hash);
 render(first.analysis, first.problem, first.problem !== null ? 'keep' : 'replace');

@@ -74,6 +74,8 @@ button:disabled { opacity: 0.45; cursor: default; }
 .verdict.bad { color: var(--warn); }
 .study-problems:empty { display: none; }
 #open-scenario { margin: 0 0 6px; }
+.focus-tip { position: absolute; z-index: 10; max-width: 320px; background: var(--ink); color: var(--plate); font-size: 12px; padding: 4px 8px; border-radius: 4px; pointer-events: none; }
+svg [data-tip]:focus { outline: none; stroke: ${FOCUS}; stroke-width: 3px; }
 .compare-controls { margin-top: 6px; }
 .comparison { background: var(--plate); border: 1px solid var(--rule); border-left: 4px solid var(--ink); border-radius: 4px; padding: 8px 12px; margin: 0 0 14px; }
 .comparison h2 { font: 600 15px var(--ui); margin: 0 0 4px; }

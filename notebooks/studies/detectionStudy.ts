@@ -12,6 +12,7 @@ import { ESTIMATE, SERIES, TRUTH } from '../figures/palette.js';
 import { extent, plotSvg } from '../figures/plot.js';
 import { escapeXml, formatNumber, formatPercent } from '../figures/svg.js';
 import { claimReach } from './claimReach.js';
+import { consistencyWords } from '../../estimator/study/statistics/ensembleConsistency.js';
 import { CONFIDENCE_PARAMETER, Z_OF_LEVEL } from './confidence.js';
 import { fromState, HALF, htmlTable, keyNumber, toCsv } from './figureOutput.js';
 import type { Study } from './Study.js';
@@ -183,7 +184,7 @@ export const detectionStudy: Study = {
     {
       name: 'outcomes',
       title: 'Outcomes per point',
-      caption: 'How each trial ended. The sweep’s results file (JSON Lines) gives the same counts through `alight summarize`.',
+      caption: `How each trial ended, and the trials’ averaged NEES against its chi-square interval with the verdict of \`alight summarize\` (${consistencyWords('consistent')}; ${consistencyWords('over-confident')}; ${consistencyWords('under-confident')}). The sweep’s results file (JSON Lines) gives the same counts through \`alight summarize\`.`,
       wide: true,
       inputs: ['sweep', 'impairment'],
       compute: (state: SweepState, impairment: string) => fromState(state, 'trials', (value) => outcomeTable(value, IMPAIRMENTS[impairment]!.path)),
@@ -200,7 +201,7 @@ export const detectionStudy: Study = {
 };
 
 export function outcomeTable(value: SweepOutput, path: string): { kind: 'table'; markup: string; csv: string; attachment: { label: string; fileName: string; text: string } } {
-  const header = [path, 'trials', 'landed', 'off-pad', 'hard-contact', 'aborted', 'timed-out', 'diverged', 'NEES mean', 'position RMSE (m)'];
+  const header = [path, 'trials', 'landed', 'off-pad', 'hard-contact', 'aborted', 'timed-out', 'diverged', 'NEES mean', 'NEES 95 % interval', 'NEES verdict', 'position RMSE (m)'];
   const rows = value.summaries.map((p) => [
     String(p.point[path]),
     String(p.trials),
@@ -211,9 +212,11 @@ export function outcomeTable(value: SweepOutput, path: string): { kind: 'table';
     String(p.outcomes['timed-out']),
     String(p.outcomes.diverged),
     formatNumber(p.neesMean),
+    p.neesLow === null || p.neesHigh === null ? '–' : `${formatNumber(p.neesLow)} to ${formatNumber(p.neesHigh)}`,
+    p.neesVerdict ?? '–',
     formatNumber(p.positionRmse),
   ]);
-  const csvRows = value.summaries.map((p) => [p.point[path] as number, p.trials, p.outcomes.landed, p.outcomes['off-pad'], p.outcomes['hard-contact'], p.outcomes.aborted, p.outcomes['timed-out'], p.outcomes.diverged, p.neesMean, p.positionRmse]);
+  const csvRows = value.summaries.map((p) => [p.point[path] as number, p.trials, p.outcomes.landed, p.outcomes['off-pad'], p.outcomes['hard-contact'], p.outcomes.aborted, p.outcomes['timed-out'], p.outcomes.diverged, p.neesMean, p.neesLow, p.neesHigh, p.neesVerdict, p.positionRmse]);
   return {
     kind: 'table',
     markup: htmlTable(header, rows),

@@ -26,6 +26,12 @@ function rowAt(value: LandingOutput, t: number): number {
   return k;
 }
 
+/** Said on each view when the inspected time lies past the trial's end (the slider reaches 120 s for every trial). */
+function pastEnd(value: LandingOutput, t: number): string | undefined {
+  const end = value.t[value.t.length - 1];
+  return end !== undefined && t > end ? `trial ended at ${formatNumber(end)} s: its last moment shown` : undefined;
+}
+
 function deckOutline(east: number, north: number, heading: number, length: number, width: number): { x: number[]; y: number[] } {
   const c = Math.cos(heading), s = Math.sin(heading);
   const corners = [[length / 2, width / 2], [-length / 2, width / 2], [-length / 2, -width / 2], [length / 2, -width / 2]];
@@ -54,6 +60,7 @@ export const landingViews: StudyFigure[] = [
             markup: plotSvg({
               title: 'Top view',
               ...HALF,
+              note: pastEnd(v, time),
               equalAspect: true,
               legendBelow: true,
               x: { label: 'east (m)', domain: extent([...v.carrierEast, ...lx]) },
@@ -90,6 +97,7 @@ export const landingViews: StudyFigure[] = [
             markup: plotSvg({
               title: 'Side view',
               ...HALF,
+              note: pastEnd(v, time),
               legendBelow: true,
               x: { label: 'along the carrier heading (m)', domain: extent([...ta, -half, half]) },
               y: { label: 'height above deck (m)', domain: extent([...th, 0], 0.08) },
@@ -130,7 +138,7 @@ export const landingViews: StudyFigure[] = [
           const centre = (b: Box) => [(b.xMin + b.xMax) / 2, (b.yMin + b.yMax) / 2] as const;
           const offset = latest && truth ? Math.hypot(centre(latest.box)[0] - centre(truth.box)[0], centre(latest.box)[1] - centre(truth.box)[1]) : null;
           return {
-            markup: plotSvg({ title: 'Camera image', ...HALF, equalAspect: true, yDown: true, legendBelow: true, x: { label: 'u (px)', domain: [0, w] }, y: { label: 'v (px)', domain: [0, h] }, layers }),
+            markup: plotSvg({ title: 'Camera image', ...HALF, note: pastEnd(v, time), equalAspect: true, yDown: true, legendBelow: true, x: { label: 'u (px)', domain: [0, w] }, y: { label: 'v (px)', domain: [0, h] }, layers }),
             csv: toCsv(['t', 'source', 'xMin', 'yMin', 'xMax', 'yMax'], [
               ...v.boxes.map((b) => [b.t, 'detector', b.box.xMin, b.box.yMin, b.box.xMax, b.box.yMax]),
               ...v.outlines.map((o) => [o.t, 'true outline', o.box.xMin, o.box.yMin, o.box.xMax, o.box.yMax]),

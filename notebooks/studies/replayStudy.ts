@@ -9,6 +9,7 @@ import type { JobRunner } from '../jobs/JobRunner.js';
 import type { JobState } from '../jobs/JobState.js';
 import type { LogChoice, ReplayOutput } from '../jobs/replayJob.js';
 import { fromState, HALF, htmlTable, keyNumber, toCsv, WIDE } from './figureOutput.js';
+import { sideBySide } from '../figures/sideBySide.js';
 import { verdictText } from './verdictText.js';
 import type { FigureOutput, Study } from './Study.js';
 
@@ -127,27 +128,40 @@ export const replayStudy: Study = {
     {
       name: 'whiteness',
       title: 'Innovation whiteness',
-      caption: 'Sample autocorrelation of each normalized innovation sequence against its lag; a white sequence stays inside ±1.96/√N (band: the widest of them) and passes the Ljung–Box test (✗: it fails).',
+      caption: 'Sample autocorrelation of each normalized innovation sequence against its lag, camera boxes on the left and odometry on the right; a white sequence stays inside ±1.96/√N (band: the widest of the panel) and passes the Ljung–Box test (✗: it fails).',
+      wide: true,
       inputs: ['replay'],
       compute: (state: ReplayState) =>
         fromState(state, 'log', (value) => {
           const tests = value.report.whiteness.tests;
-          const bound = Math.max(0, ...tests.map((t) => t.bound));
-          const lagsAxis = Math.max(1, ...tests.map((t) => t.lags));
-          const layers: Layer[] = [
-            { kind: 'band', x: [0.5, lagsAxis + 0.5], low: [-bound, -bound], high: [bound, bound], color: SERIES[5]!, opacity: 0.25, label: '±1.96/√N' },
-            ...tests.map((t, i): Layer => ({ kind: 'line', x: t.autocorrelation.map((_, k) => k + 1), y: t.autocorrelation, color: SERIES[i % 5]!, dash: i % 4, width: 1.4, label: `${shortSeries(t.series)}${t.white ? '' : ' ✗'}` })),
-          ];
+          // One panel per sensor, at most a handful of series each: eight lines in one panel could not be told apart.
+          const groups = [
+            { name: 'camera boxes', tests: tests.filter((t) => !t.series.startsWith('odometry')) },
+            { name: 'odometry', tests: tests.filter((t) => t.series.startsWith('odometry')) },
+          ].filter((g) => g.tests.length > 0);
+          const width = Math.floor(WIDE.width / Math.max(1, groups.length));
+          const panel = (g: { name: string; tests: typeof tests }): string => {
+            const bound = Math.max(0, ...g.tests.map((t) => t.bound));
+            const lagsAxis = Math.max(1, ...g.tests.map((t) => t.lags));
+            const layers: Layer[] = [
+              { kind: 'band', x: [0.5, lagsAxis + 0.5], low: [-bound, -bound], high: [bound, bound], color: SERIES[5]!, opacity: 0.25, label: '±1.96/√N' },
+              ...g.tests.map((t, i): Layer => ({ kind: 'line', x: t.autocorrelation.map((_, k) => k + 1), y: t.autocorrelation, color: SERIES[i % 5]!, dash: i % 4, width: 1.4, label: `${shortSeries(t.series)}${t.white ? '' : ' ✗'}` })),
+            ];
+            return plotSvg({
+              title: `Innovation whiteness: ${g.name}`,
+              width,
+              height: WIDE.height,
+              legendBelow: true,
+              x: { label: `lag (${g.name} updates)`, domain: [0.5, lagsAxis + 0.5] },
+              y: { label: 'autocorrelation', domain: extent([...g.tests.flatMap((t) => t.autocorrelation), bound, -bound], 0.1) },
+              layers,
+            });
+          };
           const smallest = tests.length > 0 ? Math.min(...tests.map((t) => t.pValue)) : null;
           return {
-            markup: plotSvg({
-              title: 'Innovation whiteness',
-              ...HALF,
-              legendBelow: true,
-              x: { label: 'lag (updates)', domain: [0.5, lagsAxis + 0.5] },
-              y: { label: 'autocorrelation', domain: extent([...tests.flatMap((t) => t.autocorrelation), bound, -bound], 0.1) },
-              layers,
-            }),
+            ...(groups.length > 0
+              ? { markup: sideBySide('Innovation whiteness', groups.map((g) => ({ svg: panel(g), width, height: WIDE.height }))) }
+              : { kind: 'table' as const, markup: '<p>No innovation sequence long enough to test.</p>' }),
             csv: toCsv(['series', 'count', 'lags', 'bound', 'outside', 'ljungBox', 'threshold', 'pValue', 'white'], tests.map((t) => [t.series, t.count, t.lags, t.bound, t.outside, t.ljungBox, t.threshold, t.pValue, t.white ? 1 : 0])),
             numbers: [keyNumber('smallestP', 'smallest Ljung–Box p', smallest, smallest !== null && smallest < 0.001 ? '< 0.001' : formatNumber(smallest))],
           };

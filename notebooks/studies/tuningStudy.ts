@@ -97,15 +97,16 @@ export const tuningStudy: Study = {
     {
       name: 'landing',
       title: 'Landing surface',
-      caption: 'Share of trials landed per grid setting (darker = more landings); the diamond is the recommended point (lowest cost).',
+      caption: 'Share of trials landed per grid setting (darker = more landings lost, as darker = less consistent on the other map); the diamond is the recommended point (lowest cost).',
       inputs: ['search'],
       compute: (state: TuningState) =>
         fromState(state, 'trials', (value, partial) => {
           const grid = value.samples.filter((s) => s.stage === 'grid');
-          const cells = heatCells(grid.map((s) => ({ x: s.q, y: s.r, fill: sequential(s.summary.successRate), title: `qScale ${s.q}, rScale ${s.r}: ${s.summary.landed} of ${s.summary.trials} landed` })));
+          // Dark = bad on both maps (here: landings lost), so the two read the same way side by side.
+          const cells = heatCells(grid.map((s) => ({ x: s.q, y: s.r, fill: sequential(1 - s.summary.successRate), title: `qScale ${s.q}, rScale ${s.r}: ${s.summary.landed} of ${s.summary.trials} landed` })));
           const best = value.best;
           return {
-            markup: plotSvg({ title: 'Landing surface', ...HALF, legendBelow: true, ...axes(cells, grid), note: partial ? 'partial results' : undefined, layers: [cells.layer, ...refineMarks(value.samples), ...bestMarker(best), ...rampKey(sequential, [[0, 'none landed'], [0.5, 'half'], [1, 'all landed']])] }),
+            markup: plotSvg({ title: 'Landing surface', ...HALF, legendBelow: true, ...axes(cells, grid), note: partial ? 'partial results' : undefined, layers: [cells.layer, ...refineMarks(value.samples), ...bestMarker(best), ...rampKey(sequential, [[0, 'all landed'], [0.5, 'half'], [1, 'none landed']])] }),
             csv: toCsv(['qScale', 'rScale', 'trials', 'landed', 'successRate', 'wilsonLow', 'wilsonHigh'], grid.map((s) => [s.q, s.r, s.summary.trials, s.summary.landed, s.summary.successRate, s.summary.wilsonLow, s.summary.wilsonHigh])),
             numbers: best
               ? [

@@ -226,6 +226,13 @@ describe.skipIf(!runBrowserTests)('bad input and history in chromium', () => {
     const plate = await page.evaluate(() => getComputedStyle(document.querySelector('.plate')!).backgroundColor);
     expect(strokes.length).toBeGreaterThanOrEqual(2);
     for (const s of strokes) expect(contrastRatio(s, plate), s).toBeGreaterThanOrEqual(3);
+    // A point's tooltip shows on keyboard focus too, not on hover alone.
+    await page.focus('[data-figure="success"] [data-tip]');
+    const tip = await page.getAttribute('[data-figure="success"] [data-tip]', 'data-tip');
+    expect(tip).toMatch(/^\d+ of 1 landed$/);
+    expect(await page.isVisible('#focus-tip')).toBe(true);
+    expect(await page.textContent('#focus-tip')).toBe(tip);
+    await page.keyboard.press('Tab');
     expect(pageErrors).toEqual([]);
   });
 });

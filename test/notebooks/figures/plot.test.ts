@@ -35,6 +35,14 @@ describe('plotSvg', () => {
   });
 });
 
+describe('log axis labels', () => {
+  it('labels only the decades over several decades, so labels never overlap', () => {
+    const svg = plotSvg({ title: 'log', width: 440, height: 270, x: { label: 't', domain: [0, 1] }, y: { label: 'NIS', domain: [0.01, 100], log: true, ticks: 4 }, layers: [] });
+    const labels = [...svg.matchAll(/<text x="52" y="[^"]*" text-anchor="end"[^>]*>([^<]*)<\/text>/g)].map((m) => m[1]);
+    expect(labels).toEqual(['0.01', '0.1', '1', '10', '100']);
+  });
+});
+
 describe('extent', () => {
   it('pads the finite range and ignores NaN', () => {
     expect(extent([1, NaN, 3], 0.5)).toEqual([0, 4]);

@@ -51,8 +51,8 @@ export function tuneLogJson(result: TuneLogResult) {
 
 /** @param inputs every file the tuning reads (no output may overwrite one) */
 export async function tuneOnLog(folders: readonly string[], parsed: ParsedArgs, io: CommandIo, inputs: readonly string[]): Promise<number> {
-  for (const old of ['q', 'r', 'gate', 'grid', 'refine', 'criterion', 'nees-weight', 'trials', 'logs']) {
-    if (parsed.values.has(old)) throw new CliError(`alight tune: --${old} applies to a scenario, not to flight logs (on logs the noise terms themselves are identified; name them with --free)`);
+  for (const scenarioOnly of ['q', 'r', 'grid', 'trials', 'logs', 'seed', 'workers']) {
+    if (parsed.values.has(scenarioOnly)) throw new CliError(`alight tune: --${scenarioOnly} applies to a scenario, not to flight logs (on logs the noise terms themselves are identified; name them with --free)`);
   }
   const surfaceOut = outputTarget('--surface', parsed.values.get('surface'), io.cwd);
   if (parsed.values.has('svg')) throw new CliError('alight tune: --svg draws the landing trade-off of a scenario; on flight logs write the likelihood profiles with --surface FILE.csv');

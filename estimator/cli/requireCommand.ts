@@ -12,6 +12,8 @@ import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { createExecutor, loadScenarioOrFail, workerCount } from './studyRunner.js';
 import { SAFETY_CAUTION } from '../safetyCaution.js';
+import { scenarioUnit } from '../io/scenarioUnit.js';
+import { decimalsFor, decimalsIn, percent, quantity } from './formatNumbers.js';
 import { asCliError, JSON_OPTION, SEED_OPTION, WORKERS_OPTION } from './studyCli.js';
 import { checkOutputs, outputTarget, scenarioFiles, writeOutput } from './outputFiles.js';
 
@@ -80,7 +82,8 @@ export const requireCommand: Command = {
           return records!.filter((r) => r.outcome === 'landed').length;
         },
         onProbe: (p) => {
-          if (!json) io.stderr(`  ${path} = ${p.value}: ${p.landed}/${p.trials} landed, Wilson 95 % ${p.wilsonLow.toFixed(3)}-${p.wilsonHigh.toFixed(3)} -> ${p.pass ? 'meets' : 'misses'} ${target}\n`);
+          // progress on a terminal only; the full list of probes is in the result below
+          if (!json && io.interactive) io.stderr(`  probe ${p.value}: ${p.landed}/${p.trials} landed -> ${p.verdict}\n`);
         },
       });
       if (svgOut) {
@@ -88,12 +91,19 @@ export const requireCommand: Command = {
       }
       if (json) io.stdout(JSON.stringify({ param: path, target, from, to, ...result }, null, 1) + '\n');
       else {
+        // Values to the bisection's resolution, with the field's unit from the schema.
+        const unit = scenarioUnit(path);
+        const digits = Math.max(decimalsFor(Math.abs(to - from) / 2 ** steps), decimalsIn(from), decimalsIn(to));
+        const v = (x: number) => quantity(x, digits, unit);
+        const worse = to > from ? '<=' : '>=';
         const answer = result.value === null
-          ? `${path}: even ${from} misses the target ${target} (lower Wilson bound below it).`
+          ? `${path}: even ${v(from)} does not meet the target (success >= ${percent(target)} by the lower Wilson 95 % bound).`
           : result.failsAt === null
-            ? `${path}: the whole range ${from} .. ${to} meets the target ${target}.`
-            : `${path} <= ${result.value} keeps the lower Wilson 95 % bound of success >= ${target} (fails at ${result.failsAt}).`;
-        io.stdout(`${answer}\n${result.probes.reduce((n, p) => n + p.trials, 0)} trials in ${result.probes.length} probes.\n${SAFETY_CAUTION}\n`);
+            ? `${path}: the whole range ${v(from)} to ${v(to)} meets the target (success >= ${percent(target)} by the lower Wilson 95 % bound).`
+            : `${path} ${worse} ${v(result.value)} keeps the lower Wilson 95 % bound of success >= ${percent(target)} (not met at ${v(result.failsAt)}; resolution ${v(Math.abs(to - from) / 2 ** steps)}).`;
+        const probes = result.probes.map((p, i) => `  ${String(i + 1).padStart(2)}. ${v(p.value).padStart(12)}  ${`${p.landed}/${p.trials}`.padStart(9)} landed (${percent(p.landed / p.trials)}), Wilson 95 % ${percent(p.wilsonLow)} to ${percent(p.wilsonHigh)}: ${p.verdict}`);
+        const trialsRun = result.probes.reduce((n, p) => n + p.trials, 0);
+        io.stdout(`${answer}\n${result.probes.length} probes, ${trialsRun} trials (inconclusive = the interval straddles the target; counted as not met):\n${probes.join('\n')}\n${SAFETY_CAUTION}\n`);
       }
       return 0;
     } catch (error) {

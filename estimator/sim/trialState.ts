@@ -55,6 +55,8 @@ export class TrialState {
   haveOutline = false;
   /** Seconds per phase, indexed as PHASES (a string-keyed store per step allocated a number each time). */
   private readonly phaseSeconds = new Float64Array(PHASES.length);
+  private readonly phaseSteps = new Float64Array(PHASES.length);
+  private stepDt = 1;
   private divergence: string | null = null;
   private nisSum = 0;
   private nisCount = 0;
@@ -98,6 +100,19 @@ export class TrialState {
   /** Add dt seconds to a phase's time. */
   addPhaseTime(phase: Phase, dt: number): void {
     this.phaseSeconds[phaseIndex(phase)] += dt;
+    this.phaseSteps[phaseIndex(phase)]! += 1;
+    this.stepDt = dt;
+  }
+
+  /**
+   * A phase's time: steps / rate when every step had the same dt at a whole rate (so 6 steps
+   * at 100 Hz read 0.06, not the summed 0.060000000000000005), else the plain sum.
+   */
+  private phaseTime(i: number): number {
+    const rate = 1 / this.stepDt;
+    const steps = this.phaseSteps[i]!;
+    const whole = Math.round(rate);
+    return Math.abs(rate - whole) < 1e-9 * whole && Math.abs(steps / whole - this.phaseSeconds[i]!) < 1e-9 * (1 + steps) / whole ? steps / whole : this.phaseSeconds[i]!;
   }
 
   /** Keep the first named divergence event. */
@@ -168,7 +183,7 @@ export class TrialState {
       nisMean: mean(this.nisSum, this.nisCount),
       nisDim: 3,
       nisCount: this.nisCount,
-      phaseTimes: { acquire: this.phaseSeconds[0]!, trail: this.phaseSeconds[1]!, align: this.phaseSeconds[2]!, descend: this.phaseSeconds[3]!, touchdown: this.phaseSeconds[4]! },
+      phaseTimes: { acquire: this.phaseTime(0), trail: this.phaseTime(1), align: this.phaseTime(2), descend: this.phaseTime(3), touchdown: this.phaseTime(4) },
       boxes: this.boxes,
       dropped: this.dropped,
       falseBoxes: end.falseBoxes,

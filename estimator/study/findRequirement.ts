@@ -16,6 +16,8 @@ export interface Probe {
   wilsonLow: number;
   wilsonHigh: number;
   pass: boolean;
+  /** meets: lower bound at or above the target; misses: upper bound below it; else inconclusive (treated as not meeting). */
+  verdict: 'meets' | 'misses' | 'inconclusive';
 }
 
 export interface RequirementOptions {
@@ -63,7 +65,10 @@ async function probeAt(value: number, probe: number, o: Required<Omit<Requiremen
     const w = wilson(landed, trials, o.z);
     const best = wilson(landed + (o.maxTrials - trials), o.maxTrials, o.z).low;
     const done = w.low >= o.target || w.high < o.target || best < o.target || trials >= o.maxTrials;
-    if (done) return { value, trials, landed, wilsonLow: w.low, wilsonHigh: w.high, pass: w.low >= o.target };
+    if (done) {
+      const verdict = w.low >= o.target ? 'meets' : w.high < o.target ? 'misses' : 'inconclusive';
+      return { value, trials, landed, wilsonLow: w.low, wilsonHigh: w.high, pass: verdict === 'meets', verdict };
+    }
     batchEnd = Math.min(o.maxTrials, trials * 2);
   }
 }

@@ -36,6 +36,10 @@ export function defaultScenario(): Scenario {
       maxSpeed: 15,
       maxVerticalSpeed: 2,
       wind: { speed: 0, directionDeg: 0, turbulence: 'none', gusts: [] },
+      velocitySource: 'odometry',
+      attitudeTimeConstant: 0.1,
+      maxAttitudeRateDeg: 200,
+      yawPolicy: 'carrier-heading',
     },
     camera: {
       intrinsics: { fx: 320, fy: 320, cx: 320, cy: 240 },
@@ -70,6 +74,9 @@ export function defaultScenario(): Scenario {
       focalError: 0.01,
       targetSizeError: 0.05,
       clockOffset: 0,
+      gyroBiasDegPerSec: 0.1,
+      gyroNoiseDegPerSqrtSec: 0.015,
+      attitudeCorrectionTime: 1,
     },
     // Filter noise chosen so the default scenario is consistent (mean NEES ≈ 6 for dimension 6
     // over 100 seeded trials) and lands (100/100); measured against the simulator's truth:

@@ -95,7 +95,24 @@ export interface LanderSpec {
   maxSpeed: number;
   maxVerticalSpeed: number;
   wind: WindSpec;
+  /**
+   * What the autopilot's velocity loop closes on: 'odometry' (the latest odometry sample, as an
+   * autopilot fed by VIO / optical flow / GNSS velocity) or 'estimate' (the landing filter's
+   * lander-velocity estimate; odometry before the filter starts or after it diverged). Never truth.
+   */
+  velocitySource: VelocitySource;
+  /** Attitude response: first-order time constant (s) and body rotation-rate limit (deg/s). */
+  attitudeTimeConstant: number;
+  maxAttitudeRateDeg: number;
+  /**
+   * Yaw setpoint: 'carrier-heading' (along the carrier's estimated velocity once it moves faster
+   * than 0.5 m/s, else held) or 'hold' (the carrier's heading at the start, throughout).
+   */
+  yawPolicy: YawPolicy;
 }
+
+export type VelocitySource = 'odometry' | 'estimate';
+export type YawPolicy = 'carrier-heading' | 'hold';
 
 export interface Intrinsics {
   fx: number;
@@ -189,6 +206,15 @@ export interface LocalizationSpec {
   targetSizeError: number;
   /** Camera clock minus IMU clock (s). */
   clockOffset: number;
+  /**
+   * Gyro errors, integrated by the lander's attitude estimator and pulled back by its gravity
+   * (and heading) reference with time constant attitudeCorrectionTime (s): constant bias (deg/s,
+   * every axis) and angle random walk (deg/sqrt(s), i.e. deg/s/sqrt(Hz)). They add to the
+   * attitude bias and noise above: bias b gives a steady error b τ, the walk σ sqrt(τ / 2).
+   */
+  gyroBiasDegPerSec: number;
+  gyroNoiseDegPerSqrtSec: number;
+  attitudeCorrectionTime: number;
 }
 
 // The filter's own settings live beside the filter; the scenario composes them.

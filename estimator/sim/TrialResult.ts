@@ -49,4 +49,6 @@ export interface TrialResult {
   cause?: FailureCause | null;
   /** The cause and the events after it (time s, phase, true height above the deck m, value); [] when it landed. */
   causeChain?: FailureEvent[];
+  /** Largest body rotation rate of any step (deg/s): at most lander.maxAttitudeRateDeg. */
+  peakAttitudeRateDeg: number;
 }

@@ -13,6 +13,7 @@ import type { Phase, TrialResult } from './TrialResult.js';
 import { attributeFailure } from './attribution/attributeFailure.js';
 import { FailureLog } from './attribution/FailureLog.js';
 import { createGuidance } from './guidance.js';
+import { AttitudeHistory, attitudeHistorySize } from './AttitudeHistory.js';
 import { blindHeight, LandingSupervisor, type SupervisorInput } from './supervisor.js';
 import { judgeTouchdown } from './touchdown.js';
 import { TrialState } from './trialState.js';
@@ -92,7 +93,12 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   const log = options.attribution === false ? null : new FailureLog(scenario, blind);
   const scripted = landerSpec.wind.gusts && landerSpec.wind.gusts.length > 0 ? new ScriptedGusts(landerSpec.wind.gusts) : null;
   st.command.set(cs.velocity);
+  st.autopilotVelocity.set(cs.velocity); // handed over at matched speed: the autopilot's belief starts there
+  const velocityFromEstimate = landerSpec.velocitySource === 'estimate';
+  const yawFollowsCarrier = landerSpec.yawPolicy === 'carrier-heading';
   const contact = createDeckContact();
+  // attitude estimates back to the oldest box that may start the filter (as replay keeps them)
+  const attitudes = new AttitudeHistory(attitudeHistorySize(filterSpec.historyLength, localization.imuRate));
   const pending: DetectorFrame[] = new Array<DetectorFrame>(PENDING);
   let pendingHead = 0, pendingCount = 0;
   const input: SupervisorInput = { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, valid: false, height: 0, vcz: 0, unseenFor: Infinity, lastSeen: -Infinity, diverged: false };
@@ -113,7 +119,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     gust.step(dt, Math.max(ls.position[2]!, 1), airspeed, st.wind);
     for (let k = 0; k < 3; k++) st.wind[k] = st.wind[k]! + meanWind[k]!;
     if (scripted) scripted.add(t, st.wind);
-    lander.step(dt, st.command, st.wind, ls);
+    lander.step(dt, st.command, st.wind, ls, st.autopilotVelocity); // the autopilot flies on its belief
     carrier.stateAt(t, cs);
     deckContact(ls, cs, carrierSpec.deckLength, carrierSpec.deckWidth, contact);
     if (contactEnds(contact)) { // judged after the loop (contact is left as it is here)
@@ -129,7 +135,8 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     // IMU -> filter propagation
     if (t >= nextImu - eps) {
       nextImu += imuPeriod;
-      errors.attitude(ls.qWorldBody, st.qEstimate);
+      errors.attitude(ls.qWorldBody, st.qEstimate, t);
+      attitudes.push(t, st.qEstimate);
       errors.specificForce(ls.specificForceBody, st.force);
       if (initialized) {
         const r = filter.propagate(t, st.force, st.qEstimate);
@@ -142,6 +149,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       nextOdometry += odometryPeriod;
       errors.odometry(t, ls.velocity, st.odometry);
       st.haveOdometry = true;
+      if (!velocityFromEstimate || !initialized || filter.diverged !== null) st.autopilotVelocity.set(st.odometry);
       if (initialized) {
         const r = filter.updateOdometry(filter.time, st.odometry);
         if (r.status === 'diverged') st.noteDivergence(filter.diverged);
@@ -173,7 +181,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       // older than the filter's history could not be used as a measurement either, so it
       // starts nothing (a box 0.8 s old placed at its arrival flew the lander into the deck).
       if (!initialized || reacquire || filter.diverged) {
-        if (acquire(filter, st, frame.box, t, stamp, filterSpec.historyLength)) {
+        if (acquire(filter, st, attitudes, frame.box, t, stamp, filterSpec.historyLength)) {
           log?.acquired(t, frame.falseBox, initialized);
           initialized = true;
           reacquire = false;
@@ -194,6 +202,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     input.lastSeen = lastSeen;
     input.unseenFor = t - lastSeen;
     phase = supervisor.step(t, dt, input, st.command);
+    if (input.valid) steerFromEstimate(lander, st, x, velocityFromEstimate, yawFollowsCarrier);
     if (supervisor.aborts > abortsSeen) {
       abortsSeen = supervisor.aborts;
       reacquire = true;
@@ -216,6 +225,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     aborts: supervisor.aborts,
     lastAbort: supervisor.lastAbort,
     falseBoxes: detector.falseBoxTotal,
+    peakAttitudeRate: lander.attitude.peakRate,
   });
   if (log) {
     const attribution = attributeFailure(result.outcome === 'landed' ? [] : log.events(), result.outcome, touchdownTime ?? steps * dt);
@@ -245,10 +255,10 @@ function contactEnds(contact: DeckContact): boolean {
   return true;
 }
 
-/** (Re-)start the filter from a box; true when it started (needs odometry and a box the history still covers). */
-function acquire(filter: LandingFilter, st: TrialState, box: Box, t: number, stamp: number, historyLength: number): boolean {
-  if (!st.haveOdometry || t - stamp > historyLength) return false;
-  return filter.initializeFromBox(t, box, st.qEstimate, st.odometry, INITIAL_SIGMA).status === 'accepted';
+/** (Re-)start the filter from a box, read with the attitude estimated at its capture; true when it started (needs odometry and a box the history still covers). */
+function acquire(filter: LandingFilter, st: TrialState, attitudes: AttitudeHistory, box: Box, t: number, stamp: number, historyLength: number): boolean {
+  if (!st.haveOdometry || t - stamp > historyLength || !attitudes.at(stamp, st.qCapture)) return false;
+  return filter.initializeFromBox(t, box, st.qCapture, st.odometry, INITIAL_SIGMA).status === 'accepted';
 }
 
 /** Box update at its (clamped) capture stamp, tallied in st (and the log); true when the filter accepted it. */
@@ -264,6 +274,18 @@ function updateWithBox(filter: LandingFilter, st: TrialState, frame: DetectorFra
   if (r.status === 'gated') st.gateRejections++;
   else if (r.status === 'diverged') st.noteDivergence(filter.diverged);
   return false;
+}
+
+/** Speed (m/s) of the estimated carrier above which its velocity gives the yaw setpoint. */
+const HEADING_MIN_SPEED = 0.5;
+
+/** What the lander takes from its estimate each step: the autopilot's velocity (velocitySource 'estimate') and the yaw setpoint (yawPolicy 'carrier-heading'). */
+function steerFromEstimate(lander: LanderDynamics, st: TrialState, x: Float64Array, velocity: boolean, yaw: boolean): void {
+  if (velocity) for (let k = 0; k < 3; k++) st.autopilotVelocity[k] = x[6 + k]!;
+  if (!yaw) return;
+  const vx = x[3]!, vy = x[4]!;
+  const speed = Math.sqrt(vx * vx + vy * vy);
+  if (speed > HEADING_MIN_SPEED) lander.setHeading(vx / speed, vy / speed);
 }
 
 /** Queue this capture's false boxes behind the pending frames (as room allows); returns the new count. */

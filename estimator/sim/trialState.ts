@@ -16,6 +16,8 @@ export interface TrialEnd {
   aborts: number;
   lastAbort: string | null;
   falseBoxes: number;
+  /** Largest body rotation rate of any step (rad/s). */
+  peakAttitudeRate: number;
 }
 
 const vec = (a: ArrayLike<number>, o: number): [number, number, number] => [a[o]!, a[o + 1]!, a[o + 2]!];
@@ -40,8 +42,12 @@ export class TrialState {
   readonly vLTrue = new Float64Array(3);
   /** Estimated attitude q_wb, measured specific force (body), measured velocity (world). */
   readonly qEstimate = Float64Array.of(1, 0, 0, 0);
+  /** Estimated attitude at a box's capture (looked up when a box starts the filter). */
+  readonly qCapture = Float64Array.of(1, 0, 0, 0);
   readonly force = new Float64Array(3);
   readonly odometry = new Float64Array(3);
+  /** The velocity the autopilot's loop closes on (world, m/s): odometry or the estimate, never truth. */
+  readonly autopilotVelocity = new Float64Array(3);
   haveOdometry = false;
   boxes = 0;
   dropped = 0;
@@ -190,6 +196,7 @@ export class TrialState {
       gateRejections: this.gateRejections,
       aborts: end.aborts,
       divergence: this.divergence,
+      peakAttitudeRateDeg: (end.peakAttitudeRate * 180) / Math.PI,
     };
   }
 }

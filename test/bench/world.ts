@@ -18,6 +18,7 @@ const carrierSpec: CarrierSpec = {
 const landerSpec: LanderSpec = {
   startOffset: [0, 0, 10], velocityTimeConstant: 0.4, maxAccel: 4, maxTiltDeg: 25, maxSpeed: 10, maxVerticalSpeed: 2,
   wind: { speed: 3, directionDeg: 0, turbulence: 'moderate' },
+  velocitySource: 'odometry', attitudeTimeConstant: 0.1, maxAttitudeRateDeg: 200, yawPolicy: 'carrier-heading',
 };
 const detectorSpec: DetectorSpec = {
   rate: 30, pixelNoise: 1.5, sizeNoise: 0.05, latency: 0.08, latencyJitter: 0.01, dropout: 0.05,

@@ -22,6 +22,7 @@ function perfectSensing(s: Scenario): Scenario {
     'localization.odometryNoise': 0, 'localization.odometryDrift': 0, 'localization.accelNoise': 0,
     'localization.accelBias': 0, 'localization.misalignmentDeg': 0, 'localization.focalError': 0,
     'localization.targetSizeError': 0, 'localization.clockOffset': 0,
+    'localization.gyroBiasDegPerSec': 0, 'localization.gyroNoiseDegPerSqrtSec': 0,
   });
 }
 

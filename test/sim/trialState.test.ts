@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { TrialState } from '../../estimator/sim/trialState.js';
 import { expectClose } from '../helpers/expectClose.js';
 
-const noContact = { touchdown: null, touchdownTime: null, aborts: 0, lastAbort: null, falseBoxes: 0 };
+const noContact = { touchdown: null, touchdownTime: null, aborts: 0, lastAbort: null, falseBoxes: 0, peakAttitudeRate: 0 };
 
 describe('TrialState', () => {
   it('calls a trial without contact diverged, aborted or timed-out, in that order of precedence', () => {

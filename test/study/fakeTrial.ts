@@ -34,5 +34,6 @@ export function fakeTrial(scenario: Scenario, key: TrialKey): TrialResult {
     gateRejections: 1,
     aborts: 0,
     divergence: null,
+    peakAttitudeRateDeg: 40,
   };
 }

@@ -4,10 +4,12 @@
 // - odometry / box: applied when it arrives; a time stamped ahead of the filter clock (between
 //   IMU steps) counts as "now", one earlier is a delayed measurement (box: its capture time);
 // - the filter (re)starts from a box when none is running, after a divergence or after a row of
-//   resets.csv: at the box's arrival time, if the box is younger than the filter's history.
+//   resets.csv: at the box's arrival time, if the box is younger than the filter's history,
+//   back-projected with the attitude logged at (or just before) its capture.
 // Per row it allocates nothing but the filter's small UpdateResult.
 import { LandingFilter, type Box } from '../../models/LandingFilter.js';
 import type { FilterSpec } from '../../sim/Scenario.js';
+import { AttitudeHistory, attitudeHistorySize } from '../../sim/AttitudeHistory.js';
 import type { LogCamera } from './parseLogCamera.js';
 import { BOX_SLOTS } from './logStreams.js';
 import { DEFAULT_INITIAL_SIGMA, type ReplaySettings } from './ReplayReport.js';
@@ -47,6 +49,9 @@ export class LogReplayer {
   private resetPending = false;
   private divergenceNoted = false;
   private readonly q = new Float64Array([Number.NaN, 0, 0, 0]);
+  /** Attitudes of the last historyLength (+ 0.1 s), to read a starting box with the attitude of its capture. */
+  private readonly attitudes: AttitudeHistory;
+  private readonly qCapture = new Float64Array(4);
   private readonly f = new Float64Array(3);
   private readonly vL = new Float64Array(3);
   private readonly box: Box = { xMin: 0, yMin: 0, xMax: 0, yMax: 0 };
@@ -56,6 +61,7 @@ export class LogReplayer {
     this.settings = settings;
     this.hasOdometry = hasOdometry;
     this.filter = new LandingFilter(spec, camera.camera, camera.targetSize);
+    this.attitudes = new AttitudeHistory(attitudeHistorySize(spec.historyLength, spec.rate));
     const lags = settings.lags ?? 20;
     const gate = settings.likelihoodThreshold ?? gateThreshold(spec.gateProbability, 3, spec.gateScale);
     this.boxLikelihood = new InnovationLikelihood(gate);
@@ -78,6 +84,7 @@ export class LogReplayer {
 
   attitude(v: Float64Array): RowOutcome {
     for (let i = 0; i < 4; i++) this.q[i] = v[1 + i]!;
+    this.attitudes.push(v[0]!, this.q);
     return '';
   }
 
@@ -165,7 +172,8 @@ export class LogReplayer {
     if (this.hasOdometry && !this.haveOdometry) return 'no-odometry-yet';
     if (arrival - capture > this.spec.historyLength) return 'too-old-to-start';
     const t = arrival;
-    const result = this.filter.initializeFromBox(t, this.box, this.q, this.vL, this.settings.initialSigma ?? DEFAULT_INITIAL_SIGMA);
+    this.attitudes.at(capture, this.qCapture);
+    const result = this.filter.initializeFromBox(t, this.box, this.qCapture, this.vL, this.settings.initialSigma ?? DEFAULT_INITIAL_SIGMA);
     if (result.status !== 'accepted') return `start-refused: ${result.reason}`;
     if (this.started) this.restarts++;
     else this.start = t;

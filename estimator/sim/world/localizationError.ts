@@ -1,5 +1,5 @@
 // The lander's own sensing errors, applied to truth before the filter sees it: attitude
-// estimate (bias + noise), odometry (bias + noise + drifting bias), accelerometer (bias +
+// estimate (bias + noise + integrated gyro error), odometry (bias + noise + drifting bias), accelerometer (bias +
 // noise), camera misalignment, wrong focal length, wrong target size, camera clock offset.
 // The per-sample methods allocate nothing (out parameters, preallocated scratch).
 import { quatFromEulerDeg } from '../../frames/quatFromEulerDeg.js';
@@ -20,6 +20,10 @@ export class LocalizationError {
   readonly odometryBiasNow: Float64Array;
   private lastOdometryTime = NaN;
   private readonly error = new Float64Array(4);
+  private readonly gyroStream: RandomStream;
+  /** Integrated gyro error the attitude estimator has not yet corrected, per body axis (deg). */
+  readonly gyroError = new Float64Array(3);
+  private lastAttitudeTime = NaN;
 
   /** One child stream per channel, so e.g. more IMU samples do not shift the odometry draws. */
   constructor(spec: LocalizationSpec, stream: RandomStream) {
@@ -27,20 +31,43 @@ export class LocalizationError {
     this.attitudeStream = RandomStream.childOf(stream);
     this.odometryStream = RandomStream.childOf(stream);
     this.imuStream = RandomStream.childOf(stream);
+    this.gyroStream = RandomStream.childOf(stream); // last: the channels above keep their draws
     this.odometryBiasNow = Float64Array.of(spec.odometryBias, spec.odometryBias, spec.odometryBias);
   }
 
   /**
-   * Estimated attitude: q_est = q_true (x) q_err, q_err = ZYX(roll, pitch, yaw) with each angle
-   * = attitudeBiasDeg + attitudeNoiseDeg n (a body-frame error, white noise per sample).
+   * Estimated attitude at time t (s; calls in time order): q_est = q_true (x) q_err,
+   * q_err = ZYX(roll, pitch, yaw) with each angle = attitudeBiasDeg + attitudeNoiseDeg n + g(t)
+   * (a body-frame error, white noise per sample) and g the integrated gyro error, pulled back
+   * with time constant τ = attitudeCorrectionTime (exact step of dg = (b - g/τ) dt + σ dW):
+   *   g <- g e^{-dt/τ} + b τ (1 - e^{-dt/τ}) + σ sqrt(τ/2 (1 - e^{-2dt/τ})) n
+   * It starts at its steady mean b τ (the estimator has run long before the trial).
    */
-  attitude(qTrue: ArrayLike<number>, out: Float64Array): Float64Array {
+  attitude(qTrue: ArrayLike<number>, out: Float64Array, t = NaN): Float64Array {
     const { attitudeBiasDeg: bias, attitudeNoiseDeg: noise } = this.spec;
+    this.stepGyroError(t);
+    const g = this.gyroError;
     const rng = this.attitudeStream;
-    const roll = bias + noise * rng.gaussian(), pitch = bias + noise * rng.gaussian(), yaw = bias + noise * rng.gaussian();
+    const roll = bias + noise * rng.gaussian() + g[0]!, pitch = bias + noise * rng.gaussian() + g[1]!, yaw = bias + noise * rng.gaussian() + g[2]!;
     quatFromEulerDeg(roll, pitch, yaw, this.error);
     quatMultiply(qTrue, this.error, out);
     return out;
+  }
+
+  private stepGyroError(t: number): void {
+    const { gyroBiasDegPerSec: b, gyroNoiseDegPerSqrtSec: sigma, attitudeCorrectionTime: tau } = this.spec;
+    const g = this.gyroError;
+    if (Number.isNaN(this.lastAttitudeTime) || Number.isNaN(t)) {
+      if (Number.isNaN(this.lastAttitudeTime)) g.fill(b * tau);
+      this.lastAttitudeTime = t;
+      return;
+    }
+    const dt = t - this.lastAttitudeTime;
+    this.lastAttitudeTime = t;
+    if (!(dt > 0) || (b === 0 && sigma === 0)) return;
+    const decay = Math.exp(-dt / tau);
+    const walk = sigma * Math.sqrt((tau / 2) * -Math.expm1((-2 * dt) / tau));
+    for (let k = 0; k < 3; k++) g[k] = g[k]! * decay + b * tau * (1 - decay) + walk * this.gyroStream.gaussian();
   }
 
   /**

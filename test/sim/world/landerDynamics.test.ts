@@ -12,6 +12,11 @@ const spec: LanderSpec = {
   maxSpeed: 8,
   maxVerticalSpeed: 2,
   wind: { speed: 0, directionDeg: 0, turbulence: 'none' },
+  velocitySource: 'odometry',
+  // the plant's closed forms below assume an instant attitude (the response is tested on its own)
+  attitudeTimeConstant: 0,
+  maxAttitudeRateDeg: 1e5,
+  yawPolicy: 'hold',
 };
 const calm = [0, 0, 0];
 
@@ -103,5 +108,37 @@ describe('LanderDynamics', () => {
     expect(Array.from(lander.state.position)).toEqual([1, 2, 3]);
     expect(Array.from(lander.state.velocity)).toEqual([0, 0, 0]);
     expect(lander.state.tilt).toBe(0);
+  });
+});
+
+describe('LanderDynamics (flying on its belief)', () => {
+  it('step() settles at v = v_c - β (1 - 1 / (G τ_d)) when the velocity it closes on reads v + β (the autopilot flies what it believes)', () => {
+    const lander = new LanderDynamics({ ...spec, attitudeTimeConstant: 0.1, maxAttitudeRateDeg: 200 }, [0, 0, 10]);
+    const out = createLanderState();
+    const beta = [0.05, -0.04, 0.03];
+    const belief = new Float64Array(3);
+    for (let i = 0; i < 2000; i++) {
+      for (let k = 0; k < 3; k++) belief[k] = out.velocity[k]! + beta[k]!;
+      lander.step(0.01, [2, 1, 0], calm, out, belief);
+    }
+    // (c - v - β) G + β / τ_d = 0 with G = (1 - e^{-dt/τ}) / dt the lag's gain and τ_d = 4 s the
+    // drag time constant: the drag fed forward from the belief leaves a small share of β
+    const G = -Math.expm1(-0.01 / spec.velocityTimeConstant) / 0.01;
+    const share = 1 - 1 / (G * 4);
+    // 20 s >> tau and the attitude time constant: settled to rounding
+    expectClose(out.velocity[0]!, 2 - beta[0]! * share, { abs: 1e-9 }, 'vx');
+    expectClose(out.velocity[1]!, 1 - beta[1]! * share, { abs: 1e-9 }, 'vy');
+    expectClose(out.velocity[2]!, 0 - beta[2]! * share, { abs: 1e-9 }, 'vz');
+  });
+
+  it('step() turns the body no faster than maxAttitudeRateDeg, and the thrust follows the body it has reached', () => {
+    const lander = new LanderDynamics({ ...spec, attitudeTimeConstant: 0.1, maxAttitudeRateDeg: 150 }, [0, 0, 10]);
+    const out = createLanderState();
+    lander.step(0.01, [8, 0, 0], calm, out); // asks for the full tilt at once
+    expectClose(lander.attitude.rate, (150 * Math.PI) / 180, { rel: 1e-12 }, 'limited to 150 deg/s'); // rounding
+    expectClose(out.tilt, 1.5 * (Math.PI / 180), { rel: 1e-9 }, 'tilted 1.5 deg in 10 ms'); // rounding of acos
+    // horizontal acceleration from the tilt reached, not the one asked for (g tan 25 deg at full tilt)
+    const f = Math.hypot(out.acceleration[0]!, out.acceleration[2]! + GRAVITY);
+    expectClose(out.acceleration[0]! / f, Math.sin(out.tilt), { rel: 1e-9 }, 'thrust along the body z'); // calm air, v ~ 0
   });
 });

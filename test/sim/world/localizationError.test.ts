@@ -9,6 +9,7 @@ import { expectClose } from '../../helpers/expectClose.js';
 const perfect: LocalizationSpec = {
   attitudeBiasDeg: 0, attitudeNoiseDeg: 0, odometryRate: 10, odometryBias: 0, odometryNoise: 0, odometryDrift: 0,
   imuRate: 200, accelNoise: 0, accelBias: 0, misalignmentDeg: 0, focalError: 0, targetSizeError: 0, clockOffset: 0,
+  gyroBiasDegPerSec: 0, gyroNoiseDegPerSqrtSec: 0, attitudeCorrectionTime: 1,
 };
 const make = (spec: Partial<LocalizationSpec>, seed = 1) => new LocalizationError({ ...perfect, ...spec }, RandomStream.fromKey([seed, 0, 0, 9]));
 const qTrue = Float64Array.of(Math.cos(0.3), 0.1, -0.2, Math.sin(0.3));
@@ -40,6 +41,30 @@ describe('LocalizationError', () => {
     }
     // sd of a sample sd sigma/sqrt(2N) = 0.7 %; 4 % covers it and the small-angle ZYX coupling (~1e-4)
     for (let k = 0; k < 3; k++) expectClose(Math.sqrt(sum2[k]! / N), 0.5, { rel: 0.04 }, `axis ${k}`);
+  });
+
+  it('attitude() carries the integrated gyro bias as the steady error b τ from the start (attitudeCorrectionTime τ)', () => {
+    const errors = make({ gyroBiasDegPerSec: 0.2, attitudeCorrectionTime: 1.5 });
+    const out = new Float64Array(4);
+    for (let i = 0; i < 50; i++) {
+      const e = errorDeg(errors.attitude(qTrue, out, i * 0.01));
+      // b τ = 0.3 deg about each axis (ZYX angles of small equal rotations: second-order differences)
+      for (let k = 0; k < 3; k++) expectClose(e[k]!, 0.3, { abs: 2e-3 }, `axis ${k} at step ${i}`);
+    }
+  });
+
+  it('attitude() gyro angle random walk settles at sd σ sqrt(τ / 2) (Ornstein–Uhlenbeck stationary variance; 200 000 seeded samples)', () => {
+    const errors = make({ gyroNoiseDegPerSqrtSec: 0.05, attitudeCorrectionTime: 2 }, 7);
+    const out = new Float64Array(4);
+    let sum = 0, sumSq = 0, n = 0;
+    for (let i = 0; i < 200_000; i++) {
+      errors.attitude(qTrue, out, i * 0.01);
+      const g = errors.gyroError[0]!;
+      sum += g; sumSq += g * g; n++;
+    }
+    const sd = Math.sqrt(sumSq / n - (sum / n) ** 2);
+    // 2000 s of a process correlated over 2 s: about 500 independent samples, sd of the sd ~3 %: 10 %
+    expectClose(sd, 0.05 * Math.sqrt(2 / 2), { rel: 0.1 }, 'stationary sd');
   });
 
   it('odometry() adds the bias, whose random walk grows as drift^2 t (increment variance)', () => {

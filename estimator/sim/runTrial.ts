@@ -96,6 +96,8 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   st.autopilotVelocity.set(cs.velocity); // handed over at matched speed: the autopilot's belief starts there
   const velocityFromEstimate = landerSpec.velocitySource === 'estimate';
   const yawFollowsCarrier = landerSpec.yawPolicy === 'carrier-heading';
+  st.heading[0] = Math.cos(cs.heading);
+  st.heading[1] = Math.sin(cs.heading);
   const contact = createDeckContact();
   // attitude estimates back to the oldest box that may start the filter (as replay keeps them)
   const attitudes = new AttitudeHistory(attitudeHistorySize(filterSpec.historyLength, localization.imuRate));
@@ -202,7 +204,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     input.lastSeen = lastSeen;
     input.unseenFor = t - lastSeen;
     phase = supervisor.step(t, dt, input, st.command);
-    if (input.valid) steerFromEstimate(lander, st, x, velocityFromEstimate, yawFollowsCarrier);
+    if (input.valid) steerFromEstimate(lander, st, x, dt, velocityFromEstimate, yawFollowsCarrier);
     if (supervisor.aborts > abortsSeen) {
       abortsSeen = supervisor.aborts;
       reacquire = true;
@@ -278,14 +280,27 @@ function updateWithBox(filter: LandingFilter, st: TrialState, frame: DetectorFra
 
 /** Speed (m/s) of the estimated carrier above which its velocity gives the yaw setpoint. */
 const HEADING_MIN_SPEED = 0.5;
+/** Time constant (s) of the low-pass on the heading's unit vector: at 1 m/s a 0.1 m/s velocity error swings the raw heading by 6 deg. */
+const HEADING_SMOOTHING = 1;
 
-/** What the lander takes from its estimate each step: the autopilot's velocity (velocitySource 'estimate') and the yaw setpoint (yawPolicy 'carrier-heading'). */
-function steerFromEstimate(lander: LanderDynamics, st: TrialState, x: Float64Array, velocity: boolean, yaw: boolean): void {
+/**
+ * What the lander takes from its estimate each step: the autopilot's velocity (velocitySource
+ * 'estimate') and the yaw setpoint (yawPolicy 'carrier-heading'):
+ *   h <- h + (v_c,h / |v_c,h| - h) dt / τ_h, setpoint along h / |h|   (while |v_c,h| > 0.5 m/s)
+ */
+function steerFromEstimate(lander: LanderDynamics, st: TrialState, x: Float64Array, dt: number, velocity: boolean, yaw: boolean): void {
   if (velocity) for (let k = 0; k < 3; k++) st.autopilotVelocity[k] = x[6 + k]!;
   if (!yaw) return;
   const vx = x[3]!, vy = x[4]!;
   const speed = Math.sqrt(vx * vx + vy * vy);
-  if (speed > HEADING_MIN_SPEED) lander.setHeading(vx / speed, vy / speed);
+  if (!(speed > HEADING_MIN_SPEED)) return;
+  const a = dt / HEADING_SMOOTHING;
+  const hx = st.heading[0]! + (vx / speed - st.heading[0]!) * a, hy = st.heading[1]! + (vy / speed - st.heading[1]!) * a;
+  const norm = Math.sqrt(hx * hx + hy * hy);
+  if (!(norm > 1e-6)) return; // a reversal cancelled it: keep the old one this step
+  st.heading[0] = hx / norm;
+  st.heading[1] = hy / norm;
+  lander.setHeading(st.heading[0]!, st.heading[1]!);
 }
 
 /** Queue this capture's false boxes behind the pending frames (as room allows); returns the new count. */

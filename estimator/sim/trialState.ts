@@ -48,6 +48,8 @@ export class TrialState {
   readonly odometry = new Float64Array(3);
   /** The velocity the autopilot's loop closes on (world, m/s): odometry or the estimate, never truth. */
   readonly autopilotVelocity = new Float64Array(3);
+  /** Yaw setpoint's unit vector (ENU x, y), smoothed from the carrier's estimated heading. */
+  readonly heading = new Float64Array(2);
   haveOdometry = false;
   boxes = 0;
   dropped = 0;

@@ -2,25 +2,10 @@
 // and warnings, then the recommended setting against the current one. Presentation only: every
 // figure comes from identifyNoise / settingCheck.
 import type { SettingCheck, StatisticCheck } from '../io/log/settingCheck.js';
-import { roundTo, type NoiseIdentification, type TermEstimate } from '../study/identifyNoise.js';
+import { roundTo, termValueText, type NoiseIdentification } from '../study/identifyNoise.js';
 
 function pad(text: string, width: number): string {
   return text.length >= width ? text + ' ' : text + ' '.repeat(width - text.length);
-}
-
-/** A term's value as the data support it: digits from its interval, or what bounds it, or nothing. */
-export function termValueText(t: TermEstimate): string {
-  const unit = t.unit.startsWith('of ') ? '' : ` ${t.unit}`;
-  switch (t.status) {
-    case 'identified':
-      return `${roundTo(t.estimate, t.digits)}${unit} (95 %: ${roundTo(t.low!, 2)} to ${roundTo(t.high!, 2)})`;
-    case 'upper-bound-only':
-      return `at most ${roundTo(t.high!, 2)}${unit}`;
-    case 'lower-bound-only':
-      return `at least ${roundTo(t.low!, 2)}${unit}`;
-    case 'not-identifiable':
-      return 'not identifiable';
-  }
 }
 
 export function identificationText(id: NoiseIdentification, what: string): string {

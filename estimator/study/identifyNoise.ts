@@ -100,6 +100,21 @@ export function roundTo(v: number, d: number): number {
   return d > 0 ? Number(v.toPrecision(d)) : v;
 }
 
+/** A term's value as the data support it: digits from its interval, or what bounds it, or nothing. */
+export function termValueText(t: TermEstimate): string {
+  const unit = t.unit.startsWith('of ') ? '' : ` ${t.unit}`;
+  switch (t.status) {
+    case 'identified':
+      return `${roundTo(t.estimate, t.digits)}${unit} (95 %: ${roundTo(t.low!, 2)} to ${roundTo(t.high!, 2)})`;
+    case 'upper-bound-only':
+      return `at most ${roundTo(t.high!, 2)}${unit}`;
+    case 'lower-bound-only':
+      return `at least ${roundTo(t.low!, 2)}${unit}`;
+    case 'not-identifiable':
+      return 'not identifiable';
+  }
+}
+
 export async function identifyNoise(objective: (values: Record<string, number>) => number | Promise<number>, free: readonly FreeTerm[], options: IdentifyOptions = {}): Promise<NoiseIdentification> {
   const n = free.length;
   if (n === 0) throw new RangeError('identifyNoise: name at least one term to identify');

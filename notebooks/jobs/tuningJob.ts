@@ -1,68 +1,57 @@
-// Job: the filter-multiplier search of `alight tune` on simulated trials, with the same library
-// pieces (search, batch runner, summaries, tuning cost), so the recommended point here equals
-// `alight tune <scenario> --trials N --grid G --refine E --gate 1:1 --seed S --json`.
+// Job: what `alight tune <scenario>` does, with the same library calls, so the page and the
+// report show the numbers `alight tune <scenario> --logs K --trials N --grid G --free ... --seed S
+// --json` prints: noise identified from K recorded trials, then the landing trade-off of Q and R
+// multipliers around the identified setting.
 import type { Scenario } from '../../estimator/sim/Scenario.js';
+import type { SettingCheck } from '../../estimator/io/log/settingCheck.js';
 import { applyParams } from '../../estimator/study/applyParams.js';
-import { runBatch } from '../../estimator/study/runBatch.js';
-import { searchMultipliers, type Multipliers, type SurfaceSample } from '../../estimator/study/search.js';
+import { identifyScenarioNoise } from '../../estimator/study/identifyScenarioNoise.js';
+import type { NoiseIdentification } from '../../estimator/study/identifyNoise.js';
+import { landingTradeOff, type LandingTradeOff } from '../../estimator/study/landingTradeOff.js';
+import type { NoiseTermName } from '../../estimator/study/noiseTerms.js';
 import { simulateTrial } from '../../estimator/study/simulateTrial.js';
-import { summarizeGroup, type PointSummary } from '../../estimator/study/summarize.js';
 import { inProcessExecutor } from '../../estimator/study/trialExecutor.js';
-import { tuningCost } from '../../estimator/study/tuningCost.js';
 import type { Progress } from './JobState.js';
 
 export interface TuningInput {
   scenario: Scenario;
   seed: number;
+  /** Recorded trials to identify from, and the terms freed. */
+  logs: number;
+  free: NoiseTermName[];
+  /** Trade-off: trials per setting, grid points per multiplier and the multiplier ranges. */
   trials: number;
   grid: number;
-  refine: number;
-  /** Weight of NEES consistency against landing success in the cost (alight tune --nees-weight). */
-  neesWeight: number;
-  /** Multiplier ranges (alight tune defaults: 0.1..10); the gate stays at 1. */
   q: [number, number];
   r: [number, number];
 }
 
-export interface TuningSample extends SurfaceSample {
-  summary: PointSummary;
-}
-
 export interface TuningOutput {
-  samples: TuningSample[];
-  best: TuningSample | null;
+  identification: NoiseIdentification;
+  checks: { current: SettingCheck; recommended: SettingCheck };
+  warnings: string[];
+  /** Null until the trade-off grid has finished. */
+  tradeOff: LandingTradeOff | null;
 }
 
+/** Progress units: the identification counts as one unit per recorded log, then one per trade-off trial. */
 export async function tuningJob(input: TuningInput, progress: Progress<TuningOutput>): Promise<TuningOutput> {
+  const total = input.logs + input.grid * input.grid * input.trials;
+  progress(0, total, null);
+  const identified = await identifyScenarioNoise(input.scenario, { seed: input.seed, logs: input.logs, free: input.free });
+  // Only what the figures need crosses to the page (the replay reports stay behind).
+  const out: TuningOutput = { identification: identified.identification, checks: identified.checks, warnings: identified.warnings, tradeOff: null };
+  let done = input.logs;
+  progress(done, total, () => out);
   const executor = inProcessExecutor(simulateTrial, applyParams);
-  const details = new Map<string, PointSummary>();
-  const samples: TuningSample[] = [];
-  const planned = (input.grid * input.grid + input.refine + 1) * input.trials;
-  let done = 0;
-  const snapshot = (): TuningOutput => ({ samples: samples.slice(), best: null });
-  const result = await searchMultipliers(
-    async (m: Multipliers) => {
-      const params = { 'filter.qScale': m.q, 'filter.rScale': m.r, 'filter.gateScale': m.gate };
-      // Key point 0 for every setting: common random numbers across the surface (as alight tune).
-      const [records] = await runBatch(executor, { scenario: input.scenario, seed: input.seed, points: [params], trialStart: 0, trialEnd: input.trials }, () => {
-        done++;
-        progress(done, Math.max(planned, done), snapshot);
-      });
-      const summary = summarizeGroup(params, records!);
-      details.set(`${m.q},${m.r},${m.gate}`, summary);
-      return tuningCost(summary, input.neesWeight);
-    },
-    {
-      q: input.q,
-      r: input.r,
-      gate: [1, 1],
-      grid: input.grid,
-      refine: input.refine,
-      onSample: (s) => samples.push({ ...s, summary: details.get(`${s.q},${s.r},${s.gate}`)! }),
-    },
-  );
-  await executor.close();
-  progress(done, done, null);
-  const best = samples.find((s) => s.q === result.best.q && s.r === result.best.r && s.gate === result.best.gate) ?? null;
-  return { samples, best };
+  try {
+    out.tradeOff = await landingTradeOff(executor, input.scenario, identified.recommended, {
+      seed: input.seed, trials: input.trials, grid: input.grid, q: input.q, r: input.r,
+      onTrial: () => progress(++done, total, () => out),
+    });
+  } finally {
+    await executor.close();
+  }
+  progress(total, total, null);
+  return out;
 }

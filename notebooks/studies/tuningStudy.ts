@@ -1,146 +1,196 @@
-// Study: filter tuning on simulated trials. The Q and R multipliers are searched on a log grid
-// (then refined) with the cost of `alight tune`; the surfaces show consistency and landing.
-import { neesVerdict } from '../../estimator/study/statistics/neesVerdict.js';
+// Study: filter tuning on simulated trials, as `alight tune <scenario>`: the noise terms are
+// identified from recorded trials by innovation likelihood (profiles and intervals), checked
+// against the scenario's own setting, then Q and R multipliers around the identified setting fly
+// the same trials and the landing/consistency trade-off is shown as its non-dominated settings.
+import type { SettingCheck, StatisticCheck } from '../../estimator/io/log/settingCheck.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
-import { heatCells, rampKey } from '../figures/heatCells.js';
-import { SERIES, sequential } from '../figures/palette.js';
-import { plotSvg } from '../figures/plot.js';
-import { formatNumber, formatPercent } from '../figures/svg.js';
+import { PROFILE_RISE_95, termValueText } from '../../estimator/study/identifyNoise.js';
+import { DEFAULT_FREE_TERMS, type NoiseTermName } from '../../estimator/study/noiseTerms.js';
+import { consistencyWords } from '../../estimator/study/statistics/ensembleConsistency.js';
+import { neesVerdict } from '../../estimator/study/statistics/neesVerdict.js';
+import { MUTED, SERIES } from '../figures/palette.js';
+import { plotSvg, type Layer } from '../figures/plot.js';
+import { escapeXml, formatNumber, formatPercent } from '../figures/svg.js';
 import type { JobRunner } from '../jobs/JobRunner.js';
 import type { JobState } from '../jobs/JobState.js';
-import type { TuningOutput, TuningSample } from '../jobs/tuningJob.js';
+import type { TuningOutput } from '../jobs/tuningJob.js';
 import { fromState, HALF, htmlTable, keyNumber, toCsv } from './figureOutput.js';
-import type { Layer } from '../figures/plot.js';
 import type { Study } from './Study.js';
 
 type TuningState = JobState<TuningOutput>;
-/** Searched multiplier range, as `alight tune` (0.1..10). */
-const RANGE: [number, number] = [0.1, 10];
+/** Trade-off multiplier range, as `alight tune` (0.25..4). */
+const RANGE: [number, number] = [0.25, 4];
+const TERM_SETS: Record<string, NoiseTermName[]> = {
+  default: [...DEFAULT_FREE_TERMS],
+  sensors: ['pixelNoise', 'sizeNoiseFraction', 'odometryNoise'],
+  fractions: ['pixelNoise', 'pixelNoiseFraction', 'sizeNoiseFraction', 'odometryNoise', 'carrierAccelNoise'],
+};
 
-function bestMarker(best: TuningSample | null): Layer[] {
-  if (!best) return [];
-  return [{ kind: 'points', x: [best.q], y: [best.r], color: SERIES[4], shape: 'diamond', radius: 7, label: 'recommended', titles: [`recommended: qScale ${best.q}, rScale ${best.r}`] }];
+function statText(s: StatisticCheck | null): string {
+  return s ? `${formatNumber(s.mean)} [${formatNumber(s.low)}, ${formatNumber(s.high)}] ${s.verdict}` : '-';
 }
 
-/** Log axes spanning the heat map's cells, ticked at the grid's own levels. */
-function axes(cells: { xDomain: [number, number]; yDomain: [number, number] }, grid: readonly TuningSample[]) {
-  const ticks = (values: number[]) => [...new Set(values)].sort((a, b) => a - b).map((v) => ({ value: v, label: formatNumber(v) }));
-  return {
-    x: { label: 'qScale (Q multiplier)', domain: cells.xDomain, log: true, tickLabels: ticks(grid.map((s) => s.q)) },
-    y: { label: 'rScale (R multiplier)', domain: cells.yDomain, log: true, tickLabels: ticks(grid.map((s) => s.r)) },
-  };
-}
-
-function refineMarks(samples: readonly TuningSample[]): Layer[] {
-  const refine = samples.filter((s) => s.stage === 'refine');
-  if (refine.length === 0) return [];
-  return [{ kind: 'points', x: refine.map((s) => s.q), y: refine.map((s) => s.r), color: SERIES[7], radius: 2.5, label: 'refinement', titles: refine.map((s) => `refine: qScale ${s.q}, rScale ${s.r}, cost ${formatNumber(s.score)}`) }];
+function checkRows(c: SettingCheck): string[] {
+  return [
+    statText(c.boxes),
+    statText(c.odometry),
+    statText(c.nees),
+    c.positionRmse === null ? '-' : `${formatNumber(c.positionRmse)} m`,
+    `${(100 * c.gatedFraction).toFixed(1)} %`,
+    `${c.whitenessPassed} of ${c.whitenessTests}`,
+  ];
 }
 
 export const tuningStudy: Study = {
   id: 'tuning',
   title: 'Filter tuning',
-  lede: 'Which process and measurement noise multipliers make the filter honest about its own error, and which land best? Every setting flies the same trials with the same random streams, so the surfaces differ by the settings alone.',
+  lede: 'Which noise does the filter meet in this scenario, and which Q and R land best while staying honest? The noise terms are identified from recorded trials by the likelihood of the innovations; then every Q/R setting flies the same trials with the same random streams, so the trade-off differs by the settings alone.',
   parameters: [
-    { kind: 'number', name: 'grid', label: 'Grid points per multiplier', unit: '', min: 2, max: 7, step: 1, default: 3, integer: true },
+    { kind: 'number', name: 'logs', label: 'Recorded trials to identify from', unit: '', min: 1, max: 10, step: 1, default: 1, integer: true },
+    { kind: 'choice', name: 'terms', label: 'Noise terms identified', options: [
+      { value: 'default', label: 'pixel, size fraction, odometry, carrier acceleration' },
+      { value: 'sensors', label: 'pixel, size fraction, odometry' },
+      { value: 'fractions', label: 'the default four and the centre fraction' },
+    ], default: 'sensors' },
+    { kind: 'number', name: 'grid', label: 'Trade-off grid points per multiplier', unit: '', min: 2, max: 5, step: 1, default: 2, integer: true },
     { kind: 'number', name: 'trials', label: 'Trials per setting', unit: '', min: 1, max: 30, step: 1, default: 2, integer: true },
-    { kind: 'number', name: 'refine', label: 'Refinement evaluations', unit: '', min: 0, max: 30, step: 1, default: 2, integer: true },
-    { kind: 'choice', name: 'neesWeight', label: 'Weight of consistency in the cost', options: ['0.1', '0.25', '0.5', '1'].map((v) => ({ value: v, label: v })), default: '0.25' },
     { kind: 'choice', name: 'level', label: 'NEES acceptance level', options: [{ value: '0.95', label: '95 %' }, { value: '0.99', label: '99 %' }], default: '0.95' },
   ],
   cells: [
     {
       name: 'search',
-      inputs: ['jobs', 'scenario', 'seed', 'grid', 'trials', 'refine', 'neesWeight'],
-      compute: (jobs: JobRunner, scenario: Scenario, seed: number, grid: number, trials: number, refine: number, neesWeight: string) =>
-        jobs.run('tuning', { scenario, seed, grid, trials, refine, neesWeight: Number(neesWeight), q: RANGE, r: RANGE }, 'Q/R search'),
+      inputs: ['jobs', 'scenario', 'seed', 'logs', 'terms', 'grid', 'trials'],
+      compute: (jobs: JobRunner, scenario: Scenario, seed: number, logs: number, terms: string, grid: number, trials: number) =>
+        jobs.run('tuning', { scenario, seed, logs, free: TERM_SETS[terms] ?? TERM_SETS.default!, grid, trials, q: RANGE, r: RANGE }, 'identification and trade-off'),
     },
   ],
   figures: [
     {
-      name: 'consistency',
-      title: 'Consistency surface',
-      caption: 'Average NEES over its dimension (ANEES/n) per grid setting; 1 = honest covariance, darker = further from 1 either way. Cells with a green square pass the chi-square test at the chosen level.',
-      inputs: ['search', 'level'],
-      compute: (state: TuningState, level: string) =>
-        fromState(state, 'trials', (value, partial) => {
-          const grid = value.samples.filter((s) => s.stage === 'grid');
-          const verdicts = grid.map((s) => (s.summary.neesMean !== null && s.summary.neesDim !== null ? neesVerdict(s.summary.neesMean, s.summary.trials, s.summary.neesDim, Number(level)) : null));
-          const cells = heatCells(
-            grid.map((s, i) => {
-              const ratio = s.summary.neesMean !== null && s.summary.neesDim ? s.summary.neesMean / s.summary.neesDim : NaN;
-              return { x: s.q, y: s.r, fill: sequential(Math.abs(Math.log(ratio)) / 3), title: `qScale ${s.q}, rScale ${s.r}: ANEES/n ${formatNumber(ratio)} (${verdicts[i]?.verdict ?? 'no NEES'})` };
-            }),
-          );
-          const passed = grid.filter((_, i) => verdicts[i]?.verdict === 'consistent');
+      name: 'identified',
+      title: 'Identified noise terms',
+      caption: 'Each term at the likelihood’s optimum with its approximate 95 % interval; a term the recorded trials do not bound is said so and keeps the scenario’s value.',
+      inputs: ['search'],
+      compute: (state: TuningState) =>
+        fromState(state, 'logs and trials', (value) => {
+          const terms = value.identification.terms;
           return {
-            markup: plotSvg({
-              title: 'Consistency surface',
-              ...HALF,
-              ...axes(cells, grid),
-              legendBelow: true,
-              note: partial ? 'partial results' : undefined,
-              layers: [
-                cells.layer,
-                { kind: 'points', x: passed.map((s) => s.q), y: passed.map((s) => s.r), color: SERIES[2], shape: 'square', radius: 5, label: `consistent at ${Math.round(Number(level) * 100)} %` },
-                ...refineMarks(value.samples),
-                ...bestMarker(value.best),
-                // colour = |ln(ANEES/n)| / 3: 0 at 1, 0.5 at a factor e^1.5 ≈ 4.5, 1 (darkest) from e^3 ≈ 20
-                ...rampKey(sequential, [[0, 'ANEES/n = 1'], [0.5, '4.5× off'], [1, '20× off or more']]),
-              ],
-            }),
-            csv: toCsv(['qScale', 'rScale', 'neesMean', 'neesDim', 'low', 'high', 'verdict'], grid.map((s, i) => [s.q, s.r, s.summary.neesMean, s.summary.neesDim, verdicts[i]?.low ?? null, verdicts[i]?.high ?? null, verdicts[i]?.verdict ?? null])),
-            numbers: [keyNumber('consistentCells', `settings consistent at ${Math.round(Number(level) * 100)} %`, passed.length, `${passed.length} of ${grid.length}`)],
+            kind: 'table',
+            markup: htmlTable(['term', 'identified', 'scenario', 'recommended'], terms.map((t) => [t.name, termValueText(t), formatNumber(t.start), `${t.recommended}${t.status === 'identified' ? '' : ' (kept)'}`])) +
+              value.warnings.map((w) => `<p class="message">${escapeXml(w)}</p>`).join(''),
+            csv: toCsv(['term', 'unit', 'start', 'estimate', 'low', 'high', 'status', 'recommended'], terms.map((t) => [t.name, t.unit, t.start, t.estimate, t.low, t.high, t.status, t.recommended])),
+            numbers: terms.map((t) => keyNumber(`term_${t.name}`, `recommended ${t.name}`, t.recommended, String(t.recommended))),
           };
         }),
     },
     {
-      name: 'landing',
-      title: 'Landing surface',
-      caption: 'Share of trials landed per grid setting (darker = more landings lost, as darker = less consistent on the other map); the diamond is the recommended point (lowest cost).',
+      name: 'profiles',
+      title: 'Likelihood profiles',
+      caption: 'Rise of −2 ln L as one term moves from its optimum (the others held), against value / optimum; the dashed line is the 3.84 rise that bounds a 95 % interval (Wilks). A curve that stays under it on a side leaves that side unbounded.',
       inputs: ['search'],
       compute: (state: TuningState) =>
-        fromState(state, 'trials', (value, partial) => {
-          const grid = value.samples.filter((s) => s.stage === 'grid');
-          // Dark = bad on both maps (here: landings lost), so the two read the same way side by side.
-          const cells = heatCells(grid.map((s) => ({ x: s.q, y: s.r, fill: sequential(1 - s.summary.successRate), title: `qScale ${s.q}, rScale ${s.r}: ${s.summary.landed} of ${s.summary.trials} landed` })));
-          const best = value.best;
+        fromState(state, 'logs and trials', (value) => {
+          const terms = value.identification.terms;
+          const layers: Layer[] = terms.map((t, i) => ({ kind: 'line', x: t.profile.map((p) => p.value / t.estimate), y: t.profile.map((p) => Math.min(p.rise, 40)), color: SERIES[i % SERIES.length]!, label: t.name }));
+          const ratios = terms.flatMap((t) => t.profile.map((p) => p.value / t.estimate)).filter((v) => v > 0);
           return {
-            markup: plotSvg({ title: 'Landing surface', ...HALF, legendBelow: true, ...axes(cells, grid), note: partial ? 'partial results' : undefined, layers: [cells.layer, ...refineMarks(value.samples), ...bestMarker(best), ...rampKey(sequential, [[0, 'all landed'], [0.5, 'half'], [1, 'none landed']])] }),
-            csv: toCsv(['qScale', 'rScale', 'trials', 'landed', 'successRate', 'wilsonLow', 'wilsonHigh'], grid.map((s) => [s.q, s.r, s.summary.trials, s.summary.landed, s.summary.successRate, s.summary.wilsonLow, s.summary.wilsonHigh])),
-            numbers: best
+            markup: plotSvg({
+              title: 'Likelihood profiles', ...HALF, legendBelow: true,
+              x: { label: 'value / optimum', domain: [Math.max(1e-3, Math.min(...ratios)), Math.min(1e3, Math.max(...ratios))], log: true },
+              y: { label: 'rise of −2 ln L (capped at 40)', domain: [0, 40] },
+              layers: [...layers, { kind: 'rule', axis: 'y', value: PROFILE_RISE_95, color: MUTED, dash: 4, label: '95 % (3.84)' }],
+            }),
+            csv: toCsv(['term', 'value', 'rise'], terms.flatMap((t) => t.profile.map((p) => [t.name, p.value, p.rise]))),
+          };
+        }),
+    },
+    {
+      name: 'comparison',
+      title: 'Identified against the scenario’s setting',
+      caption: 'Both settings replayed on the recorded trials. NIS per sensor and NEES against truth with their 95 % acceptance intervals; truth checks the result, it never steers it.',
+      wide: true,
+      inputs: ['search'],
+      compute: (state: TuningState) =>
+        fromState(state, 'logs and trials', (value) => {
+          const names = ['box NIS (dim 3)', 'odometry NIS (dim 3)', 'NEES vs truth (dim 6)', 'position RMSE', 'gated updates', 'whiteness tests passed'];
+          const a = checkRows(value.checks.current), b = checkRows(value.checks.recommended);
+          const box = value.checks.recommended.boxes;
+          return {
+            kind: 'table',
+            markup: htmlTable(['check', 'scenario setting', 'identified setting'], names.map((n, i) => [n, a[i]!, b[i]!])) +
+              (box ? `<p>Box updates with the identified setting: ${consistencyWords(box.verdict)}.</p>` : ''),
+            csv: toCsv(['check', 'current', 'recommended'], names.map((n, i) => [n, a[i]!, b[i]!])),
+          };
+        }),
+    },
+    {
+      name: 'tradeoff',
+      title: 'Landing against consistency',
+      caption: 'Each Q/R setting around the identified noise: landing success (Wilson 95 % bars) against |ln(ANEES/n)| (0 = consistent). Filled: non-dominated (nothing lands more often while at least as consistent); ringed: the named setting.',
+      inputs: ['search', 'level'],
+      compute: (state: TuningState, level: string) =>
+        fromState(state, 'logs and trials', (value, partial) => {
+          const t = value.tradeOff;
+          if (!t) return { markup: '<p>identification done; flying the trade-off grid…</p>', kind: 'table' };
+          const shown = t.settings.filter((s) => s.neesDistance !== null);
+          const front = shown.filter((s) => s.nonDominated).sort((a, b) => a.neesDistance! - b.neesDistance!);
+          const judged = (s: (typeof shown)[number]) => neesVerdict(s.summary.neesMean!, s.summary.trials, s.summary.neesDim!, Number(level)).verdict;
+          const titles = (list: typeof shown) => list.map((s) => `qScale ${s.qScale}, rScale ${s.rScale}: ${s.summary.landed} of ${s.summary.trials} landed, ANEES ${formatNumber(s.summary.neesMean)} (${judged(s)} at ${Math.round(Number(level) * 100)} %)`);
+          const named = t.chosen !== null ? t.settings[t.chosen]! : null;
+          const maxD = Math.max(0.5, ...shown.map((s) => s.neesDistance!));
+          return {
+            markup: plotSvg({
+              title: 'Landing against consistency', ...HALF, legendBelow: true, note: partial ? 'partial results' : undefined,
+              x: { label: '|ln(ANEES / n)|', domain: [0, maxD * 1.05] },
+              y: { label: 'landing success', domain: [0, 1], format: (v) => formatPercent(v) },
+              layers: [
+                { kind: 'errorbars', x: shown.map((s) => s.neesDistance!), low: shown.map((s) => s.summary.wilsonLow), high: shown.map((s) => s.summary.wilsonHigh), color: MUTED },
+                { kind: 'points', x: shown.map((s) => s.neesDistance!), y: shown.map((s) => s.summary.successRate), color: SERIES[7], radius: 3, label: 'setting', titles: titles(shown) },
+                { kind: 'line', x: front.map((s) => s.neesDistance!), y: front.map((s) => s.summary.successRate), color: SERIES[0], dash: 4 },
+                { kind: 'points', x: front.map((s) => s.neesDistance!), y: front.map((s) => s.summary.successRate), color: SERIES[0], radius: 5, label: 'non-dominated', titles: titles(front) },
+                ...(named && named.neesDistance !== null ? [{ kind: 'points' as const, x: [named.neesDistance], y: [named.summary.successRate], color: SERIES[1], shape: 'diamond' as const, radius: 8, label: 'named', titles: [`named: qScale ${named.qScale}, rScale ${named.rScale}`] }] : []),
+              ],
+            }),
+            csv: toCsv(['qScale', 'rScale', 'trials', 'landed', 'successRate', 'wilsonLow', 'wilsonHigh', 'neesMean', 'neesDistance', 'nonDominated'], t.settings.map((s) => [s.qScale, s.rScale, s.summary.trials, s.summary.landed, s.summary.successRate, s.summary.wilsonLow, s.summary.wilsonHigh, s.summary.neesMean, s.neesDistance, String(s.nonDominated)])),
+            numbers: named
               ? [
-                  keyNumber('bestQ', 'recommended qScale', best.q),
-                  keyNumber('bestR', 'recommended rScale', best.r),
-                  keyNumber('bestCost', 'cost', best.score),
-                  keyNumber('bestSuccess', 'success there', best.summary.successRate, formatPercent(best.summary.successRate)),
+                  keyNumber('namedQ', 'named qScale', named.qScale),
+                  keyNumber('namedR', 'named rScale', named.rScale),
+                  keyNumber('namedSuccess', 'success there', named.summary.successRate, formatPercent(named.summary.successRate)),
+                  keyNumber('frontSize', 'non-dominated settings', t.front.length),
                 ]
-              : [],
+              : [keyNumber('frontSize', 'non-dominated settings', t.front.length)],
           };
         }),
     },
     {
       name: 'settings',
-      title: 'Every evaluated setting',
-      caption: 'Grid first, then the Nelder–Mead refinement, in evaluation order. Cost = (1 − success) + w·|ln(ANEES/n)|.',
+      title: 'Every trade-off setting',
+      caption: 'The Q and R multipliers on top of the identified noise, each over the same trials.',
       wide: true,
       inputs: ['search'],
       compute: (state: TuningState) =>
-        fromState(state, 'trials', (value) => ({
-          kind: 'table',
-          markup: htmlTable(
-            ['stage', 'qScale', 'rScale', 'landed', 'ANEES', 'cost'],
-            value.samples.map((s) => [s.stage, formatNumber(s.q), formatNumber(s.r), `${s.summary.landed} / ${s.summary.trials}`, formatNumber(s.summary.neesMean), formatNumber(s.score)]),
-          ),
-          csv: toCsv(['stage', 'qScale', 'rScale', 'gateScale', 'trials', 'landed', 'neesMean', 'cost'], value.samples.map((s) => [s.stage, s.q, s.r, s.gate, s.summary.trials, s.summary.landed, s.summary.neesMean, s.score])),
-        })),
+        fromState(state, 'logs and trials', (value) => {
+          const t = value.tradeOff;
+          if (!t) return { kind: 'table', markup: '<p>waiting for the trade-off grid…</p>' };
+          return {
+            kind: 'table',
+            markup: htmlTable(
+              ['qScale', 'rScale', 'landed', 'ANEES [95 %]', 'non-dominated'],
+              t.settings.map((s, i) => [formatNumber(s.qScale), formatNumber(s.rScale), `${s.summary.landed} / ${s.summary.trials}`, s.summary.neesMean === null ? '-' : `${formatNumber(s.summary.neesMean)} [${formatNumber(s.summary.neesLow)}, ${formatNumber(s.summary.neesHigh)}]`, s.nonDominated ? (i === t.chosen ? 'yes, named' : 'yes') : '']),
+            ),
+            csv: toCsv(['qScale', 'rScale', 'trials', 'landed', 'neesMean', 'nonDominated'], t.settings.map((s) => [s.qScale, s.rScale, s.summary.trials, s.summary.landed, s.summary.neesMean, String(s.nonDominated)])),
+          };
+        }),
     },
   ],
   blocks: [
-    { prose: 'The search runs in a background worker. Changing the acceptance level only re-judges the consistency surface; changing the weight reruns the search, because the refinement follows the cost.', pageOnly: true },
-    { figure: 'consistency' },
-    { figure: 'landing' },
-    { prose: 'Put the recommended multipliers into the scenario’s filter section (qScale, rScale), then confirm them on flight logs with the replay study: consistency in simulation is necessary, not sufficient.' },
+    { prose: 'The identification and the trade-off run in a background worker. Changing the acceptance level only re-judges the trade-off figure.', pageOnly: true },
+    { figure: 'identified' },
+    { figure: 'profiles' },
+    { prose: 'The likelihood finds the noise the filter’s own model explains best. Errors the model does not carry (a target-size error, odometry drift, the oblique view of the deck) then show as an over-confident NEES against truth below: read the comparison before using the values.' },
+    { figure: 'comparison' },
+    { figure: 'tradeoff' },
+    { prose: 'Put the identified terms and the named multipliers into the scenario’s filter section, then confirm them on flight logs with `alight tune <log-folder>` and the replay study: consistency in simulation is necessary, not sufficient.' },
     { figure: 'settings' },
   ],
 };

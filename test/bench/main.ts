@@ -7,6 +7,7 @@
 import { spawnSync } from 'node:child_process';
 import { rerunArgs } from './paths.js';
 import { CHILD_FLAG } from './replay.js';
+import { IMPORT_CHILD_FLAG } from './importBench.js';
 import { sections } from './sections.js';
 
 const SECTION_FLAG = '--section=';
@@ -27,8 +28,8 @@ if (single !== undefined) {
   const section = sections.find((s) => s.name === single);
   if (!section) refuseSection(single);
   process.stdout.write(JSON.stringify(await section.run()) + '\n');
-} else if (!args.includes(CHILD_FLAG)) {
-  // A replay child (replay.ts) is this same file when bundled: it runs only its replay.
+} else if (!args.includes(CHILD_FLAG) && !args.includes(IMPORT_CHILD_FLAG)) {
+  // A replay child (replay.ts) or an import child (importBench.ts) is this same file when bundled: it runs only its own job.
   const names = sections.map((s) => s.name).filter((name) => !only || name === only);
   if (names.length === 0) refuseSection(only);
   const report: Record<string, unknown> = {};

@@ -4,6 +4,7 @@ import { world } from './world.js';
 import { sweepBench } from './sweep.js';
 import { replayBench } from './replay.js';
 import { trialBench } from './trial.js';
+import { importBench } from './importBench.js';
 import { pageBench } from './page.js';
 export interface BenchSection {
   name: string;

@@ -18,4 +18,5 @@ export const sections: BenchSection[] = [
   replayBench,
   trialBench,
   pageBench,
+  importBench,
 ];

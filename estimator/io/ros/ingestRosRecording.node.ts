@@ -125,9 +125,16 @@ function decoderFor(name: string, route: Route, channel: RecordedChannel): Messa
 }
 
 /** The first message of a topic, decoded (null when the topic has none). */
-async function firstMessage(recording: Recording, topic: string, reader: MessageReader): Promise<{ msg: Decoded; logTime: bigint } | null> {
-  for await (const m of recording.messages([topic])) return { msg: reader.readMessage(m.data), logTime: m.logTime };
+async function firstMessage(recording: Recording, topic: string, reader: MessageReader): Promise<{ msg: Decoded; data: Uint8Array } | null> {
+  for await (const m of recording.messages([topic])) return { msg: reader.readMessage(m.data), data: m.data };
   return null;
+}
+
+/** Two CDR messages equal after the encapsulation header and header.stamp (4 + 8 bytes). */
+function sameAfterStamp(a: Uint8Array, b: Uint8Array): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 12; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
 }
 
 export interface IngestOptions {
@@ -173,7 +180,7 @@ async function convert(recording: Recording, name: string, map: RosMap, sink: Lo
     checkRoute(name, route, channel, recording, map); // a topic serving two roles is checked for both
     if (!decoders.has(route.topic)) decoders.set(route.topic, decoderFor(name, route, channel));
   }
-  const typeOf = (topic: string) => shortTypeName(recording.channels.get(topic)!.schemaName);
+  const types = new Map(topics.map((t) => [t, shortTypeName(recording.channels.get(t)!.schemaName)]));
 
   // The camera from its first message; the time origin from the first IMU stamp.
   const at = (role: IngestRole, topic: string) => `${name}: topic ${topic} (${ROLE_WORDS[role]})`;
@@ -241,12 +248,17 @@ async function convert(recording: Recording, name: string, map: RosMap, sink: Lo
   const stampOf = (msg: Decoded, logTime: bigint, mode: 'header' | 'receive'): number | null =>
     mode === 'receive' ? logTimeSeconds(logTime, origin) : msg.header?.stamp ? stampSeconds(msg.header.stamp, origin) : null;
 
+  const cameraOnlyTopic = byTopic.get(map.camera.topic)!.length === 1 ? map.camera.topic : null;
   const topicById = new Map<number, string>();
   for (const t of topics) topicById.set(recording.channels.get(t)!.id, t);
 
   try {
     for await (const message of recording.messages(topics)) {
       const topic = topicById.get(message.channelId)!;
+      if (topic === cameraOnlyTopic && sameAfterStamp(message.data, first.data)) {
+        streams.camera!.messages++; // the same camera again (every frame brings one): nothing to decode
+        continue;
+      }
       let msg: Decoded;
       try {
         msg = decoders.get(topic)!.readMessage(message.data);
@@ -262,7 +274,7 @@ async function convert(recording: Recording, name: string, map: RosMap, sink: Lo
       for (const route of byTopic.get(topic)!) {
         const role = route.role;
         streams[role]!.messages++;
-        const type = typeOf(topic);
+        const type = types.get(topic)!;
         try {
           switch (role) {
             case 'camera': {

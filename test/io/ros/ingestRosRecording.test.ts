@@ -221,6 +221,25 @@ describe('ingestRosRecording: recordings it refuses, by name', () => {
     expect(readFileSync(join(folder, 'boxes.csv'), 'utf8').trim().split('\n')[1]!.split(',').slice(2)).toEqual(['300.5', '230.5', '340.5', '250.5', '1']);
   });
 
+  it('uses the first camera info and says how many later ones differ from it', async () => {
+    const info = (fx: number, sec: number) => ({
+      header: { stamp: rosTime(nanoseconds(sec)), frame_id: 'cam_optical' }, height: 480, width: 640, distortion_model: 'plumb_bob',
+      d: [0.01, 0, 0, 0, 0], k: [fx, 0, 319.5, 0, 500, 239.5, 0, 0, 1], r: [1, 0, 0, 0, 1, 0, 0, 0, 1], p: [fx, 0, 319.5, 0, 0, 500, 239.5, 0, 0, 0, 1, 0],
+      binning_x: 0, binning_y: 0, roi: { x_offset: 0, y_offset: 0, height: 0, width: 0, do_rectify: false },
+    });
+    const path = await smallRecording('camera-changes.mcap', async (w) => {
+      await w.channel('/boxes', 'vision_msgs/Detection2DArray');
+      await w.add('/camera/camera_info', nanoseconds(100.3), info(500, 100.3)); // the same camera again
+      await w.add('/camera/camera_info', nanoseconds(100.4), info(510, 100.4)); // a new calibration mid-flight
+      await w.add('/boxes', nanoseconds(100.4), { header: { stamp: rosTime(nanoseconds(100.4)), frame_id: 'cam_optical' }, detections: [] });
+    });
+    const folder = join(dir, 'camera-changes');
+    const report = await ingestRosRecording(path, smallMap({ topic: '/boxes' }), folderSink(folder));
+    expect(report.streams.camera!.messages).toBe(3);
+    expect(report.warnings).toEqual(['topic /camera/camera_info: 1 camera info messages differ from the first; the first is used']);
+    expect(JSON.parse(readFileSync(join(folder, 'camera.json'), 'utf8')).intrinsics.fx).toBe(500);
+  });
+
   it('names a mapped topic that is not recorded, and lists what is', async () => {
     const path = await smallRecording('no-boxes.mcap', async () => {});
     expect(await ingestError(path)).toBe('flight.mcap: topic /boxes (boxes) is not in the recording; it has these topics: /camera/camera_info (sensor_msgs/msg/CameraInfo), /imu/data (sensor_msgs/msg/Imu)');

@@ -10,7 +10,7 @@ import { MessageReader } from '@foxglove/rosmsg2-serialization';
 import type { LogTextSink } from '../log/LogRecorder.js';
 import { LOG_FORMAT, LOG_VERSION } from '../log/parseLogCamera.js';
 import { LayoutRows } from './LayoutRows.js';
-import { openRecording, RecordingOpenError, type RecordedChannel, type Recording } from './openRecording.node.js';
+import { openRecording, RecordingOpenError, type RecordedChannel, type RecordedMessage, type Recording } from './openRecording.node.js';
 import type { RosMap } from './parseRosMap.js';
 import { cornerBoxes, detectionBoxes, emptyBoxCounts } from './rosBoxes.js';
 import { attitudeOf, cameraFromInfo, imuSpecificForce, logTimeSeconds, MessageContentError, odometryState, ROLE_TYPES, shortTypeName, stampSeconds, velocityOf, type Decoded, type RosCamera } from './rosMessages.js';
@@ -125,9 +125,22 @@ function decoderFor(name: string, route: Route, channel: RecordedChannel): Messa
 }
 
 /** The first message of a topic, decoded (null when the topic has none). */
-async function firstMessage(recording: Recording, topic: string, reader: MessageReader): Promise<{ msg: Decoded; data: Uint8Array } | null> {
-  for await (const m of recording.messages([topic])) return { msg: reader.readMessage(m.data), data: m.data };
-  return null;
+async function firstMessage(name: string, recording: Recording, topic: string, reader: MessageReader): Promise<{ msg: Decoded; data: Uint8Array } | null> {
+  let data: Uint8Array | undefined;
+  try {
+    for await (const m of recording.messages([topic])) {
+      data = m.data;
+      break;
+    }
+  } catch (error) {
+    throw new RecordingError(`${name}: the recording is damaged (${(error as Error).message})`);
+  }
+  if (data === undefined) return null;
+  try {
+    return { msg: reader.readMessage(data), data };
+  } catch (error) {
+    throw new RecordingError(`${name}: topic ${topic}: its first message cannot be decoded (${(error as Error).message})`);
+  }
 }
 
 /** Two CDR messages equal after the encapsulation header and header.stamp (4 + 8 bytes). */
@@ -184,7 +197,7 @@ async function convert(recording: Recording, name: string, map: RosMap, sink: Lo
 
   // The camera from its first message; the time origin from the first IMU stamp.
   const at = (role: IngestRole, topic: string) => `${name}: topic ${topic} (${ROLE_WORDS[role]})`;
-  const first = await firstMessage(recording, map.camera.topic, decoders.get(map.camera.topic)!);
+  const first = await firstMessage(name, recording, map.camera.topic, decoders.get(map.camera.topic)!);
   if (first === null) throw new RecordingError(`${at('camera', map.camera.topic)} has no messages: the camera's intrinsics are needed`);
   const shift = map.camera.pixelCentres === 'integer' ? 0.5 : 0;
   let camera: RosCamera;
@@ -194,7 +207,7 @@ async function convert(recording: Recording, name: string, map: RosMap, sink: Lo
     if (error instanceof MessageContentError) throw new RecordingError(`${at('camera', map.camera.topic)}: ${error.message}`);
     throw error;
   }
-  const firstImu = await firstMessage(recording, map.imu.topic, decoders.get(map.imu.topic)!);
+  const firstImu = await firstMessage(name, recording, map.imu.topic, decoders.get(map.imu.topic)!);
   if (firstImu === null) throw new RecordingError(`${at('imu', map.imu.topic)} has no messages: the filter cannot run without the IMU`);
   const origin = map.timeOrigin ?? firstImu.msg.header.stamp.sec;
 
@@ -253,7 +266,19 @@ async function convert(recording: Recording, name: string, map: RosMap, sink: Lo
   for (const t of topics) topicById.set(recording.channels.get(t)!.id, t);
 
   try {
-    for await (const message of recording.messages(topics)) {
+    const iterator = recording.messages(topics);
+    let lastLogTime = 0n;
+    for (;;) {
+      let step: IteratorResult<RecordedMessage>;
+      try {
+        step = await iterator.next();
+      } catch (error) {
+        // The container library found damage (a checksum, a cut chunk): say where, keep nothing half-read.
+        throw new RecordingError(`${name}: the recording is damaged after log time ${lastLogTime} ns (${(error as Error).message})`);
+      }
+      if (step.done) break;
+      const message = step.value;
+      lastLogTime = message.logTime;
       const topic = topicById.get(message.channelId)!;
       if (topic === cameraOnlyTopic && sameAfterStamp(message.data, first.data)) {
         streams.camera!.messages++; // the same camera again (every frame brings one): nothing to decode

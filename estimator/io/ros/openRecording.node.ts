@@ -105,9 +105,7 @@ export async function openRecording(path: string): Promise<Recording> {
       indexed: true,
       channels,
       truncated: null,
-      async *messages(topics) {
-        for await (const m of reader.readMessages({ topics, validateCrcs: false })) yield m;
-      },
+      messages: (topics) => reader.readMessages({ topics, validateCrcs: true }),
       close: () => handle.close(),
     };
   } catch (error) {
@@ -129,7 +127,7 @@ async function streamedRecording(path: string, bytes: number, reason: string): P
       const wanted = new Set(topics);
       const schemas = new Map<number, McapTypes.Schema>();
       const ids = new Set<number>();
-      const reader = new McapStreamReader({ decompressHandlers: decompress, validateCrcs: false });
+      const reader = new McapStreamReader({ decompressHandlers: decompress, validateCrcs: true });
       let read = 0;
       let broken: string | null = null;
       for await (const chunk of createReadStream(path, { highWaterMark: 1 << 20 })) {

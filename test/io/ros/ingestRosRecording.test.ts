@@ -240,6 +240,20 @@ describe('ingestRosRecording: recordings it refuses, by name', () => {
     expect(JSON.parse(readFileSync(join(folder, 'camera.json'), 'utf8')).intrinsics.fx).toBe(500);
   });
 
+  it('stops on a damaged chunk (checksum mismatch) instead of writing changed numbers', async () => {
+    const path = await smallRecording('flipped.mcap', async (w) => {
+      await w.channel('/boxes', 'vision_msgs/Detection2DArray');
+    });
+    const bytes = readFileSync(path);
+    const g = Buffer.alloc(8);
+    g.writeDoubleLE(9.81);
+    const at = bytes.indexOf(g); // inside the first IMU message of the chunk
+    expect(at).toBeGreaterThan(0);
+    bytes[at + 7] ^= 0x01; // 9.81 becomes another number
+    writeFileSync(path, bytes);
+    expect(await ingestError(path)).toMatch(/^flight\.mcap: the recording is damaged \(Incorrect chunk CRC/);
+  });
+
   it('names a mapped topic that is not recorded, and lists what is', async () => {
     const path = await smallRecording('no-boxes.mcap', async () => {});
     expect(await ingestError(path)).toBe('flight.mcap: topic /boxes (boxes) is not in the recording; it has these topics: /camera/camera_info (sensor_msgs/msg/CameraInfo), /imu/data (sensor_msgs/msg/Imu)');

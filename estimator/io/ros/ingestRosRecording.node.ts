@@ -143,6 +143,23 @@ async function firstMessage(name: string, recording: Recording, topic: string, r
   }
 }
 
+/**
+ * A reused buffer that holds each message at byte offset 4 (mod 8): CDR aligns 8-byte values
+ * relative to the end of its 4-byte encapsulation header, so there they are also aligned in
+ * memory and the decoder hands out arrays (covariances) as views instead of copying them value
+ * by value. Decoded arrays are therefore only valid until the next message.
+ */
+class AlignedBytes {
+  private buffer = new ArrayBuffer(1 << 12);
+
+  place(data: Uint8Array): Uint8Array {
+    if (data.length + 4 > this.buffer.byteLength) this.buffer = new ArrayBuffer(2 * (data.length + 4));
+    const view = new Uint8Array(this.buffer, 4, data.length);
+    view.set(data);
+    return view;
+  }
+}
+
 /** Two CDR messages equal after the encapsulation header and header.stamp (4 + 8 bytes). */
 function sameAfterStamp(a: Uint8Array, b: Uint8Array): boolean {
   if (a.length !== b.length) return false;
@@ -261,6 +278,7 @@ async function convert(recording: Recording, name: string, map: RosMap, sink: Lo
   const stampOf = (msg: Decoded, logTime: bigint, mode: 'header' | 'receive'): number | null =>
     mode === 'receive' ? logTimeSeconds(logTime, origin) : msg.header?.stamp ? stampSeconds(msg.header.stamp, origin) : null;
 
+  const aligned = new AlignedBytes();
   const cameraOnlyTopic = byTopic.get(map.camera.topic)!.length === 1 ? map.camera.topic : null;
   const topicById = new Map<number, string>();
   for (const t of topics) topicById.set(recording.channels.get(t)!.id, t);
@@ -286,7 +304,7 @@ async function convert(recording: Recording, name: string, map: RosMap, sink: Lo
       }
       let msg: Decoded;
       try {
-        msg = decoders.get(topic)!.readMessage(message.data);
+        msg = decoders.get(topic)!.readMessage(aligned.place(message.data));
       } catch (error) {
         for (const route of byTopic.get(topic)!) {
           streams[route.role]!.messages++;

@@ -24,13 +24,13 @@ describe('the bundled benchmark', () => {
   it('lists its sections when asked for one it does not have, and exits 2', () => {
     const run = spawnSync(process.execPath, [bundle, '--json', '--only=no-such-section'], { encoding: 'utf8' });
     expect(run.status).toBe(2);
-    expect(run.stderr).toContain('bench: no section named no-such-section; sections: ekf, world, sweep, replay, trial, page, import');
+    expect(run.stderr).toContain('bench: no section named no-such-section; sections: ekf, world, sweep, replay, trial, page, import, tune');
     expect(run.stdout).toBe('');
   });
 
   it('refuses an unknown section run on its own the same way, without a stack trace', () => {
     const run = spawnSync(process.execPath, [bundle, '--section=no-such-section'], { encoding: 'utf8' });
     expect(run.status).toBe(2);
-    expect(run.stderr).toBe('bench: no section named no-such-section; sections: ekf, world, sweep, replay, trial, page, import\n');
+    expect(run.stderr).toBe('bench: no section named no-such-section; sections: ekf, world, sweep, replay, trial, page, import, tune\n');
   });
 });

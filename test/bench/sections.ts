@@ -6,6 +6,7 @@ import { replayBench } from './replay.js';
 import { trialBench } from './trial.js';
 import { importBench } from './importBench.js';
 import { pageBench } from './page.js';
+import { tuneBench } from './tune.js';
 export interface BenchSection {
   name: string;
   run(): Promise<Record<string, unknown>>;
@@ -19,4 +20,5 @@ export const sections: BenchSection[] = [
   trialBench,
   pageBench,
   importBench,
+  tuneBench,
 ];

@@ -6,7 +6,7 @@
 import type { Scenario } from '../../estimator/sim/Scenario.js';
 import type { ParameterValue } from '../studies/Parameter.js';
 
-export const STUDY_IDS = ['landing', 'detection', 'localization', 'tuning', 'carrier', 'replay'] as const;
+export const STUDY_IDS = ['landing', 'detection', 'localization', 'tuning', 'carrier', 'replay', 'test-card'] as const;
 export type StudyId = (typeof STUDY_IDS)[number];
 
 export interface Analysis {

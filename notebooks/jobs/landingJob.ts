@@ -16,6 +16,8 @@ export interface LandingInput {
   scenario: Scenario;
   seed: number;
   trial: number;
+  /** Sweep point the trial belongs to (its streams derive from it); default 0, a lone trial. */
+  point?: number;
   /** Spacing of kept rows (s). */
   every: number;
 }
@@ -55,7 +57,7 @@ export function landingJob(input: LandingInput, progress: Progress<LandingOutput
   let next = -Infinity;
   progress(0, 1, null);
   const result = runTrial(input.scenario, {
-    key: { seed: input.seed, point: 0, trial: input.trial },
+    key: { seed: input.seed, point: input.point ?? 0, trial: input.trial },
     onStep: (row: TraceRow) => {
       if (row.box) out.boxes.push({ t: row.t, box: row.box });
       for (const u of row.updates) out.updates.push({ t: row.t, status: u.status, nis: u.nis, dim: u.dim });

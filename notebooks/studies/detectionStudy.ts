@@ -16,6 +16,7 @@ import { consistencyWords } from '../../estimator/study/statistics/ensembleConsi
 import { CONFIDENCE_PARAMETER, Z_OF_LEVEL } from './confidence.js';
 import { fromState, HALF, htmlTable, keyNumber, toCsv } from './figureOutput.js';
 import type { Study } from './Study.js';
+import { causeFigure } from './causeFigure.js';
 
 interface Impairment {
   label: string;
@@ -189,6 +190,7 @@ export const detectionStudy: Study = {
       inputs: ['sweep', 'impairment'],
       compute: (state: SweepState, impairment: string) => fromState(state, 'trials', (value) => outcomeTable(value, IMPAIRMENTS[impairment]!.path)),
     },
+    causeFigure((impairment) => IMPAIRMENTS[impairment]!.path, 'impairment'),
   ],
   blocks: [
     { prose: 'Each impairment is swept on its own, every point flown the chosen number of times. Changing the confidence level only redraws the bands and the claims; it reruns no trial.', pageOnly: true },
@@ -197,6 +199,7 @@ export const detectionStudy: Study = {
     { prose: 'Few trials give wide bands: n landings out of n leave a Wilson lower bound of n / (n + z²), so a claim of 95 % at 95 % confidence takes at least 73 trials, all landed. The claims table says what the chosen trials can and cannot show.' },
     { figure: 'claims' },
     { figure: 'outcomes' },
+    { figure: 'causes' },
   ],
 };
 

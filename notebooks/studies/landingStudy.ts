@@ -27,6 +27,8 @@ export const landingStudy: Study = {
     { kind: 'number', name: 'speed', label: 'Carrier speed', unit: 'm/s', min: 0, max: 15, step: 0.5, default: 3 },
     { kind: 'number', name: 'pixelNoise', label: 'Box centre noise', unit: 'px', min: 0, max: 10, step: 0.5, default: 1.5 },
     { kind: 'number', name: 'time', label: 'Inspect time', unit: 's', min: 0, max: 120, step: 0.5, default: 8 },
+    // the sweep point a replayed trial came from (links from the failure-cause tables set it); 0 for a lone trial
+    { kind: 'number', name: 'point', label: 'Sweep point', unit: '', min: 0, max: 999, step: 1, default: 0, integer: true },
   ],
   cells: [
     {
@@ -36,8 +38,9 @@ export const landingStudy: Study = {
     },
     {
       name: 'run',
-      inputs: ['jobs', 'flown', 'seed', 'trial'],
-      compute: (jobs: JobRunner, flown: Scenario, seed: number, trial: number) => jobs.run('landing', { scenario: flown, seed, trial, every: 0.05 }, `trial ${trial}`),
+      inputs: ['jobs', 'flown', 'seed', 'trial', 'point'],
+      compute: (jobs: JobRunner, flown: Scenario, seed: number, trial: number, point: number) =>
+        jobs.run('landing', { scenario: flown, seed, trial, point, every: 0.05 }, point === 0 ? `trial ${trial}` : `trial ${trial} of point ${point}`),
     },
   ],
   figures: [

@@ -6,9 +6,10 @@ import { landingStudy } from './landingStudy.js';
 import { localizationStudy } from './localizationStudy.js';
 import { replayStudy } from './replayStudy.js';
 import type { Study } from './Study.js';
+import { testCardStudy } from './testCardStudy.js';
 import { tuningStudy } from './tuningStudy.js';
 
-export const STUDIES: readonly Study[] = [landingStudy, detectionStudy, localizationStudy, tuningStudy, carrierStudy, replayStudy];
+export const STUDIES: readonly Study[] = [landingStudy, detectionStudy, localizationStudy, tuningStudy, carrierStudy, replayStudy, testCardStudy];
 
 export function studyById(id: StudyId): Study {
   const study = STUDIES.find((s) => s.id === id);

@@ -57,7 +57,7 @@ describe('parseAnalysis', () => {
   });
 
   it('refuses an unknown study and text that is not JSON', () => {
-    expect(() => parseAnalysis(text({ study: 'weather' }), 'w.json', lookup)).toThrow('w.json:1: field "study" must be one of landing, detection, localization, tuning, carrier, replay, got "weather"');
+    expect(() => parseAnalysis(text({ study: 'weather' }), 'w.json', lookup)).toThrow('w.json:1: field "study" must be one of landing, detection, localization, tuning, carrier, replay, test-card, got "weather"');
     expect(() => parseAnalysis('{ nope', 'n.json', lookup)).toThrow("n.json:1:3: not valid JSON: expected a string, found 'n'");
     expect(() => parseAnalysis('{ "seed": 1,\n "seed": 2 }', 'd.json', lookup)).toThrow('d.json:2:2: not valid JSON: duplicate key "seed" (first given on line 1); each key may appear once');
   });

@@ -39,7 +39,7 @@ describe('readLink', () => {
   });
 
   it('names an unknown study and an unknown fragment', () => {
-    expect(readLink('#study=nonsense').problem).toBe('This link asks for a study named "nonsense", and there is none: the studies are landing, detection, localization, tuning, carrier, replay.');
+    expect(readLink('#study=nonsense').problem).toBe('This link asks for a study named "nonsense", and there is none: the studies are landing, detection, localization, tuning, carrier, replay, test-card.');
     expect(readLink('#study=%E0%A4%A').problem).toContain('"%E0%A4%A"');
     expect(readLink('#whatever').problem).toContain('names neither a study');
     expect(readLink('#study=replay')).toMatchObject({ problem: null, analysis: { study: 'replay' } });

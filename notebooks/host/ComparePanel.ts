@@ -93,6 +93,8 @@ export class ComparePanel {
 
   /** Redraw (after any figure of B changed). */
   draw(): void {
+    const stop = document.getElementById('stop-compare');
+    if (stop) stop.hidden = this.pinned === null;
     const section = this.section;
     if (!section) return;
     section.hidden = this.pinned === null;

@@ -112,7 +112,7 @@ export const carrierStudy: Study = {
           const speeds = value.header.points.map((p) => Number(p['carrier.speed']));
           const straight = bySpeed(value.summaries, 'straight')[0];
           return {
-            markup: plotSvg({ title: 'Success versus carrier speed', ...HALF, x: { label: 'carrier speed (m/s)', domain: extent(speeds, 0.05) }, y: { label: 'landed', domain: [0, 1.02], format: (v) => `${Math.round(v * 100)} %` }, layers, note: partial ? 'partial results' : undefined }),
+            markup: plotSvg({ title: 'Success versus carrier speed', ...HALF, x: { label: 'carrier speed (m/s)', domain: extent([...speeds.map((v) => v - 0.03 * top), ...speeds.map((v) => v + 0.03 * top)], 0.05) }, y: { label: 'landed', domain: [0, 1.02], format: (v) => `${Math.round(v * 100)} %` }, layers, note: partial ? 'partial results' : undefined }),
             csv: toCsv(['shape', 'speed', 'trials', 'landed', 'successRate', 'wilsonLow', 'wilsonHigh'], value.summaries.map((p) => [String(p.point['carrier.path.shape']), Number(p.point['carrier.speed']), p.trials, p.landed, p.successRate, p.wilsonLow, p.wilsonHigh])),
             numbers: straight ? [keyNumber('straightSlowest', `straight at ${straight.point['carrier.speed']} m/s`, straight.successRate, formatPercent(straight.successRate))] : [],
           };
@@ -138,7 +138,8 @@ export const carrierStudy: Study = {
               x: { label: `highest speed with ${rule === 'lower' ? 'Wilson lower bound' : 'success'} ≥ ${Math.round(target * 100)} % (m/s)`, domain: [0, maxSwept * 1.05] },
               y: { label: '', domain: [0, SHAPES.length], tickLabels: SHAPES.map((s, i) => ({ value: SHAPES.length - i - 0.5, label: s })) },
               marginLeft: 92,
-              note: partial ? 'partial results' : undefined,
+              // The success-rate rule has no confidence behind it: say so when the trials could not show the target.
+              note: partial ? 'partial results' : rule === 'rate' && !reach.reachable ? `rates only: ${value.header.trials} trials per speed cannot show ${formatPercent(target, 0)}` : undefined,
               layers: [
                 { kind: 'rects', rects: envelope.map((v, i) => ({ x0: 0, x1: v ?? 0, y0: SHAPES.length - i - 0.8, y1: SHAPES.length - i - 0.2, fill: SERIES[i]!, title: `${SHAPES[i]}: ${v === null ? 'none' : `${v} m/s, ${atEnvelope[i]!.landed} of ${atEnvelope[i]!.trials} landed there (Wilson ${formatPercent(atEnvelope[i]!.wilsonLow, 0)} to ${formatPercent(atEnvelope[i]!.wilsonHigh, 0)})`}` })) },
                 // an empty row says so, rather than looking like missing data
@@ -148,7 +149,7 @@ export const carrierStudy: Study = {
             csv: toCsv(['shape', 'envelopeSpeed', 'target', 'rule'], SHAPES.map((s, i) => [s, envelope[i] ?? null, target, rule])),
             numbers: [
               keyNumber('claimNeeds', `trials per speed to show ${formatPercent(target, 0)}`, Number.isFinite(reach.needed) ? reach.needed : null, !Number.isFinite(reach.needed) ? 'no number of trials' : reach.reachable ? `${reach.needed} (have ${value.header.trials})` : `${reach.needed}: have only ${value.header.trials}`),
-              ...SHAPES.map((s, i) => keyNumber(`envelope_${s}`, s, envelope[i] ?? null, envelope[i] === null ? 'none' : `${formatNumber(envelope[i]!)} m/s (Wilson low ${formatPercent(atEnvelope[i]!.wilsonLow, 0)})`)),
+              ...SHAPES.map((s, i) => keyNumber(`envelope_${s}`, envelope[i] === null ? s : `${s} (Wilson low ${formatPercent(atEnvelope[i]!.wilsonLow, 0)})`, envelope[i] ?? null, envelope[i] === null ? 'none' : `${formatNumber(envelope[i]!)} m/s`)),
             ],
           };
         }),

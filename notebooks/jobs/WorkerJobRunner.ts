@@ -4,7 +4,7 @@
 // study of hundreds of trials per point uses every core the browser offers; the merged results
 // are the very records, summaries and file one worker would give.
 import type { JobState } from './JobState.js';
-import { mergeSweepParts, splitSweep, type SweepInput, type SweepOutput } from './sweepJob.js';
+import { mergeSweepParts, plannedTrials, splitSweep, type SweepInput, type SweepOutput } from './sweepJob.js';
 import { StateChannel, type JobRunner, type JobStates } from './JobRunner.js';
 import type { JobInput, JobKind, JobOutput } from './jobTable.js';
 import type { WorkerMessage } from './protocol.js';
@@ -54,7 +54,9 @@ export class WorkerJobRunner implements JobRunner {
   /** One sweep as parts on several workers, seen as one job. */
   private runSplit(input: SweepInput, label: string): JobStates<SweepOutput> {
     const parts = splitSweep(input, this.concurrency);
-    const states: JobState<SweepOutput>[] = parts.map(() => ({ done: 0, total: 0, value: null, final: false, cancelled: false, error: null }));
+    // Each part's trials are known before it starts: a part still queued (or cancelled unstarted) counts its share.
+    const planned = parts.map((p) => plannedTrials(p));
+    const states: JobState<SweepOutput>[] = parts.map((_, k) => ({ done: 0, total: planned[k]!, value: null, final: false, cancelled: false, error: null }));
     const channels: JobStates<SweepOutput>[] = [];
     const merged = new StateChannel<SweepOutput>(() => {
       for (const c of channels) void c.return?.();
@@ -63,7 +65,7 @@ export class WorkerJobRunner implements JobRunner {
       const final = states.every((s) => s.final);
       merged.push({
         done: states.reduce((sum, s) => sum + s.done, 0),
-        total: states.reduce((sum, s) => sum + s.total, 0),
+        total: states.reduce((sum, s, k) => sum + Math.max(s.total, planned[k]!), 0),
         value: states.some((s) => s.value !== null) ? mergeSweepParts(input, states.map((s) => s.value)) : null,
         final,
         cancelled: states.some((s) => s.cancelled),

@@ -45,13 +45,20 @@ export function sweepHeaderFor(input: SweepInput): SweepHeader {
   return { v: 1, kind: RESULTS_KIND, tool: VERSION, seed: input.seed, trials: input.trials, design: 'grid', vary: input.vary, points, scenario: input.scenario };
 }
 
+/** Trials a sweep (or one part of it) will run. */
+export function plannedTrials(input: SweepInput): number {
+  const { index, count } = input.part ?? { index: 0, count: 1 };
+  const all = sweepHeaderFor(input).points.length * input.trials;
+  return Math.max(0, Math.ceil((all - index) / count));
+}
+
 export function sweepJob(input: SweepInput, progress: Progress<SweepOutput>): SweepOutput {
   const header = sweepHeaderFor(input);
   const { index, count } = input.part ?? { index: 0, count: 1 };
   // Trial-major order: partial results cover every point evenly, and the parts of a split share
   // the work item by item. The order changes nothing: a trial's streams depend on (seed, point, trial).
   const all = header.points.length * input.trials;
-  const total = Math.max(0, Math.ceil((all - index) / count));
+  const total = plannedTrials(input);
   const items = new Int32Array(2 * total);
   for (let k = index, j = 0; k < all; k += count, j++) {
     items[2 * j] = k % header.points.length;

@@ -3,7 +3,6 @@
 import type { FailureCause, FailureEvent } from './attribution/FailureEvent.js';
 import type { Phase } from './Phase.js';
 
-
 export type Outcome = 'landed' | 'off-pad' | 'hard-contact' | 'aborted' | 'timed-out' | 'diverged';
 export const OUTCOMES: readonly Outcome[] = ['landed', 'off-pad', 'hard-contact', 'aborted', 'timed-out', 'diverged'];
 

@@ -18,6 +18,7 @@ import { readLink } from './readLink.js';
 import { showControlValue } from './renderControls.js';
 import { listenForPageDrops, looksLikeAnalysis, looksLikeScenario } from './pageDrop.js';
 import { ProgressClock } from './ProgressClock.js';
+import { showRunState } from './showRunState.js';
 import { StudyProblems } from './StudyProblems.js';
 import { ComparePanel } from './ComparePanel.js';
 import { listenForFocusTips } from './focusTips.js';
@@ -55,23 +56,7 @@ declare global {
 }
 
 function updateBusy(): void {
-  const busy = activity.length > 0 || [...plates.values()].some((p) => p.element.dataset.final !== 'true');
-  const cancelled = [...plates.values()].some((p) => p.output?.status.startsWith('cancelled'));
-  document.body.dataset.state = busy ? 'busy' : 'idle';
-  const bar = document.querySelector<HTMLElement>('.progress > div');
-  const line = document.querySelector<HTMLElement>('.run-text');
-  const button = document.querySelector<HTMLButtonElement>('#cancel');
-  const reading = clock.read(activity, performance.now());
-  const percent = activity.length === 0 ? (cancelled ? 0 : 100) : 100 * reading.fraction;
-  document.querySelector('.progress')?.setAttribute('aria-valuenow', String(Math.round(percent)));
-  document.querySelector('.progress')?.setAttribute('aria-valuetext', activity.length > 0 ? reading.text : cancelled ? 'cancelled' : 'all results in');
-  if (bar) bar.style.width = `${activity.length === 0 ? percent : Math.max(2, percent)}%`;
-  if (line) line.textContent = activity.length > 0 ? reading.text : cancelled ? 'cancelled: partial results shown' : 'all results in';
-  if (button) {
-    // While jobs run the button cancels them; after a cancel it runs the study again.
-    button.textContent = activity.length === 0 && cancelled ? 'Run again' : 'Cancel';
-    button.disabled = activity.length === 0 && !cancelled;
-  }
+  showRunState(activity, [...plates.values()], clock);
 }
 
 /** A committed change: a new history entry, so Back returns to the analysis before it. */

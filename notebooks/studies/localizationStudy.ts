@@ -10,6 +10,7 @@ import type { SweepOutput } from '../jobs/sweepJob.js';
 import { ESTIMATE, SERIES, TRUTH } from '../figures/palette.js';
 import { plotSvg, type Layer } from '../figures/plot.js';
 import { differenceInterval } from '../../estimator/study/statistics/differenceInterval.js';
+import { consistencyWords } from '../../estimator/study/statistics/ensembleConsistency.js';
 import { formatNumber, formatPercent } from '../figures/svg.js';
 import { fromState, HALF, htmlTable, keyNumber, toCsv } from './figureOutput.js';
 import type { Study, StudyCell } from './Study.js';
@@ -162,7 +163,7 @@ export const localizationStudy: Study = {
     {
       name: 'table',
       title: 'Every setting',
-      caption: 'Outcome counts, miss and consistency per error source and level.',
+      caption: `Outcome counts, miss and consistency per error source and level; the NEES verdict as \`alight summarize\` gives it (${consistencyWords('over-confident')}).`,
       wide: true,
       inputs: SWEEP_NAMES,
       compute: (...states: JobState<SweepOutput>[]) =>
@@ -172,14 +173,14 @@ export const localizationStudy: Study = {
           for (const h of harms(values)) {
             for (const p of [h.clean, h.erred]) {
               const v = Number(p.point[h.source.path]);
-              rows.push([h.source.label, h.source.unit === 'fraction' ? `${formatNumber(100 * v)} %` : `${v} ${h.source.unit}`, `${p.landed} / ${p.trials}`, formatPercent(p.wilsonLow), formatNumber(p.cep50), formatNumber(p.neesMean), formatNumber(p.positionRmse)]);
-              csv.push([h.source.path, v, p.trials, p.landed, p.wilsonLow, p.wilsonHigh, p.cep50, p.neesMean, p.positionRmse]);
+              rows.push([h.source.label, h.source.unit === 'fraction' ? `${formatNumber(100 * v)} %` : `${v} ${h.source.unit}`, `${p.landed} / ${p.trials}`, formatPercent(p.wilsonLow), formatNumber(p.cep50), formatNumber(p.neesMean), p.neesLow === null || p.neesHigh === null ? '–' : `${formatNumber(p.neesLow)} to ${formatNumber(p.neesHigh)}`, p.neesVerdict ?? '–', formatNumber(p.positionRmse)]);
+              csv.push([h.source.path, v, p.trials, p.landed, p.wilsonLow, p.wilsonHigh, p.cep50, p.neesMean, p.neesLow, p.neesHigh, p.neesVerdict, p.positionRmse]);
             }
           }
           return {
             kind: 'table',
-            markup: htmlTable(['source', 'value', 'landed', 'Wilson low', 'CEP50 (m)', 'NEES mean', 'RMSE (m)'], rows),
-            csv: toCsv(['path', 'value', 'trials', 'landed', 'wilsonLow', 'wilsonHigh', 'cep50', 'neesMean', 'positionRmse'], csv),
+            markup: htmlTable(['source', 'value', 'landed', 'Wilson low', 'CEP50 (m)', 'NEES mean', 'NEES 95 % interval', 'NEES verdict', 'RMSE (m)'], rows),
+            csv: toCsv(['path', 'value', 'trials', 'landed', 'wilsonLow', 'wilsonHigh', 'cep50', 'neesMean', 'neesLow', 'neesHigh', 'neesVerdict', 'positionRmse'], csv),
           };
         }),
     },

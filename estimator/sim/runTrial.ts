@@ -14,6 +14,7 @@ import { attributeFailure } from './attribution/attributeFailure.js';
 import { FailureLog } from './attribution/FailureLog.js';
 import { createGuidance } from './guidance.js';
 import { AttitudeHistory, attitudeHistorySize } from './AttitudeHistory.js';
+import { OutlineForecast } from './OutlineForecast.js';
 import { blindHeight, LandingSupervisor, type SupervisorInput } from './supervisor.js';
 import { judgeTouchdown } from './touchdown.js';
 import { TrialState } from './trialState.js';
@@ -88,7 +89,9 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   const targetSize = errors.believedTargetSize(carrierSpec);
   const filter = new LandingFilter(filterSpec, believed, targetSize);
   const blind = blindHeight(believed, carrierSpec.deckLength, carrierSpec.deckWidth, detectorSpec.edgeMargin);
-  const supervisor = new LandingSupervisor(scenario.guidance, landerSpec, guidance, blind);
+  // blind when the predicted outline leaves the image (the fixed figure `blind` only marks the attribution log)
+  const supervisor = new LandingSupervisor(scenario.guidance, landerSpec, guidance);
+  const forecast = new OutlineForecast(believed, dims, detectorSpec.edgeMargin);
   const st = new TrialState(filter.n);
   const log = options.attribution === false ? null : new FailureLog(scenario, blind);
   const scripted = landerSpec.wind.gusts && landerSpec.wind.gusts.length > 0 ? new ScriptedGusts(landerSpec.wind.gusts) : null;
@@ -103,7 +106,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   const attitudes = new AttitudeHistory(attitudeHistorySize(filterSpec.historyLength, localization.imuRate));
   const pending: DetectorFrame[] = new Array<DetectorFrame>(PENDING);
   let pendingHead = 0, pendingCount = 0;
-  const input: SupervisorInput = { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, valid: false, height: 0, vcz: 0, unseenFor: Infinity, lastSeen: -Infinity, diverged: false };
+  const input: SupervisorInput = { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, valid: false, height: 0, vcz: 0, unseenFor: Infinity, lastSeen: -Infinity, diverged: false, blind: false };
 
   const steps = Math.round(scenario.duration * filterSpec.rate);
   const imuPeriod = 1 / localization.imuRate, odometryPeriod = 1 / localization.odometryRate;
@@ -203,6 +206,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     input.vlx = x[6]!; input.vly = x[7]!;
     input.lastSeen = lastSeen;
     input.unseenFor = t - lastSeen;
+    input.blind = input.valid && forecast.leaving(x, st.qEstimate, st.heading[0]!, st.heading[1]!);
     phase = supervisor.step(t, dt, input, st.command);
     if (input.valid) steerFromEstimate(lander, st, x, dt, velocityFromEstimate, yawFollowsCarrier);
     if (supervisor.aborts > abortsSeen) {
@@ -285,12 +289,12 @@ const HEADING_SMOOTHING = 1;
 
 /**
  * What the lander takes from its estimate each step: the autopilot's velocity (velocitySource
- * 'estimate') and the yaw setpoint (yawPolicy 'carrier-heading'):
+ * 'estimate'), the carrier's heading (for the outline forecast) and with it the yaw setpoint
+ * (yawPolicy 'carrier-heading'):
  *   h <- h + (v_c,h / |v_c,h| - h) dt / τ_h, setpoint along h / |h|   (while |v_c,h| > 0.5 m/s)
  */
 function steerFromEstimate(lander: LanderDynamics, st: TrialState, x: Float64Array, dt: number, velocity: boolean, yaw: boolean): void {
   if (velocity) for (let k = 0; k < 3; k++) st.autopilotVelocity[k] = x[6 + k]!;
-  if (!yaw) return;
   const vx = x[3]!, vy = x[4]!;
   const speed = Math.sqrt(vx * vx + vy * vy);
   if (!(speed > HEADING_MIN_SPEED)) return;
@@ -300,7 +304,7 @@ function steerFromEstimate(lander: LanderDynamics, st: TrialState, x: Float64Arr
   if (!(norm > 1e-6)) return; // a reversal cancelled it: keep the old one this step
   st.heading[0] = hx / norm;
   st.heading[1] = hy / norm;
-  lander.setHeading(st.heading[0]!, st.heading[1]!);
+  if (yaw) lander.setHeading(st.heading[0]!, st.heading[1]!);
 }
 
 /** Queue this capture's false boxes behind the pending frames (as room allows); returns the new count. */

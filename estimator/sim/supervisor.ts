@@ -10,10 +10,11 @@
 //            slower outside it, holding height at e = 2 funnel and climbing at descentRate
 //            from e = 3 funnel (linear between: no thrust chatter); below flareHeight -> touchdown.
 // touchdown: committed: keep tracking horizontally, descend until contact; no abort.
-// Below the blind height (target overflowing the image) descents run 1.5x faster and
-// without heave feed-forward.
+// While blind (the predicted outline leaves the image: input.blind, or below a fixed blind
+// height if one is given) and no box came for 0.1 s, descents run 1.5x faster and without
+// heave feed-forward.
 // Abort (trail/align/descend): target unseen longer than lostTimeout (except in a descent
-// below the blind height, where the target overflows the image), or the filter diverged. Vertical commands feed forward the carrier's estimated vertical velocity
+// while blind, where the target overflows the image), or the filter diverged. Vertical commands feed forward the carrier's estimated vertical velocity
 // (heave) and are limited to the lander's maxVerticalSpeed.
 import type { Phase } from './TrialResult.js';
 import type { GuidanceSpec, LanderSpec } from './Scenario.js';
@@ -33,20 +34,20 @@ export interface SupervisorInput extends HorizontalEstimate {
   lastSeen: number;
   /** The filter reported divergence. */
   diverged: boolean;
+  /** The predicted image of the deck outline reaches the image edge (OutlineForecast): boxes are expected to stop. */
+  blind: boolean;
 }
 
-/** Margin on the deck's longest side for perspective, tilt and the body below the deck. */
-const OUTLINE_FACTOR = 1.2;
-
 /**
- * Height above the deck (m) below which the deck is expected to overflow the image, from the
- * camera as the filter believes it and the deck's longest side Lmax (known to the operator;
- * yaw is held while the carrier turns, so it may lie along either image axis):
- *   h = 1.2 Lmax max(fx, fy) / (min(W, H) - 2 edgeMargin)
+ * A planning figure: the height above the deck (m) at which a level nadir camera centred over
+ * the deck sees the deck's longest side Lmax reach the edge margin along the image's shorter
+ * axis (the worst orientation):
+ *   h = Lmax max(fx, fy) / (min(W, H) - 2 edgeMargin)
+ * The supervisor does not use it: it asks OutlineForecast each step, from its estimates.
  */
 export function blindHeight(camera: { fx: number; fy: number; width: number; height: number }, deckLength: number, deckWidth: number, edgeMargin: number): number {
   const pixels = Math.max(Math.min(camera.width, camera.height) - 2 * edgeMargin, 1);
-  return (OUTLINE_FACTOR * Math.max(deckLength, deckWidth) * Math.max(camera.fx, camera.fy)) / pixels;
+  return (Math.max(deckLength, deckWidth) * Math.max(camera.fx, camera.fy)) / pixels;
 }
 
 /** Vertical gain holding the trailing height (1/s) and its rate limit (m/s): gentle, because a
@@ -56,6 +57,9 @@ const HEIGHT_RATE = 1;
 /** Below the blind height the descent speeds up by this factor: no new boxes come, so the
  * estimate only drifts from here on; less time blind means less drift. */
 const BLIND_DESCENT_FACTOR = 1.5;
+/** ... once boxes have actually stopped this long (s): the forecast errs early on purpose, and
+ * boxes still coming are worth more than the faster descent. */
+const BLIND_AFTER = 0.1;
 
 export class LandingSupervisor {
   phase: Phase = 'acquire';
@@ -99,8 +103,13 @@ export class LandingSupervisor {
 
   /** Descent command: heave fed forward while boxes come; blind, a plain faster descent (an
    * extrapolated heave velocity is worse than none). */
-  private descent(height: number, vcz: number): number {
-    return height < this.blindHeight ? -BLIND_DESCENT_FACTOR * this.spec.descentRate : vcz - this.spec.descentRate;
+  private descent(s: SupervisorInput): number {
+    return this.isBlind(s) && s.unseenFor > BLIND_AFTER ? -BLIND_DESCENT_FACTOR * this.spec.descentRate : s.vcz - this.spec.descentRate;
+  }
+
+  /** Boxes are expected to stop: the predicted outline leaves the image, or below the fixed blind height (if one was given). */
+  private isBlind(s: SupervisorInput): boolean {
+    return s.blind || s.height < this.blindHeight;
   }
 
   /**
@@ -111,7 +120,7 @@ export class LandingSupervisor {
     const g = this.spec;
     if (this.phase === 'trail' || this.phase === 'align' || this.phase === 'descend') {
       if (s.diverged || !s.valid) this.abort(t, 'diverged');
-      else if (s.unseenFor > g.lostTimeout && !(this.phase === 'descend' && s.height < this.blindHeight)) this.abort(t, 'target-lost');
+      else if (s.unseenFor > g.lostTimeout && !(this.phase === 'descend' && this.isBlind(s))) this.abort(t, 'target-lost');
     }
     if (this.phase === 'acquire') {
       if (s.valid && s.lastSeen > this.abortedAt && s.unseenFor < g.lostTimeout) this.phase = 'trail';
@@ -147,11 +156,11 @@ export class LandingSupervisor {
         let factor = error <= funnel ? 1 : Math.max(-1, 2 - error / funnel);
         if (this.phase === 'touchdown') factor = 1;
         if (factor < 0 && h >= g.trailHeight) factor = 0;
-        out[2] = factor > 0 ? factor * this.descent(h, s.vcz) + (1 - factor) * s.vcz : s.vcz - factor * g.descentRate;
+        out[2] = factor > 0 ? factor * this.descent(s) + (1 - factor) * s.vcz : s.vcz - factor * g.descentRate;
         break;
       }
       case 'touchdown':
-        out[2] = this.descent(h, s.vcz);
+        out[2] = this.descent(s);
         break;
     }
     const m = this.lander.maxVerticalSpeed;

@@ -175,8 +175,8 @@ describe('runTrial', () => {
 });
 
 describe('blindHeight', () => {
-  it('is where 1.2 times the longest deck side fills the smaller image side inside the margins', () => {
-    // 1.2 * 3 m * 300 px / (480 - 2 * 4) px
-    expectClose(blindHeight({ fx: 300, fy: 280, width: 640, height: 480 }, 3, 1.8, 4), (1.2 * 3 * 300) / 472, { rel: 1e-15 }, 'formula (round-off)');
+  it('is where the longest deck side fills the smaller image side inside the margins (level, centred: pinhole similar triangles)', () => {
+    // 3 m * 300 px / (480 - 2 * 4) px
+    expectClose(blindHeight({ fx: 300, fy: 280, width: 640, height: 480 }, 3, 1.8, 4), (3 * 300) / 472, { rel: 1e-15 }, 'formula (round-off)');
   });
 });

@@ -15,7 +15,7 @@ class Still implements HorizontalGuidance {
 }
 
 function input(over: Partial<SupervisorInput>): SupervisorInput {
-  return { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, valid: true, height: 6, vcz: 0, unseenFor: 0, lastSeen: 0, diverged: false, ...over };
+  return { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, valid: true, height: 6, vcz: 0, unseenFor: 0, lastSeen: 0, diverged: false, blind: false, ...over };
 }
 
 describe('LandingSupervisor', () => {
@@ -99,6 +99,18 @@ describe('LandingSupervisor', () => {
     expectClose(out[2]!, -0.75, { abs: 1e-12 }, 'still descending, 1.5x faster, blind (exact)');
     expect(sup.step(3.1, 0.01, input({ height: 2.5, unseenFor: 1.9 }), out)).toBe('acquire');
     expect(sup.aborts).toBe(1);
+  });
+
+  it('keeps descending when the predicted outline leaves the image (input.blind), at any height', () => {
+    const sup = new LandingSupervisor(guidanceSpec, s.lander, new Still());
+    const out = new Float64Array(3);
+    sup.step(0, 0.01, input({}), out);
+    sup.step(0.01, 0.01, input({}), out);
+    sup.step(1.2, 0.01, input({}), out);
+    expect(sup.step(3, 0.01, input({ height: 3.5, unseenFor: 1.8, blind: true }), out)).toBe('descend');
+    expectClose(out[2]!, -0.75, { abs: 1e-12 }, '1.5x faster while blind (exact)');
+    expect(sup.step(3.1, 0.01, input({ height: 3.5, unseenFor: 1.9, blind: false }), out)).toBe('acquire'); // outline back in view, no box: lost
+    expect(sup.lastAbort).toBe('target-lost');
   });
 
   it('never aborts once committed to touchdown', () => {

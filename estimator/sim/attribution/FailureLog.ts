@@ -7,7 +7,8 @@
 //   gust:           horizontal gust beyond the mean wind > max(GUST_FLOOR, 3 sigma_u(h))
 //   gated boxes:    >= GATED_RUN camera boxes in a row refused by the gate
 //   funnel exit:    in descend/touchdown, |estimated - true horizontal r| > funnelBase + funnelSlope h
-//   blind:          in descend/touchdown, estimated height below the blind height (once per episode)
+//   blind:          in descend/touchdown, the predicted outline leaves the image or the estimated
+//                   height is below the blind height (once per episode)
 //   divergence, abort, acquired: as the filter and supervisor report them
 import type { DetectorFrame, DetectorTruth } from '../world/detector.js';
 import { drydenScalesInto, W20_KNOTS } from '../world/dryden.js';
@@ -33,6 +34,8 @@ const FT = 0.3048;
 /** What the log reads from the supervisor's view each step (SupervisorInput satisfies it). */
 export interface EstimateView {
   valid: boolean;
+  /** The predicted outline leaves the image (SupervisorInput.blind). */
+  blind: boolean;
   diverged: boolean;
   rx: number;
   ry: number;
@@ -205,7 +208,7 @@ export class FailureLog {
       if (this.funnelEvent < 0) this.funnelEvent = this.record(EV_FUNNEL, t, e);
       else this.raise(this.funnelEvent, e);
     } else this.funnelEvent = -1;
-    if (!this.blindSeen && s.height < this.blindHeight) {
+    if (!this.blindSeen && (s.blind || s.height < this.blindHeight)) {
       this.blindSeen = true;
       this.record(EV_BLIND, t, s.height);
     }

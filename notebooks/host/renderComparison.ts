@@ -8,7 +8,8 @@ import type { Comparison } from '../studies/compareOutputs.js';
 /** What B changes against A, in words: study, parameters, seed, scenario. */
 export function analysisDifferences(a: Analysis, b: Analysis): string[] {
   const out: string[] = [];
-  if (a.study !== b.study) out.push(`study ${a.study} → ${b.study}`);
+  // Different studies have different controls: the study is the difference worth saying.
+  if (a.study !== b.study) return [`study ${a.study} → ${b.study}`];
   const names = new Set([...Object.keys(a.parameters), ...Object.keys(b.parameters)]);
   for (const name of names) if (a.parameters[name] !== b.parameters[name]) out.push(`${name} ${a.parameters[name] ?? '–'} → ${b.parameters[name] ?? '–'}`);
   if (a.seed !== b.seed) out.push(`seed ${a.seed} → ${b.seed}`);

@@ -73,7 +73,7 @@ export function renderScenarioForm(scenario: Scenario, commit: (next: Scenario) 
     input.addEventListener('change', () => {
       const value = readValue(field, input.value);
       const refuse = (message: string): void => {
-        problem.textContent = `${message} The study still uses ${JSON.stringify(field.value)}.`;
+        problem.textContent = `${message}${/[.!?]$/.test(message) ? '' : '.'} The study still uses ${JSON.stringify(field.value)}.`;
         problem.hidden = false;
         input.setAttribute('aria-invalid', 'true');
         input.setAttribute('aria-describedby', problem.id);

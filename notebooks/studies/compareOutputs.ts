@@ -81,6 +81,8 @@ export function compareOutputs(a: ReadonlyMap<string, FigureOutput>, b: Readonly
       for (const [row, cb] of rowsB) {
         const ca = rowsA.get(row);
         if (!ca || ca.trials <= 0 || cb.trials <= 0) continue;
+        // Several figures of a study tabulate the same sweep: list each point's counts once.
+        if (counts.some((c) => c.row === row && c.a.landed === ca.landed && c.a.trials === ca.trials && c.b.landed === cb.landed && c.b.trials === cb.trials)) continue;
         // Newcombe 1998 method 10, B minus A.
         const d = differenceInterval(cb.landed, cb.trials, ca.landed, ca.trials, z);
         const reading = d.low > 0 ? 'B higher' : d.high < 0 ? 'B lower' : 'no difference shown';

@@ -25,6 +25,12 @@ describe('compareOutputs', () => {
     expect(c.numbers).toEqual([{ figure: 'success', key: 'k', label: 'success', a: 0.6, b: 0.8, aText: '60 %', bText: '80 %' }]);
   });
 
+  it('lists a point once when several figures tabulate the same counts', () => {
+    const csv = 'x,trials,landed\n1,5,4\n';
+    const c = compareOutputs(new Map([['success', output(csv)], ['claims', output(csv)]]), new Map([['success', output(csv)], ['claims', output(csv)]]));
+    expect(c.counts.map((d) => d.figure)).toEqual(['success']);
+  });
+
   it('reads quoted identifiers and says when an interval includes zero', () => {
     const a = new Map([['s', output('shape,speed,trials,landed\n"a, b",2,5,4\n')]]);
     const b = new Map([['s', output('shape,speed,trials,landed\n"a, b",2,5,3\n')]]);

@@ -58,7 +58,7 @@ button:disabled { opacity: 0.45; cursor: default; }
 .numbers div { display: flex; flex-direction: column; }
 .numbers dt { font-size: 11px; color: var(--muted); }
 .numbers dd { margin: 0; font: 600 16px var(--ui); font-variant-numeric: tabular-nums; }
-.numbers dd[data-key$="Verdict"], .numbers dd[data-key="worst"] { font-size: 13px; max-width: 60ch; }
+.numbers dd[data-key*="Verdict"], .numbers dd[data-key="worst"] { font-size: 13px; max-width: 60ch; }
 .plate-foot { display: flex; justify-content: space-between; align-items: center; gap: 6px; margin-top: 6px; font-size: 11px; color: var(--muted); }
 .plate-foot .exports { display: flex; gap: 4px; }
 .plate-foot button { font-size: 11px; padding: 2px 7px; }

@@ -12,6 +12,7 @@ import { ESTIMATE, SERIES, TRUTH } from '../figures/palette.js';
 import { extent, plotSvg } from '../figures/plot.js';
 import { escapeXml, formatNumber, formatPercent } from '../figures/svg.js';
 import { claimReach } from './claimReach.js';
+import { descentNeesFigure } from './descentFigure.js';
 import { consistencyWords } from '../../estimator/study/statistics/ensembleConsistency.js';
 import { CONFIDENCE_PARAMETER, Z_OF_LEVEL } from './confidence.js';
 import { fromState, HALF, htmlTable, keyNumber, toCsv } from './figureOutput.js';
@@ -144,6 +145,7 @@ export const detectionStudy: Study = {
           };
         }),
     },
+    descentNeesFigure((p, impairment) => `${p.point[IMPAIRMENTS[impairment]!.path]} ${IMPAIRMENTS[impairment]!.unit}`),
     {
       name: 'claims',
       title: 'Does the claim hold, and how many trials would show it?',
@@ -196,6 +198,7 @@ export const detectionStudy: Study = {
     { prose: 'Each impairment is swept on its own, every point flown the chosen number of times. Changing the confidence level only redraws the bands and the claims; it reruns no trial.', pageOnly: true },
     { figure: 'success' },
     { figure: 'miss' },
+    { figure: 'descentNees' },
     { prose: 'Few trials give wide bands: n landings out of n leave a Wilson lower bound of n / (n + z²), so a claim of 95 % at 95 % confidence takes at least 73 trials, all landed. The claims table says what the chosen trials can and cannot show.' },
     { figure: 'claims' },
     { figure: 'outcomes' },

@@ -9,6 +9,9 @@ import { STREAM_SPECS, LOG_STREAMS } from '../../estimator/io/log/logStreams.js'
 import type { JobContext } from './jobTable.js';
 import type { Progress } from './JobState.js';
 
+/** Problem rows the page keeps in full (all are counted); the page table shows the first 200, its CSV all kept. */
+export const PROBLEMS_KEPT = 10_000;
+
 export type LogChoice = { kind: 'demo'; name: string } | { kind: 'files'; files: ReadonlyMap<string, LogFile>; name: string };
 
 export interface ReplayInput {
@@ -52,6 +55,8 @@ export async function replayJob(input: ReplayInput, progress: Progress<ReplayOut
   const report = await replayLog(source, {
     filter: input.filter,
     filterSource: 'study controls',
+    // Every problem row in full, up to a bound that keeps a wrecked log's report small enough to post.
+    keepProblems: PROBLEMS_KEPT,
     onEstimate: (time, x, P, n) => {
       if (time < next) return;
       next = time + input.every;

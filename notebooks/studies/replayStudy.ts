@@ -177,11 +177,12 @@ export const replayStudy: Study = {
           const rep = value.report;
           const rows = Object.entries(rep.rows).map(([name, r]) => [name, String(r!.read), String(r!.used), String(r!.skipped), String(r!.unused)]);
           const shown = rep.problems.shown;
-          const problemRows = shown.map((p) => [p.file, String(p.line), p.column ?? '(whole row)', p.kind, p.message]);
+          // The page table stops at 200 rows; the CSV beside it holds every kept one.
+          const problemRows = shown.slice(0, 200).map((p) => [p.file, String(p.line), p.column ?? '(whole row)', p.kind, p.message]);
           const listed =
             rep.problems.total === 0
               ? '<p>No problem rows.</p>'
-              : `<p>${rep.problems.total} problem ${rep.problems.total === 1 ? 'row was' : 'rows were'} skipped${shown.length < rep.problems.total ? `; the first ${shown.length} are listed (all are counted by kind: ${Object.entries(rep.problems.byKind).map(([k, n]) => `${k} ${n}`).join(', ')})` : ''}.</p>` +
+              : `<p>${rep.problems.total} problem ${rep.problems.total === 1 ? 'row was' : 'rows were'} skipped (by kind: ${Object.entries(rep.problems.byKind).map(([k, n]) => `${k} ${n}`).join(', ')})${problemRows.length < rep.problems.total ? `; the first ${problemRows.length} are listed here, ${shown.length === rep.problems.total ? 'all of them' : `the first ${shown.length}`} in the CSV` : ''}.</p>` +
                 htmlTable(['file', 'line', 'field', 'kind', 'problem'], problemRows, 'Problem rows, skipped by the replay');
           const problemsCsv = toCsv(['file', 'line', 'field', 'kind', 'problem'], shown.map((p) => [p.file, p.line, p.column, p.kind, p.message]));
           return {

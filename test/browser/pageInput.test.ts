@@ -154,6 +154,31 @@ describe.skipIf(!runBrowserTests)('bad input and history in chromium', () => {
     expect(await page.getAttribute('[data-figure="rows"] dd[data-key="filterSteps"]', 'data-value')).toMatch(/^[1-9]\d*$/);
   });
 
+  it('replay: every problem row is listed with file, line and field, and downloads as CSV', async () => {
+    await page.goto(server.url + '#study=replay');
+    await waitIdle(page);
+    const folder = join(repo, 'data-demo', 'logs', 'harbour-boat');
+    const files = readdirSync(folder).map((name) => ({ name, text: readFileSync(join(folder, name), 'utf8') }));
+    const boxes = files.find((f) => f.name === 'boxes.csv')!;
+    const lines = boxes.text.split('\n');
+    // Spoil the first field of twelve data rows (lines 3, 5, ... 25 of the file): each is skipped and named.
+    for (let k = 0; k < 12; k++) lines[2 + 2 * k] = lines[2 + 2 * k]!.replace(/^[^,]*/, 'oops');
+    boxes.text = lines.join('\n');
+    await dropFiles(page, '.dropzone', files);
+    await page.waitForFunction(() => document.querySelectorAll('[data-figure="rows"] table').length === 2);
+    await waitIdle(page);
+    const rows = await page.$$eval('[data-figure="rows"] table:nth-of-type(2) tbody tr', (trs) => trs.map((tr) => [...tr.children].map((c) => c.textContent)));
+    expect(rows).toHaveLength(12);
+    expect(rows[0]!.slice(0, 2)).toEqual(['boxes.csv', '3']);
+    expect(rows[11]!.slice(0, 2)).toEqual(['boxes.csv', '25']);
+    expect(await page.textContent('[data-figure="rows"] .plate-body')).toContain('12 problem rows were skipped');
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('[data-figure="rows"] button:text-is("Problems (CSV)")')]);
+    expect(download.suggestedFilename()).toBe('replay-problems.csv');
+    const csv = readFileSync(await download.path(), 'utf8').trim().split('\n');
+    expect(csv[0]).toBe('file,line,field,kind,problem');
+    expect(csv).toHaveLength(13);
+  });
+
   it('Back undoes a control change; a held arrow key commits once', async () => {
     await page.goto(server.url + '#study=landing');
     await waitIdle(page);

@@ -63,7 +63,7 @@ export class LogReplayer {
     this.filter = new LandingFilter(spec, camera.camera, camera.targetSize);
     this.attitudes = new AttitudeHistory(attitudeHistorySize(spec.historyLength, spec.rate));
     const lags = settings.lags ?? 20;
-    const gate = settings.likelihoodThreshold ?? gateThreshold(spec.gateProbability, 3, spec.gateScale);
+    const gate = gateThreshold(spec.gateProbability, 3, spec.gateScale);
     this.boxLikelihood = new InnovationLikelihood(gate);
     this.odometryLikelihood = new InnovationLikelihood(gate);
     this.boxes = new MeasurementStatistics('box', lags);

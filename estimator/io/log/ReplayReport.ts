@@ -20,12 +20,6 @@ export interface ReplaySettings {
   filterLines?: ReadonlyMap<string, number>;
   /** Initial 1-sigma of velocities (m/s) and accelerometer bias (m/s²) at a start. Default DEFAULT_INITIAL_SIGMA. */
   initialSigma?: { velocity: number; accelBias: number };
-  /**
-   * NIS beyond which an update's term of the innovation likelihood grows like sqrt(NIS) (Huber;
-   * default: the filter's gate threshold). Identification replays with the gate opened wide and
-   * this set to the nominal gate, so no gating decision makes the likelihood jump between settings.
-   */
-  likelihoodThreshold?: number;
   /** Whiteness lags L (default 20) and confidence level of the NIS/NEES bounds (default 0.95). */
   lags?: number;
   level?: number;

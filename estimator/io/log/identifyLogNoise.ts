@@ -3,16 +3,12 @@
 // odometry together), and identifyNoise maximises it. Truth, when a log has it, is never the
 // objective: NEES and RMSE are reported beside the likelihood as checks.
 // Browser-safe (any LogSource whose streams can be opened again for every replay).
-import { gateThreshold } from '../../filter/gate.js';
 import type { FilterSpec } from '../../sim/Scenario.js';
 import { identifyNoise, type IdentifyOptions, type NoiseIdentification } from '../../study/identifyNoise.js';
 import { DEFAULT_FREE_TERMS, noiseTerm, type NoiseTermName } from '../../study/noiseTerms.js';
 import type { LogSource } from './LogSource.js';
 import { replayFilterSpec, replayLog, type ReplayReport, type ReplaySettings } from './replayLog.js';
 import { recommendationWarnings, settingCheck, type SettingCheck } from './settingCheck.js';
-
-/** Gate multiplier while searching: chi2_3(0.997) x 1e4 ≈ 1.4e5, no innovation of a tracking filter reaches it. */
-const OPEN_GATE_SCALE = 1e4;
 
 export interface IdentifyLogOptions extends Pick<IdentifyOptions, 'maxEvaluations' | 'profilePoints' | 'onEvaluation'> {
   /** Terms to identify (default DEFAULT_FREE_TERMS); every other setting is held. */
@@ -57,14 +53,13 @@ export async function identifyLogNoise(sources: readonly LogSource[], options: I
     return { name, unit: term.unit, start: current[name], lower: term.lower, upper: term.upper };
   });
   if (new Set(names).size !== names.length) throw new IdentifyLogError(`a noise term is named twice: ${names.join(', ')}`);
-  const replayAll = (spec: FilterSpec, settings: ReplaySettings = {}) => Promise.all(sources.map((s) => replayLog(s, { lags: options.lags, ...settings, filter: spec, filterSource: 'identification' })));
-  // The search replays with the gate opened wide and each term Huber-weighted beyond the nominal
-  // gate instead: a gating decision that flips between two nearby settings (and can lock the filter
-  // out after a manoeuvre) would make -2 ln L jump, and put a cliff beside the optimum.
-  const ungated = { likelihoodThreshold: gateThreshold(current.gateProbability, 3, current.gateScale) };
+  const replayAll = (spec: FilterSpec) => Promise.all(sources.map((s) => replayLog(s, { lags: options.lags, filter: spec, filterSource: 'identification' })));
+  // The search replays with the filter's own gate: a false box is refused as in flight (with the
+  // gate opened it would pull the state away and make the noise look larger), and its term,
+  // like every term beyond the gate, counts Huber-weighted (InnovationLikelihood).
   const identification = await identifyNoise(
     async (values) => {
-      const reports = await replayAll({ ...current, ...values, gateScale: OPEN_GATE_SCALE }, ungated);
+      const reports = await replayAll({ ...current, ...values });
       // A diverged replay stops adding terms, which would make it look likely: refuse it.
       if (reports.some((r) => r.divergences.length > 0)) return Infinity;
       return reports.reduce((a, r) => a + r.likelihood.minus2LogL, 0);

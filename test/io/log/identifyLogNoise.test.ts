@@ -25,7 +25,7 @@ describe('identifyLogNoise on logs with known noise', () => {
         // Three profile points per side: enough to see each term closed on both sides, and the test stays lean.
         const result = await identifyLogNoise([log], { free: ['pixelNoise', 'sizeNoiseFraction', 'odometryNoise'], filter: start, profilePoints: 3 });
         const byName = Object.fromEntries(result.identification.terms.map((t) => [t.name, t]));
-        // Tolerance 15 %: the requirement; a 20 s log has about 560 boxes and 400
+        // Tolerance 15 %: the requirement; a 15 s log has about 420 boxes and 300
         // odometry samples, whose variance estimates alone carry about 4-5 % (1 sigma) of noise.
         for (const [term, truth] of [['pixelNoise', noise.pixelNoise], ['sizeNoiseFraction', noise.sizeNoise], ['odometryNoise', noise.odometryNoise]] as const) {
           expect(byName[term]!.status, term).toBe('identified');

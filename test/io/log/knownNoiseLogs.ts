@@ -18,7 +18,7 @@ export interface KnownNoise {
   odometryNoise: number;
 }
 
-export function knownNoiseScenario(noise: KnownNoise, duration = 20): Scenario {
+export function knownNoiseScenario(noise: KnownNoise, duration = 15): Scenario {
   const s = defaultScenario();
   s.name = 'known noise';
   s.duration = duration;

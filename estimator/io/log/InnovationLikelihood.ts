@@ -5,19 +5,19 @@
 // 15(2); Bar-Shalom, Li, Kirubarajan 2001). Minimising it over the noise settings identifies
 // them when the data excite them. Counting only; add() allocates nothing.
 //
-// Beyond a threshold c (the gate) the squared term grows linearly in the Mahalanobis distance
-// d = sqrt(NIS) instead: rho(d) = d² for d <= k, 2 k d - k² beyond, k² = c (Huber 1964, "Robust
-// estimation of a location parameter", Ann. Math. Statist. 35). One false box then cannot drag R
-// up, yet a noise setting far too small still pays for every innovation it cannot explain (a
-// plain clip would let ln|S| fall without limit as S shrinks).
+// Beyond a threshold c (the gate) the squared term NIS grows only logarithmically:
+// rho = c (1 + ln(NIS / c)), continuous with NIS and its slope at c (a Cauchy-type robust loss,
+// common practice in robust estimation). A false box or a burst of bad boxes then weighs little
+// whatever its size, yet a noise setting far too small still pays: as S shrinks by s² per axis,
+// ln|S| falls by 3 ln s² while each term beyond the gate rises by c ln s², and c > 3.
 
 export interface LikelihoodSummary {
-  /** -2 ln L over the updates counted (accepted and gated; NIS beyond the gate Huber-weighted), in the measurement's units. */
+  /** -2 ln L over the updates counted (accepted and gated; NIS beyond the gate log-weighted), in the measurement's units. */
   minus2LogL: number;
   /** Updates counted: accepted, and gated. */
   count: number;
   gated: number;
-  /** sum of ln|2 pi S_k| alone (the spread term) and sum of the (Huber-weighted) NIS alone. */
+  /** sum of ln|2 pi S_k| alone (the spread term) and sum of the (weighted) NIS alone. */
   logDetSum: number;
   nisSum: number;
 }
@@ -30,7 +30,7 @@ export class InnovationLikelihood {
   private logDetSum = 0;
   private nisSum = 0;
 
-  /** @param gate NIS beyond which the term grows linearly in sqrt(NIS) (the filter's gate threshold). */
+  /** @param gate NIS beyond which the term grows like ln NIS (the filter's gate threshold). */
   constructor(private readonly gate: number) {}
 
   /**
@@ -50,7 +50,7 @@ export class InnovationLikelihood {
     let nis = (y0 * (c00 * y0 + c01 * y1 + c02 * y2) + y1 * (c01 * y0 + c11 * y1 + c12 * y2) + y2 * (c02 * y0 + c12 * y1 + c22 * y2)) / det;
     if (!Number.isFinite(nis)) return;
     // rho = 2 sqrt(c NIS) - c beyond the gate c
-    if (nis > this.gate) nis = 2 * Math.sqrt(this.gate * nis) - this.gate;
+    if (nis > this.gate) nis = this.gate * (1 + Math.log(nis / this.gate));
     this.count++;
     if (gated) this.gated++;
     // ln|2 pi S| = 3 ln 2 pi + ln|S|

@@ -70,7 +70,7 @@ export interface ReplayReport {
   whiteness: WhitenessSummary;
   /**
    * Innovation likelihood, -2 ln L = sum (ln|2 pi S_k| + y_kᵀ S_k⁻¹ y_k) over box and odometry
-   * updates (NIS beyond the gate Huber-weighted): the objective of noise identification
+   * updates (NIS beyond the gate log-weighted): the objective of noise identification
    * (Mehra 1970; Bar-Shalom, Li, Kirubarajan 2001). Lower is more likely.
    */
   likelihood: { minus2LogL: number; boxes: LikelihoodSummary; odometry: LikelihoodSummary };

@@ -56,7 +56,7 @@ export async function identifyLogNoise(sources: readonly LogSource[], options: I
   const replayAll = (spec: FilterSpec) => Promise.all(sources.map((s) => replayLog(s, { lags: options.lags, filter: spec, filterSource: 'identification' })));
   // The search replays with the filter's own gate: a false box is refused as in flight (with the
   // gate opened it would pull the state away and make the noise look larger), and its term,
-  // like every term beyond the gate, counts Huber-weighted (InnovationLikelihood).
+  // like every term beyond the gate, counts log-weighted (InnovationLikelihood).
   const identification = await identifyNoise(
     async (values) => {
       const reports = await replayAll({ ...current, ...values });

@@ -21,12 +21,12 @@ describe('InnovationLikelihood', () => {
     expect(s.count).toBe(2);
   });
 
-  it('beyond the gate grows like 2 sqrt(c NIS) - c (Huber), and counts the gated update', () => {
+  it('beyond the gate counts c (1 + ln(NIS / c)), and counts the gated update', () => {
     const big = y.map((v) => 10 * v); // NIS 100x
     const l = new InnovationLikelihood(9);
     l.add(Float64Array.from(big), Float64Array.from(S), true);
     const s = l.summary();
-    expectClose(s.nisSum, 2 * Math.sqrt(9 * 100 * nis) - 9, { rel: 1e-12 }, 'Huber term');
+    expectClose(s.nisSum, 9 * (1 + Math.log((100 * nis) / 9)), { rel: 1e-12 }, 'log-weighted term');
     expect(s.gated).toBe(1);
   });
 

@@ -1,4 +1,6 @@
 // `alight sweep`: run a Monte Carlo sweep over scenario paths into a JSON Lines results file.
+import { mkdirSync } from 'node:fs';
+import { dirname } from 'node:path';
 import { applyParams } from '../study/applyParams.js';
 import { runSweep } from '../study/runSweep.node.js';
 import { resolveShard } from '../study/shard.js';
@@ -63,6 +65,12 @@ export const sweepCommand: Command = {
       const shard = resolveShard(parsed.values.get('shard'), shardCount, io.env);
       const out = resolvePath(io.cwd, shard ? outText.replaceAll('{shard}', String(shard.index)) : outText);
       checkOutputs('sweep', [{ option: '--out', name: outText, path: out }], scenarioFiles(parsed.positional[0]!, scenario, io.cwd));
+      // A job array writes results/run-{shard}.jsonl from many tasks: the folder is made here.
+      try {
+        mkdirSync(dirname(out), { recursive: true });
+      } catch (error) {
+        throw new CliError(`alight sweep: cannot create the folder of --out ${outText} (${(error as { code?: string }).code ?? String(error)})`);
+      }
       executor = createExecutor(workers, io.env);
       const result = await runSweep({
         scenario, vary, design, points, trials, seed, out, shard, executor,

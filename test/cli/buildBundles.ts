@@ -11,8 +11,9 @@ export interface Bundles {
   worker: string;
 }
 
-export async function buildBundles(): Promise<Bundles> {
-  const dir = mkdtempSync(join(tmpdir(), 'alight-bundles-'));
+/** @param parent folder to build in (default the system's temporary folder) */
+export async function buildBundles(parent = tmpdir()): Promise<Bundles> {
+  const dir = mkdtempSync(join(parent, 'alight-bundles-'));
   const common = {
     bundle: true, platform: 'node' as const, format: 'esm' as const, target: 'node20', logLevel: 'error' as const,
     loader: { '.wasm': 'file' as const }, // the ROS 2 reader's zstd/lz4 decoders ship .wasm files beside their code

@@ -55,15 +55,17 @@ function runShell(script: string, extraEnv: Record<string, string> = {}): { code
 }
 
 describe('README.md examples', () => {
-  it('has shell examples to run, and every line of a runnable block is an alight command', () => {
+  it('has shell examples to run, and every line of a runnable block is an alight command (or mkdir -p)', () => {
     const runnable = blocks.filter((b) => b.lang === 'sh' && !b.norun);
     expect(runnable.length).toBeGreaterThanOrEqual(3);
     for (const block of runnable) {
       for (const command of shellCommands(block.text)) {
-        expect(command, `README.md:${block.line}: mark the block \`\`\`sh norun or make it an alight command`).toMatch(/^(npx )?alight( |$)/);
+        expect(command, `README.md:${block.line}: mark the block \`\`\`sh norun or make it an alight command`).toMatch(/^((npx )?alight( |$)|mkdir -p )/);
       }
     }
-    expect(blocks.filter((b) => b.norun).length).toBeLessThanOrEqual(3); // the marker is used sparingly
+    // The marker is used sparingly: the two install blocks (what CI runs) and ROS 2 ingest, whose
+    // demo recording (flight.mcap) is not shipped yet.
+    expect(blocks.filter((b) => b.norun).length).toBeLessThanOrEqual(3);
   });
 
   const runnable = blocks.filter((b) => b.lang === 'sh' && !b.norun);

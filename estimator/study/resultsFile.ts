@@ -1,6 +1,7 @@
 // The sweep results file (JSON Lines): one header line, then one record per trial.
 // Formatting is deterministic (fixed key order, shortest round-trip floats), so equal runs
 // give equal bytes; parsing validates every line and reports problems by line number.
+import { JsonSyntaxError, parseJsonText } from '../io/jsonPositions.js';
 import type { Scenario } from '../sim/Scenario.js';
 import { OUTCOMES, type TrialResult } from '../sim/TrialResult.js';
 import type { DesignKind, Params, VarySpec } from './sweepDesign.js';
@@ -128,9 +129,10 @@ export function parseResults(text: string, fileName: string): ParsedResults {
   if (terminated) lines.pop();
   let headerValue: unknown;
   try {
-    headerValue = JSON.parse(lines[0] ?? '');
-  } catch {
-    throw new ResultsError(`${fileName}:1: not an alight results file (the first line is not a JSON header)`);
+    headerValue = parseJsonText(lines[0] ?? '').value;
+  } catch (error) {
+    const detail = error instanceof JsonSyntaxError ? ` (column ${error.column}: ${error.message})` : '';
+    throw new ResultsError(`${fileName}:1: not an alight results file (the first line is not a JSON header${detail})`);
   }
   const headerProblem = checkHeader(headerValue);
   if (headerProblem) throw new ResultsError(`${fileName}:1: ${headerProblem}`);
@@ -160,7 +162,9 @@ export function parseResults(text: string, fileName: string): ParsedResults {
       problems.push({ line, message: 'not valid JSON (truncated or foreign line)' });
       continue;
     }
-    const problem = checkRecord(value, header, pointKeys);
+    // alight writes each record as JSON.stringify does; any other text (a key given twice, whose
+    // last value JSON.parse would keep, 1e999 read as Infinity, a hand edit) is not counted.
+    const problem = checkRecord(value, header, pointKeys) ?? (JSON.stringify(value) === lineText ? null : 'not a record as alight writes it (edited by hand, a key given twice, or a number out of range)');
     if (problem) {
       problems.push({ line, message: problem });
       continue;

@@ -15,6 +15,7 @@ import { FailureLog } from './attribution/FailureLog.js';
 import { createGuidance } from './guidance.js';
 import { AttitudeHistory, attitudeHistorySize } from './AttitudeHistory.js';
 import { OutlineForecast } from './OutlineForecast.js';
+import { withHistoryFor } from './historyFor.js';
 import { blindHeight, LandingSupervisor, type SupervisorInput } from './supervisor.js';
 import { judgeTouchdown } from './touchdown.js';
 import { TrialState } from './trialState.js';
@@ -65,7 +66,8 @@ const CONTACT_DEPTH = 0.25;
  */
 export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialResult {
   const key = options.key ?? { seed: scenario.seed, point: 0, trial: 0 };
-  const { carrier: carrierSpec, lander: landerSpec, filter: filterSpec, localization, detector: detectorSpec } = scenario;
+  const { carrier: carrierSpec, lander: landerSpec, localization, detector: detectorSpec } = scenario;
+  const filterSpec = withHistoryFor(scenario.filter, detectorSpec, localization.clockOffset); // no box arrives too old to use
   const onStep = options.onStep;
   const recorder = options.recorder;
 

@@ -13,7 +13,7 @@ export interface PlausibleRange {
 export const PLAUSIBLE_RANGES: readonly PlausibleRange[] = [
   { path: 'detector.pixelNoise', from: 0.5, to: 8 },
   { path: 'detector.sizeNoise', from: 0, to: 0.15 },
-  { path: 'detector.latency', from: 0.02, to: 0.25 },
+  { path: 'detector.latency', from: 0.02, to: 0.5 }, // onboard detectors on small computers reach 0.3-0.5 s (common practice)
   { path: 'detector.rate', from: 30, to: 5 },
   { path: 'detector.dropout', from: 0, to: 0.5 },
   { path: 'detector.falseBoxRate', from: 0, to: 2 },

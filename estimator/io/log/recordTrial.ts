@@ -3,6 +3,7 @@
 // IMU and odometry, attitude error), the simulator's truth and the filter's own estimates.
 // Browser-safe: the text goes to a LogTextSink (folderSink.node.ts writes files).
 import { RandomStream } from '../../random/RandomStream.js';
+import { withHistoryFor } from '../../sim/historyFor.js';
 import { runTrial, type TrialKey } from '../../sim/runTrial.js';
 import type { Scenario } from '../../sim/Scenario.js';
 import type { TrialResult } from '../../sim/TrialResult.js';
@@ -30,7 +31,7 @@ export function recordTrial(scenario: Scenario, sink: LogTextSink, options: Reco
   const recorder = new LogRecorder(sink, {
     camera: errors.believedCamera(scenario.camera),
     targetSize: errors.believedTargetSize(scenario.carrier),
-    filter: scenario.filter,
+    filter: withHistoryFor(scenario.filter, scenario.detector, scenario.localization.clockOffset), // the history the trial ran with
     note: `recorded by alight from scenario "${scenario.name}", seed ${key.seed}, point ${key.point}, trial ${key.trial}`,
     truth: options.truth,
   });

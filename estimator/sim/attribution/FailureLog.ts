@@ -4,7 +4,7 @@
 //   dropout burst:  the carrier visible but no box of it for >= max(3 frames, MIN_BURST) s
 //   latency spike:  a frame later than latency + max(3 jitter, LATE_MARGIN) s
 //   false box:      a spurious box accepted by the filter or starting an acquisition
-//   gust:           horizontal gust beyond the mean wind > max(GUST_FLOOR, 3 sigma_u(h))
+//   gust:           horizontal gust beyond the mean wind > max(GUST_FLOOR, GUST_SIGMAS sigma_u(h))
 //   gated boxes:    >= GATED_RUN camera boxes in a row refused by the gate
 //   funnel exit:    in descend/touchdown, |estimated - true horizontal r| > funnelBase + funnelSlope h
 //   blind:          in descend/touchdown, the predicted outline leaves the image or the estimated
@@ -23,6 +23,12 @@ export const LOG_CAPACITY = 128;
 export const MIN_BURST = 0.25;
 /** A frame is late when its delay exceeds the nominal latency by max(3 jitter, this) (s). */
 export const LATE_MARGIN = 0.05;
+/**
+ * A gust event exceeds this many sigma_u of the Dryden turbulence: the horizontal gust is 2-D,
+ * its magnitude Rayleigh with P(|g| > k sigma) = exp(-k^2 / 2), so 3 sigma is exceeded 1.1 % of
+ * the time (every light-turbulence trial had "gusts"); 4 sigma, 0.03 %.
+ */
+export const GUST_SIGMAS = 4;
 /** Gusts below this (m/s) are never events, even without turbulence. */
 export const GUST_FLOOR = 1;
 /** Refused boxes in a row that make an event. */
@@ -186,7 +192,7 @@ export class FailureLog {
     let gusting = false;
     if (g2 > GUST_FLOOR * GUST_FLOOR) {
       const sigma = this.w20 > 0 ? drydenScalesInto(Math.max(this.height, 0) / FT, this.w20, this.scales).sigmaU * FT : 0;
-      gusting = g2 > 9 * sigma * sigma;
+      gusting = g2 > GUST_SIGMAS * GUST_SIGMAS * sigma * sigma;
     }
     if (gusting) {
       const g = Math.sqrt(g2);

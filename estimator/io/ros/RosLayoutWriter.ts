@@ -49,6 +49,9 @@ export class RosLayoutWriter {
   private boxFrameChecked = false;
   private truthFrame: string | null = null;
   private cameraChanges = 0;
+  /** World frame ids of the first attitude (when its type names one) and odometry messages. */
+  private attitudeWorld: string | null = null;
+  private odometryWorld: string | null = null;
   // Scratch vectors, reused for every message.
   private readonly f = new Float64Array(3);
   private readonly q = new Float64Array(4);
@@ -119,10 +122,12 @@ export class RosLayoutWriter {
         return this.write(role, 'imu.csv', t, `${t},${f[0]},${f[1]},${f[2]}`);
       }
       case 'attitude': {
+        if (this.attitudeWorld === null && type !== 'sensor_msgs/Imu') this.attitudeWorld = msg.header.frame_id;
         const t = stampSeconds(msg.header.stamp, origin), q = attitudeOf(type, msg, map.attitude, this.q);
         return this.write(role, 'attitude.csv', t, `${t},${q[0]},${q[1]},${q[2]},${q[3]}`);
       }
       case 'odometry': {
+        if (this.odometryWorld === null) this.odometryWorld = msg.header.frame_id;
         const t = stampSeconds(msg.header.stamp, origin), v = velocityOf(type, msg, map.odometry!, this.qScratch, this.v);
         return this.write(role, 'odometry.csv', t, `${t},${v[0]},${v[1]},${v[2]}`);
       }
@@ -199,6 +204,8 @@ export class RosLayoutWriter {
       if (this.streams[role]!.messages === 0) throw new RecordingError(`${this.at(role, this.streams[role]!.topic)} has no messages: a flight log needs ${role}`);
     }
     if (this.cameraChanges > 0) this.warnings.push(`topic ${this.context.map.camera.topic}: ${this.cameraChanges} camera info messages differ from the first; the first is used`);
+    const [aw, ow] = [this.attitudeWorld, this.odometryWorld];
+    if (aw && ow && aw !== ow) this.warnings.push(`attitude in frame "${aw}" but odometry in "${ow}": REP 105 lets such frames drift apart, alight takes them as one world frame`);
     for (const [file, n] of Object.entries(this.unordered)) this.warnings.push(`${file}: ${n} rows out of time order (stamps not in the order the recorder received them); replay skips and lists them`);
     return Object.fromEntries(this.rows.rows);
   }

@@ -117,6 +117,7 @@ describe('ingestRosRecording: recording -> layout -> replay', () => {
     const { report, folder } = await roundTrip({ attitude: 'topic', odometry: 'twist' });
     expect(report.streams.attitude!.type).toBe('geometry_msgs/msg/QuaternionStamped');
     expect(report.streams.odometry!.type).toBe('geometry_msgs/msg/TwistStamped');
+    expect(report.warnings).toEqual([]); // both in "odom"
     expectSameEstimates(direct, await replay(folder), 1e-9);
   });
 
@@ -252,6 +253,21 @@ describe('ingestRosRecording: recordings it refuses, by name', () => {
     bytes[at + 7] ^= 0x01; // 9.81 becomes another number
     writeFileSync(path, bytes);
     expect(await ingestError(path)).toMatch(/^flight\.mcap: the recording is damaged \(Incorrect chunk CRC/);
+  });
+
+  it('warns when attitude and odometry name different world frames (REP 105: map and odom drift apart)', async () => {
+    const path = await smallRecording('two-worlds.mcap', async (w) => {
+      await w.channel('/boxes', 'vision_msgs/Detection2DArray');
+      await w.channel('/attitude', 'geometry_msgs/QuaternionStamped');
+      await w.channel('/velocity', 'geometry_msgs/TwistStamped');
+      const t = nanoseconds(100.3);
+      await w.add('/attitude', t, { header: { stamp: rosTime(t), frame_id: 'map' }, quaternion: { x: 0, y: 0, z: 0, w: 1 } });
+      await w.add('/velocity', t, { header: { stamp: rosTime(t), frame_id: 'odom' }, twist: { linear: { x: 1, y: 0, z: 0 }, angular: { x: 0, y: 0, z: 0 } } });
+      await w.add('/boxes', t, { header: { stamp: rosTime(t), frame_id: 'cam_optical' }, detections: [] });
+    });
+    const map = parseRosMap(JSON.stringify({ format: 'alight-ros-map', version: 1, camera: { topic: '/camera/camera_info' }, targetSize: 2, boxes: { topic: '/boxes' }, imu: { topic: '/imu/data' }, attitude: { topic: '/attitude' }, odometry: { topic: '/velocity' } }), 'map.json');
+    const report = await ingestRosRecording(path, map, folderSink(join(dir, 'two-worlds')));
+    expect(report.warnings).toEqual(['attitude in frame "map" but odometry in "odom": REP 105 lets such frames drift apart, alight takes them as one world frame']);
   });
 
   it('names a mapped topic that is not recorded, and lists what is', async () => {

@@ -23,6 +23,7 @@ const nodeEntries = [
   ['estimator/cli/node.ts', 'dist/alight.mjs'],
   ['notebooks/serve.node.ts', 'dist/serve.mjs'],
   ['estimator/study/sweepWorker.node.ts', 'dist/sweep-worker.mjs'],
+  ['estimator/io/ros/ingestWorker.node.ts', 'dist/ingest-worker.mjs'],
   ...(process.argv.includes('--bench') ? [['test/bench/main.ts', 'dist/bench.mjs']] : []),
 ];
 

@@ -2,9 +2,8 @@
 // ROS 2 recording into the flight-log layout, so `alight replay` and `alight tune` can read it.
 import { existsSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { isAbsolute, join } from 'node:path';
-import { folderSink } from '../io/log/folderSink.node.js';
 import { STREAM_SPECS } from '../io/log/logStreams.js';
-import { ingestRosRecording, RecordingError, type IngestReport } from '../io/ros/ingestRosRecording.node.js';
+import { ingestRosRecordingToFolder, RecordingError, type IngestReport } from '../io/ros/ingestRosRecording.node.js';
 import { parseRosMap, RosMapError } from '../io/ros/parseRosMap.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
@@ -24,7 +23,7 @@ const USAGE = 'alight ingest <recording.mcap> --map map.json --out <log-folder> 
 const PURPOSE = 'convert a ROS 2 recording (.mcap) into a flight log for replay and tune';
 
 function summary(report: IngestReport, out: string): string {
-  const lines = [`alight ingest: ${report.recording} (${(report.bytes / 1e6).toFixed(1)} MB${report.indexed ? '' : ', no index'}) -> ${out} in ${report.seconds.toFixed(1)} s`];
+  const lines = [`alight ingest: ${report.recording} (${(report.bytes / 1e6).toFixed(1)} MB${report.indexed ? '' : ', no index'}) -> ${out} in ${report.seconds.toFixed(1)} s (${report.threads} thread${report.threads > 1 ? 's' : ''})`];
   const c = report.camera;
   lines.push(`  ${'camera'.padEnd(14)}${c.topic} "${c.frameId}": ${c.width}x${c.height} px, fx ${c.fx} fy ${c.fy}, cx ${c.cx} cy ${c.cy} (alight pixel coordinates)`);
   for (const [role, s] of Object.entries(report.streams)) {
@@ -79,7 +78,7 @@ export const ingestCommand: Command = {
     }
     let report: IngestReport;
     try {
-      report = await ingestRosRecording(resolve(recording), map, folderSink(folder), { name: recording });
+      report = await ingestRosRecordingToFolder(resolve(recording), map, folder, { name: recording });
     } catch (error) {
       if (error instanceof RecordingError) {
         // A stopped conversion leaves no half-written log behind to be replayed by mistake.

@@ -19,6 +19,8 @@ export interface IngestReport {
   bytes: number;
   /** Read through the file's index (log-time order); false: front to back (no usable summary). */
   indexed: boolean;
+  /** Threads that converted it (2: the topics split between the main thread and a worker). */
+  threads: number;
   /** Whole seconds subtracted from every stamp. */
   timeOrigin: number;
   camera: { topic: string; frameId: string; width: number; height: number; fx: number; fy: number; cx: number; cy: number };

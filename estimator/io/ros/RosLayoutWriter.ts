@@ -21,6 +21,7 @@ const HEADERS = {
   'resets.csv': 'time',
 } as const;
 type LayoutFile = keyof typeof HEADERS;
+const FILE_OF: Partial<Record<IngestRole, LayoutFile>> = { boxes: 'boxes.csv', imu: 'imu.csv', attitude: 'attitude.csv', odometry: 'odometry.csv', truthLander: 'truth.csv', resets: 'resets.csv' };
 
 export interface RosLayoutContext {
   /** Recording name for messages. */
@@ -63,11 +64,9 @@ export class RosLayoutWriter {
     const map = context.map;
     this.shift = map.camera.pixelCentres === 'integer' ? 0.5 : 0;
     this.rows = new LayoutRows(sink, HEADERS);
-    for (const file of ['boxes.csv', 'imu.csv', 'attitude.csv'] as const) this.rows.ensure(file);
-    if (map.odometry) this.rows.ensure('odometry.csv');
-    if (map.truth) this.rows.ensure('truth.csv');
-    if (map.resets) this.rows.ensure('resets.csv');
     for (const route of context.routes) {
+      const file = FILE_OF[route.role];
+      if (file) this.rows.ensure(file); // every mapped stream gets its file, rows or not
       this.byTopic.set(route.topic, [...(this.byTopic.get(route.topic) ?? []), route]);
       this.streams[route.role] = { topic: route.topic, type: context.types.get(route.topic)!.recorded, messages: 0, rows: 0, left: {} };
     }
@@ -201,7 +200,7 @@ export class RosLayoutWriter {
     if (b.badField > 0) this.leave('boxes', 'corner-or-score-field-missing', b.badField);
     this.rows.close();
     for (const role of ['boxes', 'imu', 'attitude'] as const) {
-      if (this.streams[role]!.messages === 0) throw new RecordingError(`${this.at(role, this.streams[role]!.topic)} has no messages: a flight log needs ${role}`);
+      if (this.streams[role]?.messages === 0) throw new RecordingError(`${this.at(role, this.streams[role]!.topic)} has no messages: a flight log needs ${role}`);
     }
     if (this.cameraChanges > 0) this.warnings.push(`topic ${this.context.map.camera.topic}: ${this.cameraChanges} camera info messages differ from the first; the first is used`);
     const [aw, ow] = [this.attitudeWorld, this.odometryWorld];

@@ -5,16 +5,19 @@
 // does not grow with the recording. Problems that make the recording unusable stop it with a
 // RecordingError naming the topic; single messages that cannot be used are counted and reported.
 import type { MessageReader } from '@foxglove/rosmsg2-serialization';
+import { folderSink } from '../log/folderSink.node.js';
 import type { LogTextSink } from '../log/LogRecorder.js';
 import { LOG_FORMAT, LOG_VERSION } from '../log/parseLogCamera.js';
-import { AlignedBytes, sameAfterStamp } from './AlignedBytes.js';
+import { convertMessages } from './convertMessages.js';
+import type { PartResult } from './convertPart.node.js';
 import type { IngestReport } from './IngestReport.js';
-import { openRecording, RecordingOpenError, type RecordedMessage, type Recording } from './openRecording.node.js';
+import { openRecording, RecordingOpenError, type Recording } from './openRecording.node.js';
 import type { RosMap } from './parseRosMap.js';
-import { checkRoute, decoderFor, ROLE_WORDS, routesOf } from './recordingRoutes.js';
+import { checkRoute, decoderFor, ROLE_WORDS, routesOf, type Route } from './recordingRoutes.js';
 import { RecordingError } from './RecordingError.js';
 import { RosLayoutWriter } from './RosLayoutWriter.js';
 import { cameraFromInfo, MessageContentError, shortTypeName, type Decoded, type RosCamera } from './rosMessages.js';
+import { ingestWorkerPath, runParts, splitRoutes } from './twoParts.node.js';
 
 export { RecordingError } from './RecordingError.js';
 export type { IngestReport, IngestRole, IngestStream } from './IngestReport.js';
@@ -43,28 +46,77 @@ async function firstMessage(name: string, recording: Recording, topic: string, r
   }
 }
 
+/** Open a recording; a file that is not one becomes a RecordingError. */
+async function openNamed(path: string, name: string): Promise<Recording> {
+  try {
+    return await openRecording(path);
+  } catch (error) {
+    if (error instanceof RecordingOpenError) throw new RecordingError(`${name}: ${error.message}`);
+    throw error;
+  }
+}
+
 /**
- * Convert the recording at `path` into a flight log written to `sink`.
+ * Convert the recording at `path` into a flight log written to `sink`, in one pass.
  * @throws RecordingError (unusable recording; what was written is not a usable log).
  */
 export async function ingestRosRecording(path: string, map: RosMap, sink: LogTextSink, options: IngestOptions = {}): Promise<IngestReport> {
   const started = performance.now();
   const name = options.name ?? path;
-  let recording: Recording;
+  const recording = await openNamed(path, name);
   try {
-    recording = await openRecording(path);
-  } catch (error) {
-    if (error instanceof RecordingOpenError) throw new RecordingError(`${name}: ${error.message}`);
-    throw error;
-  }
-  try {
-    return { ...(await convert(recording, name, map, sink)), seconds: (performance.now() - started) / 1000 };
+    return await onePass(recording, name, map, sink, await prepare(recording, name, map, sink), started);
   } finally {
     await recording.close();
   }
 }
 
-async function convert(recording: Recording, name: string, map: RosMap, sink: LogTextSink): Promise<Omit<IngestReport, 'seconds'>> {
+async function onePass(recording: Recording, name: string, map: RosMap, sink: LogTextSink, prepared: Prepared, started: number): Promise<IngestReport> {
+  const layout = new RosLayoutWriter(sink, { name, map, routes: prepared.routes, types: prepared.types, camera: prepared.camera, origin: prepared.origin });
+  await convertMessages({ name, recording, topics: prepared.topics, decoders: prepared.decoders, layout, firstCamera: prepared.firstCamera });
+  const files = layout.finish();
+  return report(recording, name, map, prepared, { streams: layout.streams, files, warnings: layout.warnings }, 1, started);
+}
+
+/**
+ * Convert the recording at `path` into the log folder `folder`. With `threads` 2 (the default)
+ * and an indexed recording, the mapped topics are split in two parts of about equal message
+ * counts, one converted in a worker thread: each file still comes from one pass over its
+ * messages, so the folder is byte for byte what ingestRosRecording writes.
+ */
+export async function ingestRosRecordingToFolder(path: string, map: RosMap, folder: string, options: IngestOptions & { threads?: number } = {}): Promise<IngestReport> {
+  const started = performance.now();
+  const name = options.name ?? path;
+  const recording = await openNamed(path, name);
+  try {
+    const sink = folderSink(folder);
+    const prepared = await prepare(recording, name, map, sink);
+    const parts = (options.threads ?? 2) >= 2 && recording.indexed ? splitRoutes(prepared.routes, recording.messageCounts) : null;
+    const worker = parts ? ingestWorkerPath() : null;
+    if (parts === null || worker === null) return await onePass(recording, name, map, sink, prepared, started);
+    sink.close(); // camera.json and filter.json are written; each part opens its own files
+    const job = { path, name, map, types: [...prepared.types], camera: prepared.camera, origin: prepared.origin, folder, firstCamera: prepared.firstCamera };
+    const results = await runParts(worker, { ...job, routes: parts[0] }, { ...job, routes: parts[1] });
+    const streams = Object.fromEntries(prepared.routes.map((r) => [r.role, results[0].streams[r.role] ?? results[1].streams[r.role]]));
+    return report(recording, name, map, prepared, { streams, files: { ...results[0].files, ...results[1].files }, warnings: [...results[0].warnings, ...results[1].warnings] }, 2, started);
+  } finally {
+    await recording.close();
+  }
+}
+
+interface Prepared {
+  routes: Route[];
+  topics: string[];
+  types: Map<string, { short: string; recorded: string }>;
+  decoders: Map<string, MessageReader>;
+  camera: RosCamera;
+  firstCamera: Uint8Array;
+  origin: number;
+  warnings: string[];
+}
+
+/** Check every mapped topic, read the camera and the time origin, write camera.json and filter.json. */
+async function prepare(recording: Recording, name: string, map: RosMap, sink: LogTextSink): Promise<Prepared> {
   const routes = routesOf(map);
   const topics = [...new Set(routes.map((r) => r.topic))];
   const warnings: string[] = [];
@@ -112,54 +164,24 @@ async function convert(recording: Recording, name: string, map: RosMap, sink: Lo
   sink.write('camera.json', JSON.stringify(cameraJson, null, 2) + '\n');
   if (map.filter) sink.write('filter.json', JSON.stringify(map.filter, null, 2) + '\n');
 
-  const layout = new RosLayoutWriter(sink, { name, map, routes, types, camera, origin });
-  const topicById = new Map(topics.map((t) => [recording.channels.get(t)!.id, t]));
-  const aligned = new AlignedBytes();
-  try {
-    const iterator = recording.messages(topics);
-    let lastLogTime = 0n;
-    for (;;) {
-      let step: IteratorResult<RecordedMessage>;
-      try {
-        step = await iterator.next();
-      } catch (error) {
-        // The container library found damage (a checksum, a cut chunk): say where.
-        throw new RecordingError(`${name}: the recording is damaged after log time ${lastLogTime} ns (${(error as Error).message})`);
-      }
-      if (step.done) break;
-      const message = step.value;
-      lastLogTime = message.logTime;
-      const topic = topicById.get(message.channelId)!;
-      // Every frame brings a camera info, nearly always the same: compare bytes, decode none.
-      if (layout.cameraOnly(topic) && sameAfterStamp(message.data, first.data)) {
-        layout.sameCamera();
-        continue;
-      }
-      let msg: Decoded;
-      try {
-        msg = decoders.get(topic)!.readMessage(aligned.place(message.data));
-      } catch (error) {
-        layout.undecodable(topic, message.logTime, error as Error);
-        continue;
-      }
-      layout.message(topic, msg, message.logTime);
-    }
-  } catch (error) {
-    layout.abort(); // the sink's files are closed before the error goes up
-    throw error;
-  }
-  const files = layout.finish();
-  if (recording.truncated) layout.warnings.push(recording.truncated);
-  const used = new Set(topics);
+  return { routes, topics, types, decoders, camera, firstCamera: first.data, origin, warnings };
+}
+
+function report(recording: Recording, name: string, map: RosMap, p: Prepared, part: PartResult, threads: number, started: number): IngestReport {
+  if (recording.truncated) part.warnings.push(recording.truncated);
+  const used = new Set(p.topics);
+  const c = p.camera;
   return {
     recording: name,
     bytes: recording.bytes,
     indexed: recording.indexed,
-    timeOrigin: origin,
-    camera: { topic: map.camera.topic, frameId: camera.frameId, width: camera.width, height: camera.height, fx: camera.fx, fy: camera.fy, cx: camera.cx, cy: camera.cy },
-    streams: layout.streams,
-    files,
+    threads,
+    timeOrigin: p.origin,
+    camera: { topic: map.camera.topic, frameId: c.frameId, width: c.width, height: c.height, fx: c.fx, fy: c.fy, cx: c.cx, cy: c.cy },
+    streams: part.streams,
+    files: part.files,
     otherTopics: [...recording.channels.keys()].filter((t) => !used.has(t)).sort(),
-    warnings: [...warnings, ...layout.warnings],
+    warnings: [...p.warnings, ...part.warnings],
+    seconds: (performance.now() - started) / 1000,
   };
 }

@@ -34,6 +34,8 @@ export interface Recording {
   unindexedReason?: string;
   /** Channels by topic (every channel of the file; for an unindexed file, those before the first stop of the scan). */
   channels: Map<string, RecordedChannel>;
+  /** Messages per topic from the file's statistics (indexed files that carry them; else empty). */
+  messageCounts: Map<string, number>;
   /** Messages of the given topics, in log-time order (indexed) or file order. */
   messages(topics: readonly string[]): AsyncGenerator<RecordedMessage>;
   /** Set after messages() finished on a file cut short: what was lost. */
@@ -99,11 +101,17 @@ export async function openRecording(path: string): Promise<Recording> {
   try {
     const reader = await McapIndexedReader.Initialize({ readable: new FileHandleReadable(handle), decompressHandlers: decompress });
     const channels = new Map<string, RecordedChannel>();
-    for (const channel of reader.channelsById.values()) channels.set(channel.topic, channelOf(channel, reader.schemasById.get(channel.schemaId)));
+    const messageCounts = new Map<string, number>();
+    for (const channel of reader.channelsById.values()) {
+      channels.set(channel.topic, channelOf(channel, reader.schemasById.get(channel.schemaId)));
+      const count = reader.statistics?.channelMessageCounts.get(channel.id);
+      if (count !== undefined) messageCounts.set(channel.topic, Number(count));
+    }
     return {
       bytes,
       indexed: true,
       channels,
+      messageCounts,
       truncated: null,
       messages: (topics) => reader.readMessages({ topics, validateCrcs: true }),
       close: () => handle.close(),
@@ -122,6 +130,7 @@ async function streamedRecording(path: string, bytes: number, reason: string): P
     indexed: false,
     unindexedReason: reason,
     channels: new Map(),
+    messageCounts: new Map(),
     truncated: null,
     async *messages(topics) {
       const wanted = new Set(topics);

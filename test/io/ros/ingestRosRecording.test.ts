@@ -1,4 +1,4 @@
-import { mkdtempSync, readFileSync, rmSync, truncateSync, statSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync, rmSync, truncateSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -7,7 +7,7 @@ import { folderSink } from '../../../estimator/io/log/folderSink.node.js';
 import { logSourceFromFolder } from '../../../estimator/io/log/logSourceFromFolder.node.js';
 import { recordTrial } from '../../../estimator/io/log/recordTrial.js';
 import { replayLog, type ReplayReport } from '../../../estimator/io/log/replayLog.js';
-import { ingestRosRecording, RecordingError, type IngestReport } from '../../../estimator/io/ros/ingestRosRecording.node.js';
+import { ingestRosRecording, ingestRosRecordingToFolder, RecordingError, type IngestReport } from '../../../estimator/io/ros/ingestRosRecording.node.js';
 import { parseRosMap } from '../../../estimator/io/ros/parseRosMap.js';
 import { expectClose } from '../../helpers/expectClose.js';
 import { mapForLayout, recordingFromLayout, type LayoutRecordingOptions } from './recordingFromLayout.js';
@@ -132,6 +132,21 @@ describe('ingestRosRecording: recording -> layout -> replay', () => {
     expect(ingested.report.rows.imu!.read).toBeGreaterThan(direct.report.rows.imu!.read * 0.9);
     const k = ingested.estimates.length - 1;
     for (let i = 0; i < ingested.estimates[0]!.length; i++) expectClose(ingested.estimates[k]![i]!, direct.estimates[k]![i]!, { rel: 1e-9, abs: 1e-12 }, `estimate ${i}`);
+  });
+
+  it('writes the same bytes when two threads share the topics (the folder version: a worker converts half of them)', async () => {
+    const recording = join(dir, 'two-threads.mcap');
+    await recordingFromLayout(log, recording, {});
+    const map = parseRosMap(JSON.stringify(mapForLayout(log, {})), 'map.json');
+    const one = join(dir, 'one-thread');
+    await ingestRosRecording(recording, map, folderSink(one));
+    const two = join(dir, 'two-threads');
+    const report = await ingestRosRecordingToFolder(recording, map, two);
+    expect(report.threads, 'dist/ingest-worker.mjs is built by `npm run build`').toBe(2);
+    const files = readdirSync(one).sort();
+    expect(readdirSync(two).sort()).toEqual(files);
+    for (const file of files) expect(readFileSync(join(two, file)).equals(readFileSync(join(one, file))), file).toBe(true);
+    expect(report.streams.imu!.rows).toBe(report.files['imu.csv']);
   });
 
   it('counts detections of another class instead of writing them', async () => {

@@ -3,15 +3,15 @@
 // 20 Hz odometry, 100 Hz motion capture of lander and carrier; uncompressed chunks). The
 // recording is written once into a temporary folder (about a minute) and deleted afterwards.
 // mbPerSec: recording bytes / wall time of the conversion in a fresh child process (start-up
-//   included); cpuSeconds: its CPU time, which other load on the machine inflates less.
+//   included), as `alight ingest` runs it (two threads); cpuSeconds: its CPU time (both threads),
+//   which other load on the machine inflates less.
 // peakMB: the child's peak resident memory (getrusage maxRSS): the conversion streams, so it
 //   must not grow with the recording; peakMBSmall gives the same child on a 60 s recording.
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { folderSink } from '../../estimator/io/log/folderSink.node.js';
-import { ingestRosRecording } from '../../estimator/io/ros/ingestRosRecording.node.js';
+import { ingestRosRecordingToFolder } from '../../estimator/io/ros/ingestRosRecording.node.js';
 import { parseRosMap } from '../../estimator/io/ros/parseRosMap.js';
 import { writeSyntheticRecording } from '../io/ros/syntheticRecording.js';
 import { repoRoot, rerunArgs } from './paths.js';
@@ -27,6 +27,7 @@ interface ChildResult {
   cpuSeconds: number;
   bytes: number;
   rows: number;
+  threads: number;
   maxRssKB: number;
 }
 
@@ -42,10 +43,10 @@ if (childAt >= 0) {
   const started = performance.now();
   const cpu = process.cpuUsage();
   const mapPath = join(repoRoot(), 'data-demo', 'ros', 'flight.map.json');
-  const report = await ingestRosRecording(process.argv[childAt + 1]!, parseRosMap(readFileSync(mapPath, 'utf8'), mapPath), folderSink(process.argv[childAt + 2]!));
+  const report = await ingestRosRecordingToFolder(process.argv[childAt + 1]!, parseRosMap(readFileSync(mapPath, 'utf8'), mapPath), process.argv[childAt + 2]!);
   const used = process.cpuUsage(cpu);
   const rows = Object.values(report.files).reduce((a, n) => a + n, 0);
-  const result: ChildResult = { seconds: (performance.now() - started) / 1000, cpuSeconds: (used.user + used.system) / 1e6, bytes: report.bytes, rows, maxRssKB: process.resourceUsage().maxRSS };
+  const result: ChildResult = { threads: report.threads, seconds: (performance.now() - started) / 1000, cpuSeconds: (used.user + used.system) / 1e6, bytes: report.bytes, rows, maxRssKB: process.resourceUsage().maxRSS };
   process.stdout.write(JSON.stringify(result) + '\n');
 }
 
@@ -72,6 +73,7 @@ export const importBench: BenchSection = {
         cpuSeconds: round(measured.cpuSeconds),
         mbPerCpuSec: round(measured.bytes / 1e6 / measured.cpuSeconds),
         rows: measured.rows,
+        threads: measured.threads,
         peakMBSmall: round(smallRun.maxRssKB / 1024),
         smallRecordingMB: round(smallRun.bytes / 1e6),
         generateSeconds: round(generateSeconds),

@@ -2,7 +2,7 @@
 // (native range, select and text inputs with labels). A slider commits once per gesture: at
 // release of a drag, or after a pause in arrow-key presses, so holding an arrow key starts one
 // computation, not one per step. Screen readers hear the value with its unit.
-import type { Parameter, ParameterValue } from '../studies/Parameter.js';
+import type { ListParameter, Parameter, ParameterValue } from '../studies/Parameter.js';
 import { parameterFromText, parameterProblem } from '../studies/Parameter.js';
 import { seedProblem } from './seedProblem.js';
 
@@ -11,6 +11,7 @@ export const SLIDER_PAUSE_MS = 600;
 
 function formatValue(spec: Parameter, value: ParameterValue): string {
   if (spec.kind === 'choice') return '';
+  if (spec.kind === 'list') return value === '' ? 'default' : spec.unit;
   return `${value}${spec.unit ? ' ' + spec.unit : ''}`;
 }
 
@@ -31,6 +32,7 @@ export function showControlValue(root: ParentNode, spec: Parameter | 'seed', val
 }
 
 export function renderControl(spec: Parameter, value: ParameterValue, onChange: (value: ParameterValue) => void): HTMLElement {
+  if (spec.kind === 'list') return renderListControl(spec, String(value), onChange);
   const box = document.createElement('div');
   box.className = 'control';
   const id = `control-${spec.name}`;
@@ -103,6 +105,61 @@ export function renderControl(spec: Parameter, value: ParameterValue, onChange: 
   input.dataset.parameter = spec.name;
   input.addEventListener('alight:shown', () => (committed = input.value));
   box.append(label, output, input);
+  return box;
+}
+
+/** A list of numbers, typed: commits on change or Enter when it reads as one, else names the problem. */
+function renderListControl(spec: ListParameter, value: string, onChange: (value: ParameterValue) => void): HTMLElement {
+  const box = document.createElement('div');
+  box.className = 'control';
+  const id = `control-${spec.name}`;
+  const label = document.createElement('label');
+  label.htmlFor = id;
+  label.textContent = spec.label;
+  const output = document.createElement('output');
+  output.htmlFor.add(id);
+  output.textContent = formatValue(spec, value);
+  const input = document.createElement('input');
+  input.type = 'text';
+  input.id = id;
+  input.name = spec.name;
+  input.dataset.parameter = spec.name;
+  input.value = value;
+  input.placeholder = 'default values';
+  input.spellcheck = false;
+  const problem = document.createElement('p');
+  problem.className = 'field-problem';
+  problem.id = `${id}-problem`;
+  problem.setAttribute('role', 'alert');
+  problem.hidden = true;
+  let committed = value;
+  const check = (): void => {
+    const said = parameterProblem(spec, input.value);
+    if (said !== null) {
+      problem.textContent = `${spec.label}: ${said}. The study still uses ${committed === '' ? 'its default values' : committed}.`;
+      problem.hidden = false;
+      input.setAttribute('aria-invalid', 'true');
+      input.setAttribute('aria-describedby', problem.id);
+      return;
+    }
+    problem.hidden = true;
+    input.removeAttribute('aria-invalid');
+    input.removeAttribute('aria-describedby');
+    if (input.value.trim() === committed) return;
+    committed = input.value.trim();
+    output.textContent = formatValue(spec, committed);
+    onChange(committed);
+  };
+  input.addEventListener('change', check);
+  input.addEventListener('keydown', (event) => {
+    if (event.key === 'Enter') check();
+  });
+  input.addEventListener('alight:shown', () => {
+    committed = input.value;
+    problem.hidden = true;
+    input.removeAttribute('aria-invalid');
+  });
+  box.append(label, output, input, problem);
   return box;
 }
 

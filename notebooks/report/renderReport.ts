@@ -22,6 +22,7 @@ export function renderReport(study: Study, analysis: Analysis, figures: Readonly
       const value = analysis.parameters[p.name] ?? p.default;
       // Choices read as their words ("its Wilson lower bound"), not their stored values ("lower").
       if (p.kind === 'choice') return [p.label, p.options.find((o) => o.value === value)?.label ?? String(value)];
+      if (p.kind === 'list') return [p.label, value === '' ? 'the default values' : String(value)];
       return [p.label, String(value) + (p.unit ? ` ${p.unit}` : '')];
     }),
   ];

@@ -15,6 +15,7 @@ import { claimReach } from './claimReach.js';
 import { descentNeesFigure } from './descentFigure.js';
 import { consistencyWords } from '../../estimator/study/statistics/ensembleConsistency.js';
 import { CONFIDENCE_PARAMETER, Z_OF_LEVEL } from './confidence.js';
+import { parseNumberList } from './Parameter.js';
 import { fromState, HALF, htmlTable, keyNumber, toCsv } from './figureOutput.js';
 import type { Study } from './Study.js';
 import { causeFigure } from './causeFigure.js';
@@ -61,17 +62,21 @@ export const detectionStudy: Study = {
       default: 'pixelNoise',
     },
     { kind: 'number', name: 'trials', label: 'Trials per point', unit: 'trials', min: 1, max: 1000, step: 1, default: 5, integer: true },
+    { kind: 'list', name: 'values', label: 'Swept values (empty: the default grid)', unit: '', maxItems: 12, default: '' },
     CONFIDENCE_PARAMETER,
     { kind: 'number', name: 'target', label: 'Claim: success at least', unit: '', min: 0.5, max: 0.99, step: 0.01, default: 0.9 },
   ],
   cells: [
     {
       name: 'sweep',
-      inputs: ['jobs', 'scenario', 'seed', 'impairment', 'trials'],
-      compute: (jobs: JobRunner, scenario: Scenario, seed: number, impairment: string, trials: number) => {
+      inputs: ['jobs', 'scenario', 'seed', 'impairment', 'trials', 'values'],
+      compute: (jobs: JobRunner, scenario: Scenario, seed: number, impairment: string, trials: number, values: string) => {
         const i = IMPAIRMENTS[impairment]!;
         const base = i.prepare ? i.prepare(scenario) : scenario;
-        return jobs.run('sweep', { scenario: base, seed, trials, vary: [{ path: i.path, values: i.values }] }, `${i.label} sweep`);
+        // Own values replace the impairment's default grid; the scenario validator judges each one.
+        const own = parseNumberList(values, 12);
+        const swept = Array.isArray(own) && own.length > 0 ? [...own].sort((a, b) => a - b) : i.values;
+        return jobs.run('sweep', { scenario: base, seed, trials, vary: [{ path: i.path, values: swept }] }, `${i.label} sweep`);
       },
     },
   ],

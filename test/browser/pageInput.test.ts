@@ -179,6 +179,26 @@ describe.skipIf(!runBrowserTests)('bad input and history in chromium', () => {
     expect(csv).toHaveLength(13);
   });
 
+  it('detection: own swept values are checked as typed, and a value the scenario refuses is said once', async () => {
+    const a: Analysis = { study: 'detection', scenario: defaultScenario(), parameters: { impairment: 'dropout', trials: 1 }, seed: 2, toolVersion: VERSION };
+    await openAnalysis(page, server.url, a);
+    await page.fill('#control-values', '0, x');
+    await page.press('#control-values', 'Enter');
+    expect(await page.textContent('#control-values-problem')).toBe('Swept values (empty: the default grid): "x" is not a number (got "0, x"). The study still uses its default values.');
+    await page.fill('#control-values', '0.3, 0');
+    await page.press('#control-values', 'Enter');
+    await page.waitForFunction(() => document.querySelectorAll('[data-figure="claims"] tbody tr').length === 2);
+    await waitIdle(page);
+    expect(await page.$$eval('[data-figure="claims"] tbody th', (ths) => ths.map((t) => t.textContent))).toEqual(['0', '0.3']);
+    expect(JSON.parse(await analysisText(page)).parameters.values).toBe('0.3, 0');
+    await page.fill('#control-values', '0, 1.5');
+    await page.press('#control-values', 'Enter');
+    await page.waitForSelector('.message[data-source="compute"]');
+    await waitIdle(page);
+    expect(await page.locator('.message[role="alert"]:visible').count()).toBe(1);
+    expect(await page.textContent('.message[data-source="compute"]')).toContain('detector.dropout');
+  });
+
   it('Back undoes a control change; a held arrow key commits once', async () => {
     await page.goto(server.url + '#study=landing');
     await waitIdle(page);

@@ -59,8 +59,8 @@ describe.skipIf(!runBrowserTests)('sharing a study in chromium', () => {
     await waitIdle(page);
     expect(await page.inputValue('#control-impairment')).toBe('dropout');
     expect(await page.inputValue('#control-confidence')).toBe('0.90');
-    // Controls the file leaves out take their defaults (the claim target, 0.9).
-    expect(await page.evaluate(() => window.alight!.analysisText())).toBe(analysisToText({ ...b, parameters: { ...b.parameters, target: 0.9 } }));
+    // Controls the file leaves out take their defaults (own swept values: none; the claim target, 0.9).
+    expect(await page.evaluate(() => window.alight!.analysisText())).toBe(analysisToText({ ...b, parameters: { impairment: 'dropout', trials: 1, values: '', confidence: '0.90', target: 0.9 } }));
   });
 
   it('swaps in a demo scenario from the server, and the link carries it', async () => {

@@ -5,6 +5,7 @@ import { analysisToText } from '../../../notebooks/analysis/Analysis.js';
 import { permalinkFragment } from '../../../notebooks/analysis/permalink.js';
 import { readLink } from '../../../notebooks/host/readLink.js';
 import { seedProblem } from '../../../notebooks/host/seedProblem.js';
+import { parameterProblem, parseNumberList } from '../../../notebooks/studies/Parameter.js';
 
 const b64 = (bytes: number[]): string => '#analysis=' + Buffer.from(bytes).toString('base64url');
 
@@ -59,5 +60,20 @@ describe('seedProblem', () => {
     expect(seedProblem('abc')).toBe('The seed "abc" is not a number: type a whole number from 0 to 9007199254740991.');
     expect(seedProblem('')).toBe('The seed is empty: type a whole number from 0 to 9007199254740991.');
     expect(seedProblem('1e3')).toContain('type plain digits (1000)');
+  });
+});
+
+describe('parseNumberList', () => {
+  it('reads comma or space separated values and names what is wrong', () => {
+    expect(parseNumberList('', 12)).toEqual([]);
+    expect(parseNumberList(' 0, 0.1 0.25;1 ', 12)).toEqual([0, 0.1, 0.25, 1]);
+    expect(parseNumberList('0, x', 12)).toBe('"x" is not a number');
+    expect(parseNumberList('3', 12)).toBe('a sweep needs at least two values');
+    expect(parseNumberList('1,2,3', 2)).toBe('at most 2 values, got 3');
+    expect(parseNumberList('1,2,1', 12)).toBe('a value appears twice');
+    const spec = { kind: 'list' as const, name: 'values', label: 'Swept values', unit: '', maxItems: 12, default: '' };
+    expect(parameterProblem(spec, '1,2')).toBeNull();
+    expect(parameterProblem(spec, 3)).toBe('must be a list of numbers as text, got 3');
+    expect(parameterProblem(spec, '1,,y')).toBe('"y" is not a number (got "1,,y")');
   });
 });

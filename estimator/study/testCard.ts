@@ -43,6 +43,8 @@ export interface CardCondition {
   wilsonLow: number;
   wilsonHigh: number;
   counts: FlightCounts;
+  /** The same plan if the real rate were the low end of the simulation's Wilson interval (few simulated trials leave it uncertain). */
+  countsAtLow: FlightCounts;
   /** Why simulated trials failed there, most frequent first (what to watch for in flight). */
   causes: CauseCount[];
 }
@@ -98,7 +100,9 @@ export function testCard(header: SweepHeader, records: readonly SweepRecord[], c
     }
     conditions.push({
       roles: [role], value: valueOf(s), trials: s.trials, landed: s.landed, simulatedRate: s.successRate, wilsonLow: s.wilsonLow, wilsonHigh: s.wilsonHigh,
-      counts: flightCounts(claim.rate, claim.confidence, s.successRate, { power: full.power }), causes: s.causes,
+      counts: flightCounts(claim.rate, claim.confidence, s.successRate, { power: full.power }),
+      countsAtLow: flightCounts(claim.rate, claim.confidence, s.wilsonLow, { power: full.power }),
+      causes: s.causes,
     });
   }
   conditions.sort((a, b) => a.value - b.value);

@@ -2,7 +2,7 @@
 // the flight-safety caution at its top, then the claim, the conditions table, the decision
 // rules and the abort criteria, with a line to sign per condition.
 import type { TestCard } from './testCard.js';
-import { planLine } from './testCardText.js';
+import { lowLine, planLine } from './testCardText.js';
 
 const escape = (s: string) => s.replaceAll('&', '&amp;').replaceAll('<', '&lt;').replaceAll('>', '&gt;').replaceAll('"', '&quot;');
 const fmt = (v: number) => String(Number(v.toPrecision(4)));
@@ -20,7 +20,7 @@ th { background: #e9edf0; } td.flown { width: 7em; }
 
 /** Only the card's body (caution first): the page view embeds it; testCardHtml wraps it in a page. */
 export function testCardFragment(card: TestCard): string {
-  const rows = card.conditions.map((c) => `<tr><td>${fmt(c.value)}</td><td>${escape(c.roles.join(', '))}</td><td>${c.landed} of ${c.trials}: ${pct(c.simulatedRate)}<br>(Wilson 95 % ${pct(c.wilsonLow)} to ${pct(c.wilsonHigh)})</td><td>${escape(planLine(c))}</td><td>${c.counts.allLand}</td><td>${escape(c.causes.slice(0, 3).map((x) => `${x.cause} ${x.count}`).join(', ') || 'none simulated')}</td><td class="flown"></td></tr>`);
+  const rows = card.conditions.map((c) => `<tr><td>${fmt(c.value)}</td><td>${escape(c.roles.join(', '))}</td><td>${c.landed} of ${c.trials}: ${pct(c.simulatedRate)}<br>(Wilson 95 % ${pct(c.wilsonLow)} to ${pct(c.wilsonHigh)})</td><td>${escape(planLine(c))}${c.roles.some((r) => r !== 'beyond the claim') ? `<br>If the real rate is the simulation's low end (${pct(c.wilsonLow)}): ${escape(lowLine(c))}.` : ''}</td><td>${c.counts.allLand}</td><td>${escape(c.causes.slice(0, 3).map((x) => `${x.cause} ${x.count}`).join(', ') || 'none simulated')}</td><td class="flown"></td></tr>`);
   return [
     `<p class="caution" role="alert">${escape(card.caution)}</p>`,
     `<h1>Flight-test card: ${escape(card.scenario)}</h1>`,

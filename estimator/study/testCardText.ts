@@ -19,6 +19,13 @@ export function planLine(c: CardCondition): string {
   return `${k.flights} flights (expected to ${k.expect}, chance ${pct(k.chance!)} at the simulated rate): ${confirm}; ${refute}`;
 }
 
+/** The plan at the low end of the simulated interval, in a few words. */
+export function lowLine(c: CardCondition): string {
+  const k = c.countsAtLow;
+  if (k.flights === null) return 'no practical plan (too close to the claim)';
+  return `${k.flights} flights, expected to ${k.expect}`;
+}
+
 export function testCardText(card: TestCard): string {
   const lines = [`CAUTION: ${card.caution}`, '', `Flight-test card, scenario "${card.scenario}"`, `Claim: ${card.statement}`, '', card.planningNote, ''];
   for (const c of card.conditions) {
@@ -26,6 +33,7 @@ export function testCardText(card: TestCard): string {
     lines.push(`  simulated: ${c.landed} of ${c.trials} landed, ${pct(c.simulatedRate)} (Wilson 95 % ${pct(c.wilsonLow)} to ${pct(c.wilsonHigh)})`);
     lines.push(`  fly: ${planLine(c)}`);
     lines.push(`  if every flight lands: ${c.counts.allLand} flights confirm the claim`);
+    if (c.roles.some((r) => r !== 'beyond the claim')) lines.push(`  if the real rate is the simulation's low end (${pct(c.wilsonLow)}): ${lowLine(c)}`);
     if (c.causes.length > 0) lines.push(`  watch for: ${c.causes.slice(0, 3).map((x) => `${x.cause} (${x.count} of ${c.trials} simulated)`).join(', ')}`);
   }
   lines.push('', 'Deciding:', ...card.decisionRules.map((r) => `  - ${r}`), '', 'Abort criteria (every flight):', ...card.abortCriteria.map((r) => `  - ${r}`));

@@ -21,6 +21,7 @@ describe('testCard', () => {
     const edge = card.conditions[1]!;
     expect(edge.simulatedRate).toBe(36 / 40);
     expect(edge.counts).toEqual(flightCounts(0.9, 0.95, 36 / 40, { power: 0.8 }));
+    expect(edge.countsAtLow).toEqual(flightCounts(0.9, 0.95, edge.wilsonLow, { power: 0.8 })); // the simulation's own uncertainty, planned too
     expect(edge.counts.expect).toBe('undecided'); // simulated exactly at the claim: no test separates them
     const nominal = card.conditions[0]!;
     expect(nominal.counts.expect).toBe('confirm');

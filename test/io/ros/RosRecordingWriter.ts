@@ -104,12 +104,12 @@ export class RosRecordingWriter {
     return new RosRecordingWriter(handle, writer, index);
   }
 
-  /** Register `topic` with ROS 2 type `type` (e.g. "sensor_msgs/Imu"); `definitionText` overrides the standard one. */
-  async channel(topic: string, type: string, definitionText?: string): Promise<void> {
+  /** Register `topic` with ROS 2 type `type` (e.g. "sensor_msgs/Imu"); `definitionText` overrides the standard one; `messageEncoding` the CDR. */
+  async channel(topic: string, type: string, definitionText?: string, messageEncoding = 'cdr'): Promise<void> {
     const [pkg, name] = type.split('/');
     const text = definitionText ?? ros2SchemaText(type);
     const schemaId = await this.writer.registerSchema({ name: `${pkg}/msg/${name}`, encoding: 'ros2msg', data: new TextEncoder().encode(text) });
-    const id = await this.writer.registerChannel({ topic, schemaId, messageEncoding: 'cdr', metadata: new Map() });
+    const id = await this.writer.registerChannel({ topic, schemaId, messageEncoding, metadata: new Map() });
     this.channels.set(topic, { id, writer: new MessageWriter(parse(text, { ros2: true })) });
   }
 

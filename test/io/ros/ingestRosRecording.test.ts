@@ -297,6 +297,13 @@ describe('ingestRosRecording: recordings it refuses, by name', () => {
     expect(await ingestError(path)).toMatch(/^flight\.mcap: topic \/boxes \(boxes\): message type geometry_msgs\/msg\/PoseStamped cannot give boxes \(accepted: vision_msgs\/Detection2DArray, vision_msgs\/Detection2D; for a message of your own, give boxes.corners in the map\)$/);
   });
 
+  it('names a topic whose messages are not CDR', async () => {
+    const path = await smallRecording('json-boxes.mcap', async (w) => {
+      await w.channel('/boxes', 'vision_msgs/Detection2DArray', undefined, 'json');
+    });
+    expect(await ingestError(path)).toBe('flight.mcap: topic /boxes (boxes): messages are encoded as "json"; alight reads ROS 2 CDR ("cdr")');
+  });
+
   it('names an IMU topic without messages', async () => {
     const path = join(dir, 'empty-imu.mcap');
     const w = await RosRecordingWriter.create(path);

@@ -9,7 +9,6 @@ import { FileHandleWritable } from '@mcap/nodejs';
 import { parse, stringify } from '@foxglove/rosmsg';
 import { ros2humble } from '@foxglove/rosmsg-msgs-common';
 import { MessageWriter } from '@foxglove/rosmsg2-serialization';
-import type { MessageDefinition } from '@foxglove/message-definition';
 
 const SEPARATOR = '\n================================================================================\n';
 
@@ -24,6 +23,8 @@ const VISION_MSGS: Record<string, string[]> = {
   'vision_msgs/Point2D': ['float64 x\nfloat64 y'],
 };
 
+/** A parsed .msg definition (the type @foxglove/rosmsg works with). */
+type MessageDefinition = Parameters<typeof stringify>[0][number];
 const standard = ros2humble as Record<string, MessageDefinition>;
 
 /** The .msg text of a type with all its dependencies (rosbag2's concatenated form). */

@@ -2,7 +2,8 @@
 // and warnings, then the recommended setting against the current one. Presentation only: every
 // figure comes from identifyNoise / settingCheck.
 import type { SettingCheck, StatisticCheck } from '../io/log/settingCheck.js';
-import { roundTo, termValueText, type NoiseIdentification } from '../study/identifyNoise.js';
+import type { NoiseIdentification } from '../study/identifyNoise.js';
+import { roundTo, termValueText } from '../study/termValueText.js';
 
 function pad(text: string, width: number): string {
   return text.length >= width ? text + ' ' : text + ' '.repeat(width - text.length);

@@ -11,13 +11,15 @@
 //   side on which D never rises by 3.84 is open (nothing bounds the term there). Both sides
 //   open, or an interval wider than a factor 100: not identifiable; one side open: only a bound.
 // Browser-safe; the objective may be async (a replay).
+import { curvatureCovariance } from './curvatureCovariance.js';
 import { nelderMead } from './nelderMead.js';
+import { roundTo, supportedDigits, type Identifiability } from './termValueText.js';
+
+export type { Identifiability } from './termValueText.js';
 
 /** chi-square(1) upper 5 % point (NIST/SEMATECH e-Handbook 1.3.6.7.4): 3.841. */
 export const PROFILE_RISE_95 = 3.841;
 const Z95 = 1.959964;
-/** Step of the finite-difference Hessian in ln θ: 10 %, inside the quadratic region of a well-identified term. */
-const HESSIAN_STEP = 0.1;
 /** An interval wider than this ratio (high / low) claims no value. */
 const WIDEST_RATIO = 100;
 /** An estimate this close (in ln θ) to a search bound sits at it. */
@@ -32,7 +34,6 @@ export interface FreeTerm {
   upper: number;
 }
 
-export type Identifiability = 'identified' | 'upper-bound-only' | 'lower-bound-only' | 'not-identifiable';
 
 export interface ProfilePoint {
   value: number;
@@ -81,39 +82,6 @@ export interface IdentifyOptions {
 export const IDENTIFY_METHOD =
   'maximum innovation likelihood, -2 ln L = sum (ln|2 pi S_k| + y_k\' S_k^-1 y_k) (Mehra 1970; Bar-Shalom, Li, Kirubarajan 2001), ' +
   'searched in ln of each term; 95 % interval from the curvature of -2 ln L (a rise of 3.84, Wilks 1938), sides the profile never closes left open';
-
-/**
- * Significant digits of `estimate` that its interval supports: the fewest whose rounding step
- * 10^(floor(log10 v) - d + 1) is at most a quarter of the interval's width (1 to 3).
- * @example supportedDigits(0.169, 0.124, 0.231) // 2 -> "0.17"
- */
-export function supportedDigits(estimate: number, low: number, high: number): number {
-  const width = high - low;
-  if (!(width > 0) || !(estimate > 0)) return 3;
-  const magnitude = Math.floor(Math.log10(estimate));
-  for (let d = 1; d < 3; d++) if (10 ** (magnitude - d + 1) <= width / 4) return d;
-  return 3;
-}
-
-/** v rounded to d significant digits (d = 0: unchanged). */
-export function roundTo(v: number, d: number): number {
-  return d > 0 ? Number(v.toPrecision(d)) : v;
-}
-
-/** A term's value as the data support it: digits from its interval, or what bounds it, or nothing. */
-export function termValueText(t: TermEstimate): string {
-  const unit = t.unit.startsWith('of ') ? '' : ` ${t.unit}`;
-  switch (t.status) {
-    case 'identified':
-      return `${roundTo(t.estimate, t.digits)}${unit} (95 %: ${roundTo(t.low!, 2)} to ${roundTo(t.high!, 2)})`;
-    case 'upper-bound-only':
-      return `at most ${roundTo(t.high!, 2)}${unit}`;
-    case 'lower-bound-only':
-      return `at least ${roundTo(t.low!, 2)}${unit}`;
-    case 'not-identifiable':
-      return 'not identifiable';
-  }
-}
 
 export async function identifyNoise(objective: (values: Record<string, number>) => number | Promise<number>, free: readonly FreeTerm[], options: IdentifyOptions = {}): Promise<NoiseIdentification> {
   const n = free.length;
@@ -231,65 +199,4 @@ function warningFor(t: FreeTerm, status: Identifiability, atBound: 'lower' | 'up
     case 'not-identifiable':
       return `${t.name}: not identifiable from this data (the likelihood is flat${low !== null && high !== null ? ` across ${roundTo(low, 2)}..${roundTo(high, 2)} ${t.unit}` : ''}${bound}); no value claimed, the current setting is kept`;
   }
-}
-
-/**
- * C = 2 H⁻¹, H the Hessian of D at zHat by central differences (step h in ln θ):
- *   H_ii = (D(+h) - 2 D0 + D(-h)) / h²,  H_ij = (D(++) - D(+-) - D(-+) + D(--)) / (4 h²).
- * Terms with H_ii <= 0 (flat or concave) are left out of the inversion and get no variance;
- * null when what is left is not positive definite.
- */
-async function curvatureCovariance(D: (z: readonly number[]) => Promise<number>, zHat: readonly number[], dHat: number, n: number): Promise<Float64Array | null> {
-  const h = HESSIAN_STEP;
-  const at = async (i: number, si: number, j: number, sj: number) => {
-    const z = [...zHat];
-    z[i]! += si * h;
-    z[j]! += sj * h;
-    return D(z);
-  };
-  const H = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) H[i * n + i] = ((await at(i, 1, i, 0)) - 2 * dHat + (await at(i, -1, i, 0))) / (h * h);
-  const kept = Array.from({ length: n }, (_, i) => i).filter((i) => H[i * n + i]! > 1e-9 && Number.isFinite(H[i * n + i]!));
-  for (const i of kept) {
-    for (const j of kept) {
-      if (j <= i) continue;
-      const v = ((await at(i, 1, j, 1)) - (await at(i, 1, j, -1)) - (await at(i, -1, j, 1)) + (await at(i, -1, j, -1))) / (4 * h * h);
-      H[i * n + j] = v;
-      H[j * n + i] = v;
-    }
-  }
-  const m = kept.length;
-  const C = new Float64Array(n * n);
-  if (m === 0) return C;
-  const A = kept.flatMap((i) => kept.map((j) => H[i * n + j]!));
-  const inv = invertSymmetric(A, m);
-  if (inv === null) {
-    // Correlations made H indefinite: fall back to each term's own curvature (others held).
-    for (const i of kept) C[i * n + i] = 2 / H[i * n + i]!;
-    return C;
-  }
-  kept.forEach((i, a) => kept.forEach((j, b) => (C[i * n + j] = 2 * inv[a * m + b]!)));
-  return C;
-}
-
-/** Inverse of a small symmetric positive-definite matrix by Gauss–Jordan; null when a pivot is not positive. */
-function invertSymmetric(A: number[], m: number): number[] | null {
-  const a = A.slice(), inv = Array.from({ length: m * m }, (_, k) => (k % (m + 1) === 0 ? 1 : 0));
-  for (let c = 0; c < m; c++) {
-    const pivot = a[c * m + c]!;
-    if (!(pivot > 0)) return null;
-    for (let k = 0; k < m; k++) {
-      a[c * m + k]! /= pivot;
-      inv[c * m + k]! /= pivot;
-    }
-    for (let r = 0; r < m; r++) {
-      if (r === c) continue;
-      const f = a[r * m + c]!;
-      for (let k = 0; k < m; k++) {
-        a[r * m + k]! -= f * a[c * m + k]!;
-        inv[r * m + k]! -= f * inv[c * m + k]!;
-      }
-    }
-  }
-  return inv;
 }

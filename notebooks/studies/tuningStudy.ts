@@ -4,7 +4,8 @@
 // the same trials and the landing/consistency trade-off is shown as its non-dominated settings.
 import type { SettingCheck, StatisticCheck } from '../../estimator/io/log/settingCheck.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
-import { PROFILE_RISE_95, termValueText } from '../../estimator/study/identifyNoise.js';
+import { PROFILE_RISE_95 } from '../../estimator/study/identifyNoise.js';
+import { termValueText } from '../../estimator/study/termValueText.js';
 import { DEFAULT_FREE_TERMS, type NoiseTermName } from '../../estimator/study/noiseTerms.js';
 import { consistencyWords } from '../../estimator/study/statistics/ensembleConsistency.js';
 import { neesVerdict } from '../../estimator/study/statistics/neesVerdict.js';

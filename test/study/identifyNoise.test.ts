@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { RandomStream } from '../../estimator/random/RandomStream.js';
-import { identifyNoise, roundTo, supportedDigits } from '../../estimator/study/identifyNoise.js';
+import { identifyNoise } from '../../estimator/study/identifyNoise.js';
+import { roundTo, supportedDigits } from '../../estimator/study/termValueText.js';
 import { expectClose } from '../helpers/expectClose.js';
 
 /** N seeded draws of N(0, sigma²). */

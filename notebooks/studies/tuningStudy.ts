@@ -142,7 +142,8 @@ export const tuningStudy: Study = {
             markup: plotSvg({
               title: 'Landing against consistency', ...HALF, legendBelow: true, note: partial ? 'partial results' : undefined,
               x: { label: '|ln(ANEES / n)|', domain: [0, maxD * 1.05] },
-              y: { label: 'landing success', domain: [0, 1], format: (v) => formatPercent(v) },
+              // A little headroom above 100 % so marks there are not cut by the frame.
+              y: { label: 'landing success', domain: [0, 1.05], format: (v) => formatPercent(v) },
               layers: [
                 { kind: 'errorbars', x: shown.map((s) => s.neesDistance!), low: shown.map((s) => s.summary.wilsonLow), high: shown.map((s) => s.summary.wilsonHigh), color: MUTED },
                 { kind: 'points', x: shown.map((s) => s.neesDistance!), y: shown.map((s) => s.summary.successRate), color: SERIES[7], radius: 3, label: 'setting', titles: titles(shown) },

@@ -1,9 +1,11 @@
 // Study sizes are refused before any work, with the limit named (a huge sweep once crashed V8
 // with a native stack trace); more workers than cores are capped with a note.
 import { availableParallelism } from 'node:os';
-import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { appendFileSync, cpSync, existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
+import { MAX_SCENARIO_BYTES } from '../../estimator/io/loadScenario.js';
+import { MAX_LINE_CHARS } from '../../estimator/io/log/LogStreamReader.js';
 import { afterAll, describe, expect, it } from 'vitest';
 import { main } from '../../estimator/cli/main.js';
 import { MAX_POINTS, MAX_TRIALS_PER_FILE, MAX_TRIALS_PER_POINT } from '../../estimator/study/studyLimits.js';
@@ -48,6 +50,19 @@ describe('study limits', () => {
       expect(r.code).toBe(2);
       expect(r.err).toBe(`alight ${argv[0]}: --trials expects an integer from 1 to ${MAX_TRIALS_PER_POINT}, got "${over}"\n`);
     }
+  });
+
+  it('a log CSV line of megabytes without a line end is refused naming file and line; an oversized scenario file too', async () => {
+    cpSync(resolve('data-demo/logs/harbour-boat'), join(dir, 'long-line'), { recursive: true });
+    appendFileSync(join(dir, 'long-line', 'attitude.csv'), '1'.repeat(MAX_LINE_CHARS + 10));
+    const lines = readFileSync(join(dir, 'long-line', 'attitude.csv'), 'utf8').split('\n').length;
+    const r = await run('replay', 'long-line');
+    expect(r.code).toBe(2);
+    expect(r.err).toBe(`alight replay: attitude.csv:${lines}: a line of more than ${MAX_LINE_CHARS} characters without a line end: not a CSV of the flight-log layout\n`);
+    writeFileSync(join(dir, 'big.json'), `{"version": 1, "name": "${'x'.repeat(MAX_SCENARIO_BYTES)}"}`);
+    const big = await run('camera', 'big.json');
+    expect(big.code).toBe(2);
+    expect(big.err).toMatch(/^alight camera: big\.json: \d+ bytes is over the limit of 16777216 for a scenario file/);
   });
 
   it('--workers above the core count runs with one worker per core and says so', async () => {

@@ -20,12 +20,17 @@ import { fakeIo } from '../cli/fakeIo.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'alight-fuzz-'));
 const counts: Record<string, number> = {};
+/** The first message seen for each class of bad input, printed with the count (the list the issue asks for). */
+const examples = new Map<string, string>();
+const note = (kind: string, message: string) => {
+  if (!examples.has(kind)) examples.set(kind, message.split('\n')[0]!.slice(0, 200));
+};
 const SEED = 20261204;
 let bundles: Bundles;
 
 afterAll(() => {
   const total = Object.values(counts).reduce((a, b) => a + b, 0);
-  console.log(`fuzz: ${total} malformed inputs (${Object.entries(counts).map(([k, n]) => `${k} ${n}`).join(', ')})`);
+  console.log(`fuzz: ${total} malformed inputs (${Object.entries(counts).map(([k, n]) => `${k} ${n}`).join(', ')})\n${[...examples].map(([k, m]) => `  ${k}: ${m}`).join('\n')}`);
   rmSync(dir, { recursive: true, force: true });
   if (bundles) rmSync(bundles.dir, { recursive: true, force: true });
 });
@@ -104,6 +109,7 @@ describe('fuzz: malformed inputs are refused with file:line, never a crash or a 
         writeFileSync(file, text);
         const r = await run('camera', 'bad.scenario.json');
         expectRefusal(r, 'camera', /bad\.scenario\.json:\d+/, `${kind}:\n${text.slice(0, 300)}`);
+        note(`scenario, ${kind}`, r.err);
         expect(readFileSync(file, 'utf8')).toBe(text);
       }),
       { seed: SEED, numRuns: 200 },
@@ -143,13 +149,16 @@ describe('fuzz: malformed inputs are refused with file:line, never a crash or a 
         expect(readFileSync(join(folder, file), 'utf8')).toBe(text);
         if (r.code === 2) {
           expectRefusal(r, 'replay', new RegExp(`${file.replace('.', '\\.')}(:\\d+)?`), label);
+          note(`log ${file}, ${kind} (refused)`, r.err);
           return;
         }
         // Not refused: the row must be skipped and reported with its file and line (exit 0).
         expect(r.code, `${label}\n${r.err}`).toBe(0);
         const report = JSON.parse(r.out) as { problems: { total: number; shown: { file: string; line: number }[] } };
         expect(report.problems.total, label).toBeGreaterThanOrEqual(1);
-        expect(report.problems.shown.some((p) => p.file === file && p.line === target + 1), label).toBe(true);
+        const shown = report.problems.shown.find((p) => p.file === file && p.line === target + 1);
+        expect(shown, label).toBeDefined();
+        note(`log ${file.replace(/\.csv$/, '')} row, ${kind} (skipped, reported)`, `${shown!.file}:${shown!.line} ${(shown as { column?: string }).column ?? ''}: ${(shown as { message?: string }).message ?? ''}`);
       }),
       { seed: SEED, numRuns: 100 },
     );
@@ -171,7 +180,9 @@ describe('fuzz: malformed inputs are refused with file:line, never a crash or a 
         rmSync(folder, { recursive: true, force: true });
         cpSync(join(dir, 'log'), folder, { recursive: true });
         writeFileSync(join(folder, 'camera.json'), text);
-        expectRefusal(await run('replay', 'camera-log'), 'replay', /camera\.json:\d+/, text.slice(0, 200));
+        const r = await run('replay', 'camera-log');
+        expectRefusal(r, 'replay', /camera\.json:\d+/, text.slice(0, 200));
+        note(`camera.json, ${/not valid JSON: (\w+ \w+)/.exec(r.err)?.[1] ?? 'bad field'}`, r.err);
       }),
       { seed: SEED, numRuns: 40 },
     );
@@ -198,6 +209,7 @@ describe('fuzz: malformed inputs are refused with file:line, never a crash or a 
         writeFileSync(join(dir, 'bad.jsonl'), t);
         const r = await run('summarize', 'bad.jsonl');
         expectRefusal(r, 'summarize', /bad\.jsonl:\d+/, `${kind}:\n${t.slice(-300)}`);
+        note(`results, ${kind}`, r.err.split('\n').find((l) => /bad\.jsonl:\d+/.test(l)) ?? r.err);
         expect(readFileSync(join(dir, 'bad.jsonl'), 'utf8')).toBe(t);
       }),
       { seed: SEED, numRuns: 120 },
@@ -226,6 +238,8 @@ describe('fuzz: malformed inputs are refused with file:line, never a crash or a 
           error = e;
         }
         expect(error, text.slice(0, 200)).toBeInstanceOf(AnalysisError);
+        const message = (error as Error).message;
+        note(`analysis, ${/not valid JSON: (\w+ \w+)/.exec(message)?.[1] ?? /field "(\w+)"|(parameters)\.|(detector)\./.exec(message)?.slice(1).find(Boolean) ?? 'field'}`, message);
         for (const p of (error as AnalysisError).problems) expect(p).toMatch(/^a\.json:\d+/);
       }),
       { seed: SEED, numRuns: 80 },
@@ -260,6 +274,7 @@ describe('fuzz: malformed inputs are refused with file:line, never a crash or a 
           error = e;
         }
         expect(error instanceof PermalinkError || error instanceof AnalysisError, `${fragment.slice(0, 80)}: ${String(error)}`).toBe(true);
+        note(`permalink, ${error instanceof PermalinkError ? (error.message.includes('UTF-8') ? 'not UTF-8' : error.message.includes('whole bytes') ? 'cut' : 'bad character') : 'malformed analysis'}`, `${(error as Error).name}: ${(error as Error).message}`);
         if (error instanceof AnalysisError) for (const p of error.problems) expect(p).toMatch(/^the link:\d+/);
       }),
       { seed: SEED, numRuns: 60 },

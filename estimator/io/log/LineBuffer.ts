@@ -39,6 +39,11 @@ export class LineBuffer {
     return undefined;
   }
 
+  /** Characters of a line still waiting for its end (chunk input); bounded by the reader. */
+  get pendingLength(): number {
+    return this.carry.length;
+  }
+
   /** Pull the next line or chunk from the source into the buffer. */
   async fill(): Promise<void> {
     if (this.done) return;

@@ -10,6 +10,9 @@ import { LineBuffer } from './LineBuffer.js';
 /** Boxes with the same arrival time remembered for duplicate detection (frames rarely carry more). */
 const SAME_TIME_MEMORY = 32;
 
+/** Longest line a log CSV may have (characters). */
+export const MAX_LINE_CHARS = 1 << 20;
+
 export class LogStreamReader {
   readonly spec: StreamSpec;
   /** Seconds added to every time of this stream to bring it onto the log's common clock. */
@@ -130,8 +133,13 @@ export class LogStreamReader {
   }
 
   /** Pull more text from the source (see step()). */
-  fill(): Promise<void> {
-    return this.lines.fill();
+  async fill(): Promise<void> {
+    await this.lines.fill();
+    // A log row is under 200 characters; megabytes without a line end are not a CSV of this
+    // layout, and holding them would grow without bound.
+    if (this.lines.pendingLength > MAX_LINE_CHARS) {
+      throw new LogLayoutError(this.file, this.lines.line + 1, null, `a line of more than ${MAX_LINE_CHARS} characters without a line end: not a CSV of the flight-log layout`);
+    }
   }
 
   private finish(): number {

@@ -6,7 +6,7 @@
 // variables Slurm would set. JSON blocks that are analysis files or camera.json are parsed by
 // the same code the commands use.
 //
-// Sizes only are reduced, so the examples stay lean on CI's two cores (see leanArgs in
+// Sizes only are reduced (and one worker thread), so the examples stay lean on CI's two cores (see leanArgs in
 // readmeShim.mjs): trials per point, COUNT of --vary ranges, require's probes, tune's
 // recorded logs, grid and identified terms.
 // Options, files and the order of commands are the README's own.

@@ -22,12 +22,15 @@ function setOption(list, name, value) {
   else list.push(`--${name}`, value);
 }
 
-// Sizes only: trials per point, COUNT of FROM:TO:COUNT ranges, require's probes, tune's
+// Sizes only (and --workers 1 where none is given): trials per point, COUNT of FROM:TO:COUNT ranges, require's probes, tune's
 // recorded logs, grid and identified terms.
 function leanArgs(list) {
   const out = list.map((a) => (/^[\w.]+=[^:]+:[^:]+:\d+$/.test(a) ? a.replace(/:(\d+)$/, (_, n) => `:${Math.min(Number(n), 3)}`) : a));
   const command = out[0];
   const target = out[1] ?? '';
+  // One thread: a worker thread compiles the simulator anew, which costs more than these few trials.
+  const onScenario = command !== 'tune' || target.endsWith('.json');
+  if (['sweep', 'require', 'sensitivity', 'tune'].includes(command) && onScenario && option(out, 'workers') === undefined) setOption(out, 'workers', '1');
   if (command === 'sweep' || command === 'sensitivity') setOption(out, 'trials', String(Math.min(Number(option(out, 'trials') ?? 2), 2)));
   if (command === 'require') {
     setOption(out, 'trials', '40');

@@ -44,6 +44,7 @@ describe('outputs never replace inputs', () => {
     ['summarize --svg onto a link to its input', ['summarize', 'link.jsonl', '--svg', './r.jsonl'], 'r.jsonl'],
     ['summarize --miss-svg onto its input', ['summarize', 'r.jsonl', '--miss-svg', `${dir}/r.jsonl`], 'r.jsonl'],
     ['sweep --out onto its scenario, even with --resume', ['sweep', 'sc.json', '--trials', '1', '--out', 'sc.json', '--resume'], 'sc.json'],
+    ['test-card --html onto its results', ['test-card', 'r.jsonl', '--path', 'detector.pixelNoise', '--up-to', '2', '--rate', '0.9', '--html', './r.jsonl'], 'r.jsonl'],
     ['merge --out onto a shard by another spelling', ['merge', 'r.jsonl', '--out', 'sub/../r.jsonl'], 'r.jsonl'],
     ['require --svg onto its scenario', ['require', 'sc.json', '--param', 'detector.pixelNoise', '--target', '0.9', '--svg', 'sc.json'], 'sc.json'],
     ['sensitivity --svg onto its scenario', ['sensitivity', 'sc.json', '--svg', 'sc.json'], 'sc.json'],
@@ -61,7 +62,7 @@ describe('outputs never replace inputs', () => {
       const { code, out, err } = await run(...argv);
       expect(code, err).toBe(2);
       expect(out).toBe('');
-      expect(err).toMatch(/^alight \w+: (--\w[\w-]* \S+ is an input of this command|.*camera\.json)/);
+      expect(err).toMatch(/^alight [\w-]+: (--\w[\w-]* \S+ is an input of this command|.*camera\.json)/);
       expect(err).not.toMatch(/\bat \w+ \(/);
       expect(readFileSync(join(dir, input))).toEqual(before);
     });

@@ -98,6 +98,9 @@ export function defaultScenario(): Scenario {
     filter: {
       rate: 100,
       cameraUpdate: 'tight',
+      boxModel: 'outline',
+      boxTerms: 'centre-size',
+      headingMinSpeed: 0.5,
       carrierModel: 'constant-velocity',
       carrierAccelNoise: 0.2,
       singerTau: 3,

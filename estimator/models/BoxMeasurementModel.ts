@@ -24,6 +24,8 @@ export class BoxMeasurementModel {
   /** R_wb of the attitude last set, and M = R_cb R_wbᵀ (world -> camera). */
   readonly Rwb = new Float64Array(9);
   readonly Rcw = new Float64Array(9);
+  /** o = R_cb t_b: the camera offset seen from the camera (m), so p_cam = M r - o. */
+  readonly offsetCam = new Float64Array(3);
   /** p_cam of the last evaluation (m). */
   readonly pCam = new Float64Array(3);
   private readonly J = new Float64Array(9);
@@ -36,6 +38,8 @@ export class BoxMeasurementModel {
     this.camera = pinholeCamera(camera); // the one camera shape (PinholeCamera.ts)
     this.Rcb = cameraFromBody(camera.mount);
     this.offset = Float64Array.from(camera.mount.offset);
+    const R = this.Rcb, t = this.offset;
+    for (let i = 0; i < 3; i++) this.offsetCam[i] = R[3 * i]! * t[0]! + R[3 * i + 1]! * t[1]! + R[3 * i + 2]! * t[2]!;
   }
 
   /** Set the attitude q_wb [w, x, y, z] (unit) used by the next evaluations. */

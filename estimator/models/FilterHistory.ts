@@ -15,6 +15,8 @@ export const EVENT_ODOMETRY = 3;
 
 /** Most measurements one IMU step can hold (boxes and odometry at up to this multiple of the IMU rate). */
 export const EVENTS_PER_STEP = 8;
+/** Numbers kept per measurement: a box's centre and size, or centre, width and height; odometry uses 3. */
+export const EVENT_DATA = 4;
 
 export class FilterHistory {
   readonly capacity: number;
@@ -49,7 +51,7 @@ export class FilterHistory {
     this.eventCount = new Int32Array(c);
     this.eventKind = new Int8Array(EVENTS_PER_STEP * c);
     this.eventTime = new Float64Array(EVENTS_PER_STEP * c);
-    this.eventData = new Float64Array(3 * EVENTS_PER_STEP * c);
+    this.eventData = new Float64Array(EVENT_DATA * EVENTS_PER_STEP * c);
   }
 
   /** Number of stored steps. */
@@ -104,7 +106,7 @@ export class FilterHistory {
   }
 
   /** Insert a measurement into a slot, keeping time order. Returns false when the slot is full. */
-  addEvent(slot: number, kind: number, t: number, d0: number, d1: number, d2: number): boolean {
+  addEvent(slot: number, kind: number, t: number, d0: number, d1: number, d2: number, d3 = 0): boolean {
     const count = this.eventCount[slot]!;
     if (count >= EVENTS_PER_STEP) return false;
     const base = slot * EVENTS_PER_STEP;
@@ -112,14 +114,15 @@ export class FilterHistory {
     while (k > 0 && this.eventTime[base + k - 1]! > t) {
       this.eventKind[base + k] = this.eventKind[base + k - 1]!;
       this.eventTime[base + k] = this.eventTime[base + k - 1]!;
-      for (let i = 0; i < 3; i++) this.eventData[3 * (base + k) + i] = this.eventData[3 * (base + k - 1) + i]!;
+      for (let i = 0; i < EVENT_DATA; i++) this.eventData[EVENT_DATA * (base + k) + i] = this.eventData[EVENT_DATA * (base + k - 1) + i]!;
       k--;
     }
     this.eventKind[base + k] = kind;
     this.eventTime[base + k] = t;
-    this.eventData[3 * (base + k)] = d0;
-    this.eventData[3 * (base + k) + 1] = d1;
-    this.eventData[3 * (base + k) + 2] = d2;
+    this.eventData[EVENT_DATA * (base + k)] = d0;
+    this.eventData[EVENT_DATA * (base + k) + 1] = d1;
+    this.eventData[EVENT_DATA * (base + k) + 2] = d2;
+    this.eventData[EVENT_DATA * (base + k) + 3] = d3;
     this.eventCount[slot] = count + 1;
     return true;
   }

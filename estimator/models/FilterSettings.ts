@@ -1,14 +1,30 @@
 // The landing filter's settings: models, noise assumed, gates, tuning multipliers, history.
 // They belong to the filter, not to the simulator: a scenario composes them as its `filter`
 // field, and a flight-log replay builds them without any scenario.
+import type { BoxTerms } from './OutlineBoxModel.js';
+
+export type { BoxTerms };
 
 export type CameraUpdateMode = 'tight' | 'loose';
+/** How the tight update predicts the detector's box: the deck outline seen through the believed camera, or the deck centre's image with a square of sqrt(fx fy) L / Z. */
+export type BoxModel = 'outline' | 'flat';
 export type CarrierModel = 'constant-velocity' | 'singer';
 
 export interface FilterSpec {
   /** Filter (and IMU integration) rate (Hz). */
   rate: number;
   cameraUpdate: CameraUpdateMode;
+  /**
+   * Tight box model (default 'outline'): 'outline' predicts the box of the deck's corners (and
+   * of the body below) through the believed camera at the estimated attitude, with the deck's
+   * heading; 'flat' projects the deck centre with size sqrt(fx fy) L / Z (biased along travel
+   * when the lander tilts; kept to compare).
+   */
+  boxModel?: BoxModel;
+  /** Outline model: measure centre and size sqrt(w h) (3-D, default) or centre, width and height (4-D). */
+  boxTerms?: BoxTerms;
+  /** Outline model: carrier speed (m/s) below which the deck heading is held instead of taken from the velocity estimate (default 0.5). */
+  headingMinSpeed?: number;
   carrierModel: CarrierModel;
   /** Carrier acceleration noise (m/s^2 / sqrt(Hz)) and Singer time constant (s). */
   carrierAccelNoise: number;

@@ -3,6 +3,9 @@
 // divergence bookkeeping on top. Measurements (all 3-dimensional, H non-zero in one 3-column
 // block; see FilterCamera.ts for the camera models):
 //   tight    z = [u, v, s] (px),          H = [∂h/∂r 0 0 0],   R = diag(σp² + (φc h_s)², σp² + (φc h_s)², σs² + (φ h_s)²) · rScale
+//            boxModel 'outline' (OutlineBoxModel.ts): h from the deck outline, H = [∂h/∂r ∂h/∂v_c 0 0]
+//            (v_c sets the deck heading), z = [u, v, s] or [u, v, w, h] (boxTerms); w and h take the
+//            size variance of their own length
 //            (φ = sizeNoiseFraction, φc = pixelNoiseFraction: errors that scale with the box, see Scenario.ts)
 //   loose    z = back-projected r (m),     H = [I 0 0 0],       R = propagated box noise
 //   odometry z = vL (m/s, world),          H = [0 0 I 0],       R = σo² I · rScale
@@ -14,7 +17,10 @@ import { ProcessCoefficientCache, type ProcessNoise } from './ProcessCoefficient
 import { predictLanding } from './predictLanding.js';
 import { landingStateDimension, VL_INDEX } from './landingState.js';
 import type { UpdateStatus } from './UpdateResult.js';
+import { OutlineBoxModel, type DeckOutline } from './OutlineBoxModel.js';
 import { UpdateWorkspace } from '../filter/UpdateWorkspace.js';
+import { innovationCovarianceColumnBlock, updateJosephColumnBlock } from '../filter/columnBlockUpdate.js';
+import { normalizedInnovationSquared } from '../filter/update.js';
 import { innovationCovariance3, normalizedInnovationSquared3, updateJoseph3 } from '../filter/blockUpdate3.js';
 import { allFinite, checkCovariance } from '../filter/checkCovariance.js';
 import { gateThreshold } from '../filter/gate.js';
@@ -29,6 +35,12 @@ export class LandingCore {
   readonly x: Float64Array;
   readonly P: Float64Array;
   readonly model: BoxMeasurementModel;
+  /** The outline box model (boxModel 'outline'), else null (the flat model in `model`). */
+  readonly outline: OutlineBoxModel | null;
+  /** Dimension of the tight box measurement: 3, or 4 with boxTerms 'centre-width-height'. */
+  readonly boxDim: number;
+  /** Dimension of the last apply() that reached S (3 or boxDim). */
+  lastDim = 3;
   readonly noise: ProcessNoise;
   /** Transition and process-noise coefficients per step length. */
   readonly coefficients: ProcessCoefficientCache;
@@ -42,13 +54,6 @@ export class LandingCore {
   /** NIS and reason of the last apply(). */
   lastNis = Number.NaN;
   lastReason: string | null = null;
-  /**
-   * Views onto the workspace: innovation y (3) and its covariance S (3x3 row-major) of the last
-   * apply() that got as far as S (valid when it returned 'accepted' or 'gated'); overwritten by
-   * the next apply(), so LandingFilter copies them.
-   */
-  readonly innovation: Float64Array;
-  readonly innovationCovariance: Float64Array;
   /** Scratch for the loose fix and its covariance (also used by initializeFromBox). */
   readonly fix = new Float64Array(3);
   readonly Rfix = new Float64Array(9);
@@ -60,8 +65,17 @@ export class LandingCore {
   private readonly h = new Float64Array(3);
   private readonly Hb = new Float64Array(9);
   private readonly Rwb = new Float64Array(9);
+  /** Outline update: its own workspace (m = boxDim), h, H over [r, v_c] (m x 6) and R. */
+  private readonly wsOutline: UpdateWorkspace;
+  private readonly hOutline: Float64Array;
+  private readonly Houtline: Float64Array;
+  private readonly Routline: Float64Array;
+  private readonly gateOutline: number;
 
-  constructor(spec: FilterSpec, camera: FilterCamera, targetSize: number) {
+  /**
+   * @param outline the deck outline believed in (m); default a flat square deck of side targetSize
+   */
+  constructor(spec: FilterSpec, camera: FilterCamera, targetSize: number, outline?: DeckOutline) {
     const singer = spec.carrierModel === 'singer';
     this.n = landingStateDimension(singer);
     this.state = new Float64Array(this.n + this.n * this.n);
@@ -72,14 +86,21 @@ export class LandingCore {
     this.noise = { carrierAccelNoise: spec.carrierAccelNoise, singerTau: spec.singerTau, accelNoise: spec.accelNoise, accelBiasWalk: spec.accelBiasWalk, qScale: spec.qScale };
     this.coefficients = new ProcessCoefficientCache(singer, this.noise);
     this.ws = new UpdateWorkspace(this.n, 3);
-    this.innovation = this.ws.y;
-    this.innovationCovariance = this.ws.S;
+    this.lastWorkspace = this.ws;
     this.gate = gateThreshold(spec.gateProbability, 3, spec.gateScale);
     this.varPixel = spec.pixelNoise * spec.pixelNoise * spec.rScale;
     this.varSize = spec.sizeNoise * spec.sizeNoise * spec.rScale;
     this.varSizeFraction = spec.sizeNoiseFraction * spec.sizeNoiseFraction * spec.rScale;
     this.varPixelFraction = spec.pixelNoiseFraction * spec.pixelNoiseFraction * spec.rScale;
     this.Rbox = new Float64Array([this.varPixel, 0, 0, 0, this.varPixel, 0, 0, 0, this.varSize]);
+    const deck = outline ?? { deckLength: targetSize, deckWidth: targetSize, bodyHeight: 0 };
+    this.outline = (spec.boxModel ?? 'outline') === 'outline' ? new OutlineBoxModel(this.model.camera, deck, spec.boxTerms ?? 'centre-size', spec.headingMinSpeed ?? 0.5) : null;
+    this.boxDim = this.outline ? this.outline.m : 3;
+    this.wsOutline = new UpdateWorkspace(this.n, this.boxDim);
+    this.hOutline = new Float64Array(this.boxDim);
+    this.Houtline = new Float64Array(6 * this.boxDim);
+    this.Routline = new Float64Array(this.boxDim * this.boxDim);
+    this.gateOutline = gateThreshold(spec.gateProbability, this.boxDim, spec.gateScale);
     const varOdometry = spec.odometryNoise * spec.odometryNoise * spec.rScale;
     this.Rodometry = new Float64Array([varOdometry, 0, 0, 0, varOdometry, 0, 0, 0, varOdometry]);
   }
@@ -104,10 +125,17 @@ export class LandingCore {
    * Returns 'diverged' with lastReason = the event when P turns out broken; x and P are then
    * left for the caller to restore.
    */
-  apply(kind: number, q: Float64Array, d0: number, d1: number, d2: number, useGate: boolean): UpdateStatus {
+  apply(kind: number, q: Float64Array, d0: number, d1: number, d2: number, d3: number, useGate: boolean): UpdateStatus {
     const ws = this.ws, x = this.x, y = ws.y;
     this.lastNis = Number.NaN;
     this.lastReason = null;
+    this.lastDim = 3;
+    this.lastWorkspace = ws;
+    if (kind === EVENT_TIGHT && this.outline) {
+      if (!Number.isFinite(q[0]!)) return this.fail('attitude-unknown');
+      this.model.setAttitude(q);
+      return this.applyOutline(d0, d1, d2, d3, useGate);
+    }
     let col = 0;
     let R: Float64Array = this.Rbox;
     let Hb: Float64Array = this.Hb;
@@ -155,6 +183,58 @@ export class LandingCore {
       return 'gated';
     }
     if (!updateJoseph3(this.x, this.P, this.n, ws)) {
+      this.lastReason = this.nonFiniteEvent();
+      return 'diverged';
+    }
+    return 'accepted';
+  }
+
+  /** y and S of the last apply() that reached S: views of lastDim and lastDim² numbers. */
+  get lastInnovation(): Float64Array {
+    return this.lastWorkspace.y;
+  }
+
+  get lastInnovationCovariance(): Float64Array {
+    return this.lastWorkspace.S;
+  }
+
+  private lastWorkspace: UpdateWorkspace;
+
+  /** The tight update with the outline model; z = (d0, d1, d2) or (d0, d1, d2, d3). */
+  private applyOutline(d0: number, d1: number, d2: number, d3: number, useGate: boolean): UpdateStatus {
+    const outline = this.outline!, ws = this.wsOutline, m = this.boxDim, h = this.hOutline, R = this.Routline;
+    this.lastWorkspace = ws;
+    this.lastDim = m;
+    if (!outline.evaluate(this.x, this.model.Rcw, this.model.offsetCam, this.model.Rwb, h, this.Houtline)) return this.fail('target-behind-camera');
+    const y = ws.y;
+    y[0] = d0 - h[0]!;
+    y[1] = d1 - h[1]!;
+    y[2] = d2 - h[2]!;
+    // R = diag(centre, centre, size of s) or diag(centre, centre, size of w, size of h); the
+    // centre term scales with the box size s = sqrt(w h)
+    const size = m === 4 ? Math.sqrt(h[2]! * h[3]!) : h[2]!;
+    R.fill(0);
+    R[0] = R[m + 1] = this.centreVariance(size);
+    R[2 * m + 2] = this.sizeVariance(h[2]!);
+    if (m === 4) {
+      y[3] = d3 - h[3]!;
+      R[15] = this.sizeVariance(h[3]!);
+    }
+    if (!innovationCovarianceColumnBlock(this.P, this.Houtline, 0, 6, R, this.n, m, ws)) {
+      const event = checkCovariance(this.x, this.P, this.n, this.check);
+      if (event) {
+        this.lastReason = event;
+        return 'diverged';
+      }
+      return this.fail('innovation-covariance-not-positive-definite');
+    }
+    this.lastNis = normalizedInnovationSquared(ws, m);
+    if (useGate && this.lastNis > this.gateOutline) {
+      this.lastReason = 'outside-gate';
+      return 'gated';
+    }
+    updateJosephColumnBlock(this.x, this.P, this.n, m, ws);
+    if (!allFinite(this.state, this.state.length)) {
       this.lastReason = this.nonFiniteEvent();
       return 'diverged';
     }

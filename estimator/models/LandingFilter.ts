@@ -11,7 +11,8 @@
 import type { FilterSpec } from './FilterSettings.js';
 import { type Box, boxProblem } from '../camera/Box.js';
 import type { FilterCamera } from './FilterCamera.js';
-import { FilterHistory, EVENT_LOOSE, EVENT_ODOMETRY, EVENT_TIGHT, EVENTS_PER_STEP } from './FilterHistory.js';
+import { FilterHistory, EVENT_DATA, EVENT_LOOSE, EVENT_ODOMETRY, EVENT_TIGHT, EVENTS_PER_STEP } from './FilterHistory.js';
+import type { DeckOutline } from './OutlineBoxModel.js';
 import { LandingCore } from './LandingCore.js';
 import { rejected, type InitialSigma, type UpdateResult, type UpdateStatus } from './UpdateResult.js';
 import { validateFilterSpec } from './validateFilterSpec.js';
@@ -35,15 +36,16 @@ export class LandingFilter {
   readonly x: Float64Array;
   readonly P: Float64Array;
   /**
-   * The last box or odometry update's innovation y = z - h(x) (3) and its covariance
-   * S = H P Hᵀ + R (3x3 row-major), at the measurement's own time (a delayed box: its capture
-   * time, before the re-propagation to now). Valid when that update returned 'accepted' or
-   * 'gated' (lastUpdateDim = 3); NaN with lastUpdateDim = 0 after any other outcome. Units:
-   * tight box (u, v, s) px and px²; loose box the back-projected r (ENU, m) and m²; odometry
-   * vL (ENU, m/s) and (m/s)². Read-only views, overwritten by the next update: copy to keep.
+   * The last box or odometry update's innovation y = z - h(x) (its first lastUpdateDim
+   * numbers) and its covariance S = H P Hᵀ + R (lastUpdateDim² numbers, row-major), at the
+   * measurement's own time (a delayed box: its capture time, before the re-propagation to now).
+   * Valid when that update returned 'accepted' or 'gated' (lastUpdateDim = 3, or 4 for a tight
+   * box with boxTerms 'centre-width-height'); NaN with lastUpdateDim = 0 after any other outcome.
+   * Units: tight box (u, v, s) or (u, v, w, h) px and px²; loose box the back-projected r (ENU,
+   * m) and m²; odometry vL (ENU, m/s) and (m/s)². Read-only, overwritten by the next update.
    */
-  readonly lastInnovation = new Float64Array(3).fill(Number.NaN);
-  readonly lastInnovationCovariance = new Float64Array(9).fill(Number.NaN);
+  readonly lastInnovation = new Float64Array(4).fill(Number.NaN);
+  readonly lastInnovationCovariance = new Float64Array(16).fill(Number.NaN);
   private innovationDim = 0;
   private clock = Number.NaN;
   private divergence: string | null = null;
@@ -64,11 +66,13 @@ export class LandingFilter {
   /**
    * @param spec filter settings (validated here: FilterSpecError names the bad field)
    * @param camera the camera as the filter believes it (intrinsics, distortion, mount)
-   * @param targetSize L = sqrt(target area) assumed by the box-size model (m)
+   * @param targetSize L = sqrt(target area) assumed by the flat box model and the loose fix (m)
+   * @param outline the deck outline assumed by the outline box model (m); default a flat
+   *   square deck of side targetSize (a flight log that gives only the target size)
    */
-  constructor(readonly spec: FilterSpec, camera: FilterCamera, targetSize: number) {
+  constructor(readonly spec: FilterSpec, camera: FilterCamera, targetSize: number, outline?: DeckOutline) {
     validateFilterSpec(spec);
-    this.core = new LandingCore(spec, camera, targetSize);
+    this.core = new LandingCore(spec, camera, targetSize, outline);
     this.n = this.core.n;
     this.x = this.core.x;
     this.P = this.core.P;
@@ -82,7 +86,12 @@ export class LandingFilter {
     return this.clock;
   }
 
-  /** Dimension of lastInnovation: 3 after an accepted or gated update, else 0. */
+  /** Dimension of the tight box measurement: 3 (centre, size) or 4 (centre, width, height). */
+  get boxDim(): number {
+    return this.core.boxDim;
+  }
+
+  /** Dimension of lastInnovation: 3 (or 4) after an accepted or gated update, else 0. */
   get lastUpdateDim(): number {
     return this.innovationDim;
   }
@@ -164,8 +173,10 @@ export class LandingFilter {
     this.clearInnovation();
     const problem = boxProblem(box, this.core.model.camera.width, this.core.model.camera.height);
     if (problem) return rejected(problem, 3);
-    const u = (box.xMin + box.xMax) / 2, v = (box.yMin + box.yMax) / 2, s = Math.sqrt((box.xMax - box.xMin) * (box.yMax - box.yMin));
-    return this.measure(this.loose ? EVENT_LOOSE : EVENT_TIGHT, captureTime, u, v, s);
+    const u = (box.xMin + box.xMax) / 2, v = (box.yMin + box.yMax) / 2;
+    if (!this.loose && this.core.boxDim === 4) return this.measure(EVENT_TIGHT, captureTime, u, v, box.xMax - box.xMin, box.yMax - box.yMin);
+    const s = Math.sqrt((box.xMax - box.xMin) * (box.yMax - box.yMin));
+    return this.measure(this.loose ? EVENT_LOOSE : EVENT_TIGHT, captureTime, u, v, s, 0);
   }
 
   /** Lander velocity in world ENU (m/s) at time t (odometry / VIO / GNSS). */
@@ -173,10 +184,10 @@ export class LandingFilter {
     this.clearInnovation();
     const v0 = velocityWorld[0]!, v1 = velocityWorld[1]!, v2 = velocityWorld[2]!;
     if (!Number.isFinite(v0) || !Number.isFinite(v1) || !Number.isFinite(v2)) return rejected('odometry-not-finite', 3);
-    return this.measure(EVENT_ODOMETRY, t, v0, v1, v2);
+    return this.measure(EVENT_ODOMETRY, t, v0, v1, v2, 0);
   }
 
-  private measure(kind: number, t: number, d0: number, d1: number, d2: number): UpdateResult {
+  private measure(kind: number, t: number, d0: number, d1: number, d2: number, d3: number): UpdateResult {
     if (this.divergence) return this.divergedResult();
     if (!this.initialized) return rejected('not-initialized', 3);
     if (!Number.isFinite(t)) return rejected('time-not-finite', 3);
@@ -185,7 +196,7 @@ export class LandingFilter {
     const head = history.slot(0);
     if (t >= this.clock - TIME_EPSILON) {
       if (history.isFull(head)) return rejected('too-many-updates-per-step', 3);
-      const status = this.apply(kind, head, head, this.clock, d0, d1, d2, true);
+      const status = this.apply(kind, head, head, this.clock, d0, d1, d2, d3, true);
       this.keepInnovation(status);
       if (status === 'diverged') return this.diverge(this.core.lastReason ?? 'covariance-not-positive-definite', head);
       if (status !== 'accepted') return this.result(status);
@@ -194,11 +205,11 @@ export class LandingFilter {
         const event = checkCovariance(this.x, this.P, this.n, this.core.check);
         if (event) return this.diverge(event, head);
       }
-      history.addEvent(head, kind, this.clock, d0, d1, d2);
+      history.addEvent(head, kind, this.clock, d0, d1, d2, d3);
       history.save(head, this.state);
       return this.result(status);
     }
-    return this.measureDelayed(kind, t, d0, d1, d2);
+    return this.measureDelayed(kind, t, d0, d1, d2, d3);
   }
 
   /**
@@ -207,7 +218,7 @@ export class LandingFilter {
    * delayed boxes. The newest step is overwritten only after the full check of P, so a
    * divergence restores the last good step.
    */
-  private measureDelayed(kind: number, t: number, d0: number, d1: number, d2: number): UpdateResult {
+  private measureDelayed(kind: number, t: number, d0: number, d1: number, d2: number, d3: number): UpdateResult {
     const history = this.history;
     const age = history.ageAtOrBefore(t);
     if (age < 1) return rejected('older-than-history', 3);
@@ -221,7 +232,7 @@ export class LandingFilter {
     let k = 0;
     for (; k < count && history.eventTime[base + k]! <= t; k++) tau = this.replayEvent(from, to, base + k, tau);
     this.stepWithSlotInput(t - tau, to);
-    const status = this.apply(kind, from, to, t, d0, d1, d2, true);
+    const status = this.apply(kind, from, to, t, d0, d1, d2, d3, true);
     this.keepInnovation(status); // before the replay of younger measurements overwrites the core's
     const nis = this.core.lastNis, reason = this.core.lastReason;
     if (status === 'diverged') return this.diverge(reason ?? 'covariance-not-positive-definite', head);
@@ -229,7 +240,7 @@ export class LandingFilter {
       history.restore(head, this.state);
       return this.result(status);
     }
-    history.addEvent(to, kind, t, d0, d1, d2);
+    history.addEvent(to, kind, t, d0, d1, d2, d3);
     tau = t;
     for (k = k + 1; k < count + 1; k++) tau = this.replayEvent(from, to, base + k, tau);
     this.stepWithSlotInput(history.time[to]! - tau, to);
@@ -260,7 +271,8 @@ export class LandingFilter {
     const h = this.history;
     const te = h.eventTime[index]!;
     this.stepWithSlotInput(te - tau, slot);
-    const status = this.apply(h.eventKind[index]!, previous, slot, te, h.eventData[3 * index]!, h.eventData[3 * index + 1]!, h.eventData[3 * index + 2]!, false);
+    const d = EVENT_DATA * index;
+    const status = this.apply(h.eventKind[index]!, previous, slot, te, h.eventData[d]!, h.eventData[d + 1]!, h.eventData[d + 2]!, h.eventData[d + 3]!, false);
     if (status === 'diverged') this.replayBroken = true;
     return te;
   }
@@ -283,7 +295,7 @@ export class LandingFilter {
    * newer step's attitude instead put the tilt change of one IMU step (several degrees while
    * the lander manoeuvres) into the box innovation: ±8 px tails at fx = 320 on the default scenario.
    */
-  private apply(kind: number, previous: number, slot: number, t: number, d0: number, d1: number, d2: number, useGate: boolean): UpdateStatus {
+  private apply(kind: number, previous: number, slot: number, t: number, d0: number, d1: number, d2: number, d3: number, useGate: boolean): UpdateStatus {
     const q = this.replayAttitude, A = this.history.attitude;
     const t0 = this.history.time[previous]!, t1 = this.history.time[slot]!;
     const a = previous === slot || !(t1 > t0) || !Number.isFinite(A[4 * previous]!) ? 1 : Math.min(1, Math.max(0, (t - t0) / (t1 - t0)));
@@ -298,11 +310,11 @@ export class LandingFilter {
     }
     norm = Math.sqrt(norm);
     if (norm > 0) for (let i = 0; i < 4; i++) q[i] = q[i]! / norm;
-    return this.core.apply(kind, q, d0, d1, d2, useGate);
+    return this.core.apply(kind, q, d0, d1, d2, d3, useGate);
   }
 
   private result(status: UpdateStatus): UpdateResult {
-    return { status, nis: status === 'accepted' || status === 'gated' ? this.core.lastNis : Number.NaN, dim: 3, reason: this.core.lastReason };
+    return { status, nis: status === 'accepted' || status === 'gated' ? this.core.lastNis : Number.NaN, dim: this.core.lastDim, reason: this.core.lastReason };
   }
 
   private diverge(event: string, goodSlot: number): UpdateResult {
@@ -319,9 +331,13 @@ export class LandingFilter {
   /** Copy the core's y and S after an update that got as far as S (accepted or gated). */
   private keepInnovation(status: UpdateStatus): void {
     if (status !== 'accepted' && status !== 'gated') return;
-    this.lastInnovation.set(this.core.innovation);
-    this.lastInnovationCovariance.set(this.core.innovationCovariance);
-    this.innovationDim = 3;
+    const m = this.core.lastDim;
+    this.lastInnovation.fill(Number.NaN);
+    this.lastInnovationCovariance.fill(Number.NaN);
+    const y = this.core.lastInnovation, S = this.core.lastInnovationCovariance;
+    for (let i = 0; i < m; i++) this.lastInnovation[i] = y[i]!;
+    for (let i = 0; i < m * m; i++) this.lastInnovationCovariance[i] = S[i]!;
+    this.innovationDim = m;
   }
 
   private clearInnovation(): void {
@@ -345,6 +361,7 @@ export class LandingFilter {
     this.updatesSinceCheck = 0;
     const { coefficients, noise } = this.core;
     coefficients.clear();
+    this.core.outline?.reset();
     if (this.n === 15) {
       const tau = noise.singerTau, sigma = noise.carrierAccelNoise;
       this.setDiagonal(12, Math.max((sigma * sigma * noise.qScale) / (2 * tau), 1e-12));

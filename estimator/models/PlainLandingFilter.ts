@@ -7,6 +7,7 @@ import type { FilterSpec } from './FilterSettings.js';
 import { type Box, boxProblem } from '../camera/Box.js';
 import { boxMeasurement, boxMeasurementJacobian } from '../camera/boxGeometry.js';
 import { BoxMeasurementModel } from './BoxMeasurementModel.js';
+import { OutlineBoxModel, type DeckOutline } from './OutlineBoxModel.js';
 import type { FilterCamera } from './FilterCamera.js';
 import { emptyProcessCoefficients, processCoefficients, type ProcessCoefficients } from './ProcessCoefficients.js';
 import { landingStateDimension, STANDARD_GRAVITY } from './landingState.js';
@@ -33,18 +34,25 @@ export class PlainLandingFilter {
   private readonly coefficients: ProcessCoefficients;
   private readonly model: BoxMeasurementModel;
   private readonly gate: number;
+  private readonly gateOutline: number;
   private readonly Rbox: Matrix;
   private readonly Rodometry: Matrix;
   private readonly attitude = new Float64Array(4);
 
-  constructor(readonly spec: FilterSpec, camera: FilterCamera, readonly targetSize: number) {
+  /** The outline box model (shared with LandingFilter: checked on its own against finite differences and the simulator's outline), or null for the flat model. */
+  private readonly outline: OutlineBoxModel | null;
+
+  constructor(readonly spec: FilterSpec, camera: FilterCamera, readonly targetSize: number, outline?: DeckOutline) {
     validateFilterSpec(spec);
     this.n = landingStateDimension(spec.carrierModel === 'singer');
     this.x = Matrix.zeros(this.n, 1);
     this.P = Matrix.zeros(this.n, this.n);
     this.coefficients = emptyProcessCoefficients(spec.carrierModel === 'singer');
     this.model = new BoxMeasurementModel(camera, targetSize);
+    const deck = outline ?? { deckLength: targetSize, deckWidth: targetSize, bodyHeight: 0 };
+    this.outline = (spec.boxModel ?? 'outline') === 'outline' ? new OutlineBoxModel(this.model.camera, deck, spec.boxTerms ?? 'centre-size', spec.headingMinSpeed ?? 0.5) : null;
     this.gate = gateThreshold(spec.gateProbability, 3, spec.gateScale);
+    this.gateOutline = gateThreshold(spec.gateProbability, this.outline ? this.outline.m : 3, spec.gateScale);
     const vp = spec.pixelNoise ** 2 * spec.rScale, vs = spec.sizeNoise ** 2 * spec.rScale, vo = spec.odometryNoise ** 2 * spec.rScale;
     this.Rbox = Matrix.diag([vp, vp, vs]);
     this.Rodometry = Matrix.diag([vo, vo, vo]);
@@ -129,6 +137,7 @@ export class PlainLandingFilter {
     const Rwb = new Matrix([...Array(3)].map((_, i) => Array.from(rotationMatrixFromQuat(this.attitude).slice(3 * i, 3 * i + 3))));
     const Rcb = new Matrix([...Array(3)].map((_, i) => Array.from(this.model.Rcb.slice(3 * i, 3 * i + 3))));
     const H = Matrix.zeros(3, n);
+    if (this.spec.cameraUpdate === 'tight' && this.outline) return this.updateOutline(box);
     if (this.spec.cameraUpdate === 'tight') {
       // p_cam = R_cb (R_wbᵀ r - t_b);  h = boxMeasurement(p_cam);  H_r = J R_cb R_wbᵀ
       const r = this.x.subMatrix(0, 2, 0, 0);
@@ -155,6 +164,24 @@ export class PlainLandingFilter {
     return this.update(y, H, new Matrix([Array.from(Rfix.slice(0, 3)), Array.from(Rfix.slice(3, 6)), Array.from(Rfix.slice(6, 9))]));
   }
 
+  /** Tight update with the outline model: h and H over [r, v_c] from OutlineBoxModel, the rest dense. */
+  private updateOutline(box: Box): UpdateResult {
+    const outline = this.outline!, m = outline.m;
+    this.model.setAttitude(this.attitude);
+    const h = new Float64Array(m), Hb = new Float64Array(6 * m);
+    if (!outline.evaluate(this.x.to1DArray(), this.model.Rcw, this.model.offsetCam, this.model.Rwb, h, Hb)) return { status: 'rejected', nis: Number.NaN, dim: m, reason: 'target-behind-camera' };
+    const w = box.xMax - box.xMin, hgt = box.yMax - box.yMin;
+    const z = m === 4 ? [(box.xMin + box.xMax) / 2, (box.yMin + box.yMax) / 2, w, hgt] : [(box.xMin + box.xMax) / 2, (box.yMin + box.yMax) / 2, Math.sqrt(w * hgt)];
+    const H = Matrix.zeros(m, this.n);
+    for (let i = 0; i < m; i++) for (let j = 0; j < 6; j++) H.set(i, j, Hb[6 * i + j]!);
+    const size = m === 4 ? Math.sqrt(h[2]! * h[3]!) : h[2]!;
+    const { pixelNoise, sizeNoise, pixelNoiseFraction, sizeNoiseFraction, rScale } = this.spec;
+    const centre = (pixelNoise ** 2 + pixelNoiseFraction ** 2 * size ** 2) * rScale;
+    const sizeVar = (v: number): number => (sizeNoise ** 2 + sizeNoiseFraction ** 2 * v ** 2) * rScale;
+    const R = Matrix.diag(m === 4 ? [centre, centre, sizeVar(h[2]!), sizeVar(h[3]!)] : [centre, centre, sizeVar(h[2]!)]);
+    return this.update(Matrix.columnVector(z.map((zi, i) => zi - h[i]!)), H, R, this.gateOutline);
+  }
+
   updateOdometry(t: number, velocityWorld: ArrayLike<number>): UpdateResult {
     if (Math.abs(t - this.time) > 1e-9) return { status: 'rejected', nis: Number.NaN, dim: 3, reason: 'plain-filter-has-no-history' };
     const H = Matrix.zeros(3, this.n);
@@ -164,19 +191,20 @@ export class PlainLandingFilter {
   }
 
   /** S = H P Hᵀ + R, K = P Hᵀ S⁻¹, gate on NIS, x += K y, P = (I - K H) P (I - K H)ᵀ + K R Kᵀ. */
-  private update(y: Matrix, H: Matrix, R: Matrix): UpdateResult {
+  private update(y: Matrix, H: Matrix, R: Matrix, gate = this.gate): UpdateResult {
+    const dim = y.rows;
     const S = H.mmul(this.P).mmul(H.transpose()).add(R);
     this.lastInnovation = y;
     this.lastInnovationCovariance = S;
     const Sinv = inverse(S);
     const nis = y.transpose().mmul(Sinv).mmul(y).get(0, 0);
-    if (nis > this.gate) return { status: 'gated', nis, dim: 3, reason: 'outside-gate' };
+    if (nis > gate) return { status: 'gated', nis, dim, reason: 'outside-gate' };
     const K = this.P.mmul(H.transpose()).mmul(Sinv);
     this.x = this.x.add(K.mmul(y));
     const A = Matrix.eye(this.n, this.n).sub(K.mmul(H));
     this.P = A.mmul(this.P).mmul(A.transpose()).add(K.mmul(R).mmul(K.transpose()));
     this.symmetrize();
-    return { status: 'accepted', nis, dim: 3, reason: null };
+    return { status: 'accepted', nis, dim, reason: null };
   }
 
   private symmetrize(): void {

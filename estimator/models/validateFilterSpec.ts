@@ -10,7 +10,7 @@ export class FilterSpecError extends Error {
   }
 }
 
-type NumericKey = { [K in keyof FilterSpec]: FilterSpec[K] extends number ? K : never }[keyof FilterSpec];
+type NumericKey = { [K in keyof FilterSpec]-?: FilterSpec[K] extends number ? K : never }[keyof FilterSpec];
 
 const POSITIVE: readonly NumericKey[] = ['rate', 'qScale', 'rScale', 'gateScale'];
 const POSITIVE_R: readonly NumericKey[] = ['pixelNoise', 'sizeNoise', 'odometryNoise'];
@@ -29,5 +29,8 @@ export function validateFilterSpec(spec: FilterSpec): void {
   if (!(spec.gateProbability > 0 && spec.gateProbability < 1)) throw new FilterSpecError('filter.gateProbability', `must be in (0, 1), got ${spec.gateProbability}`);
   if (spec.cameraUpdate !== 'tight' && spec.cameraUpdate !== 'loose') throw new FilterSpecError('filter.cameraUpdate', `must be "tight" or "loose", got ${String(spec.cameraUpdate)}`);
   if (spec.carrierModel !== 'constant-velocity' && spec.carrierModel !== 'singer') throw new FilterSpecError('filter.carrierModel', `must be "constant-velocity" or "singer", got ${String(spec.carrierModel)}`);
+  if (spec.boxModel !== undefined && spec.boxModel !== 'outline' && spec.boxModel !== 'flat') throw new FilterSpecError('filter.boxModel', `must be "outline" or "flat", got ${String(spec.boxModel)}`);
+  if (spec.boxTerms !== undefined && spec.boxTerms !== 'centre-size' && spec.boxTerms !== 'centre-width-height') throw new FilterSpecError('filter.boxTerms', `must be "centre-size" or "centre-width-height", got ${String(spec.boxTerms)}`);
+  if (spec.headingMinSpeed !== undefined && (!(spec.headingMinSpeed >= 0) || !Number.isFinite(spec.headingMinSpeed))) throw new FilterSpecError('filter.headingMinSpeed', `must be a non-negative number of m/s, got ${spec.headingMinSpeed}`);
   if (spec.carrierModel === 'singer' && (!(spec.singerTau > 0) || !Number.isFinite(spec.singerTau))) throw new FilterSpecError('filter.singerTau', `must be a positive number of seconds for the Singer model, got ${spec.singerTau}`);
 }

@@ -89,7 +89,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   const guidance = createGuidance(scenario.guidance, landerSpec, dt);
   const believed = errors.believedCamera(scenario.camera);
   const targetSize = errors.believedTargetSize(carrierSpec);
-  const filter = new LandingFilter(filterSpec, believed, targetSize);
+  const filter = new LandingFilter(filterSpec, believed, targetSize, errors.believedOutline(carrierSpec));
   const blind = blindHeight(believed, carrierSpec.deckLength, carrierSpec.deckWidth, detectorSpec.edgeMargin);
   // blind when the predicted outline leaves the image (the fixed figure `blind` only marks the attribution log)
   const supervisor = new LandingSupervisor(scenario.guidance, landerSpec, guidance);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { EVENTS_PER_STEP, FilterHistory } from '../../estimator/models/FilterHistory.js';
+import { EVENT_DATA, EVENTS_PER_STEP, FilterHistory } from '../../estimator/models/FilterHistory.js';
 import { quatFromEulerDeg } from '../../estimator/frames/quatFromEulerDeg.js';
 import { rotationMatrixFromQuat } from '../../estimator/frames/rotationMatrixFromQuat.js';
 
@@ -24,7 +24,7 @@ describe('FilterHistory', () => {
     expect(h.addEvent(slot, 1, 0.98, 1, 2, 3)).toBe(true);
     expect(h.addEvent(slot, 3, 0.95, 4, 5, 6)).toBe(true);
     expect(Array.from(h.eventTime.slice(slot * EVENTS_PER_STEP, slot * EVENTS_PER_STEP + 2))).toEqual([0.95, 0.98]);
-    expect(h.eventData[3 * slot * EVENTS_PER_STEP]).toBe(4);
+    expect(h.eventData[EVENT_DATA * slot * EVENTS_PER_STEP]).toBe(4);
     for (let k = 2; k < EVENTS_PER_STEP; k++) expect(h.addEvent(slot, 1, 0.99, 0, 0, 0)).toBe(true);
     expect(h.isFull(slot)).toBe(true);
     expect(h.addEvent(slot, 1, 0.99, 0, 0, 0)).toBe(false);

@@ -159,10 +159,11 @@ describe('LandingFilter: updates', () => {
     expect(result.nis).toBeGreaterThan(14.16); // chi2_3(0.997) = 14.16 [computed by chiSquareQuantile]
   });
 
-  it('a delayed box applied at its capture time equals applying it on time (replay of IMU and odometry)', () => {
+  for (const [label, overrides, dim] of [['flat', {}, 3], ['outline, centre-size', { boxModel: 'outline' }, 3], ['outline, centre-width-height', { boxModel: 'outline', boxTerms: 'centre-width-height' }, 4]] as const) {
+  it(`a delayed box applied at its capture time equals applying it on time (replay of IMU and odometry; ${label})`, () => {
     const q = quatFromEulerDeg(2, -1, 25);
     const dt = 0.005;
-    const late = started(), onTime = started();
+    const late = started(overrides), onTime = started(overrides);
     const force = (k: number) => [0.2 * Math.sin(k / 9), -0.1, 9.81 + 0.05 * Math.cos(k / 5)];
     const capture = 20 * dt + 0.4 * dt; // between two IMU samples
     const box = boxFor([0.35, -0.15, -8.7], q);
@@ -173,8 +174,8 @@ describe('LandingFilter: updates', () => {
       if (k === 21) {
         onTime.propagate(capture, force(k), q); // split the IMU step at the capture time
         expect(onTime.updateBox(capture, box).status).toBe('accepted');
-        y = Array.from(onTime.lastInnovation);
-        S = Array.from(onTime.lastInnovationCovariance);
+        y = Array.from(onTime.lastInnovation.slice(0, dim));
+        S = Array.from(onTime.lastInnovationCovariance.slice(0, dim * dim));
       }
       onTime.propagate(t, force(k), q);
       if (k % 4 === 0) {
@@ -189,10 +190,11 @@ describe('LandingFilter: updates', () => {
     expectAllClose(late.P, onTime.P, { abs: 1e-12 }, 'P');
     expect(late.time).toBe(onTime.time);
     // the kept innovation is the one at the capture time, not overwritten by the replayed odometry
-    expect(late.lastUpdateDim).toBe(3);
-    expectAllClose(late.lastInnovation, y, { abs: 1e-12 }, 'y'); // same operations as x, P above
-    expectAllClose(late.lastInnovationCovariance, S, { abs: 1e-12 }, 'S');
+    expect(late.lastUpdateDim).toBe(dim);
+    expectAllClose(late.lastInnovation.slice(0, dim), y, { abs: 1e-12 }, 'y'); // same operations as x, P above
+    expectAllClose(late.lastInnovationCovariance.slice(0, dim * dim), S, { abs: 1e-12 }, 'S');
   });
+  }
 
   it('size and centre noise in proportion to the box: R = diag(σp² + (φc s)², σp² + (φc s)², σs² + (φ s)²) · rScale', () => {
     // A nearly certain position (σ = 0.1 mm) makes S = R to ~1e-6; the box is the model's own,
@@ -294,7 +296,7 @@ describe('LandingFilter: NIS', () => {
     const result = filter.updateBox(0.005, boxFor([r0[0]! + 2.5, r0[1]!, r0[2]!]));
     expect(result.status).toBe('gated');
     expect(filter.lastUpdateDim).toBe(3);
-    const y = filter.lastInnovation, S = filter.lastInnovationCovariance;
+    const y = filter.lastInnovation.slice(0, 3), S = filter.lastInnovationCovariance.slice(0, 9);
     // px: 2.5 m further east at 9 m below is about fy · 2.5 / 9 = 144 px up the image (nominal mount: y_cam = -x_body)
     expectClose(y[1]!, -518 * 2.5 / 9, { rel: 0.05 }, 'v innovation'); // 5 %: the prior's r and the mount offset shift it a little
     expect(Math.abs(y[0]!)).toBeLessThan(1);

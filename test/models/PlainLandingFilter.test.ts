@@ -5,29 +5,33 @@ import { boxFromRelativePosition } from '../../estimator/camera/boxGeometry.js';
 import { cameraFromBody, cameraPointFromWorldVector } from '../../estimator/frames/cameraFromBody.js';
 import { quatFromEulerDeg } from '../../estimator/frames/quatFromEulerDeg.js';
 import { rotationMatrixFromQuat } from '../../estimator/frames/rotationMatrixFromQuat.js';
-import type { CameraUpdateMode, CarrierModel } from '../../estimator/sim/Scenario.js';
+import type { CameraUpdateMode, CarrierModel, FilterSpec } from '../../estimator/sim/Scenario.js';
 import { expectClose } from '../helpers/expectClose.js';
 import { camera, filterSpec, targetSize } from './landingFixture.js';
 
 /** The fast filter's kept y and S equal the plain filter's (1e-9 relative: same numbers, different operation order). */
 function expectSameInnovation(fast: LandingFilter, plain: PlainLandingFilter, label: string): void {
-  expect(fast.lastUpdateDim).toBe(3);
-  const y = plain.lastInnovation!, S = plain.lastInnovationCovariance!;
-  for (let i = 0; i < 3; i++) {
+  const y = plain.lastInnovation!, S = plain.lastInnovationCovariance!, m = y.rows;
+  expect(fast.lastUpdateDim).toBe(m);
+  for (let i = 0; i < m; i++) {
     expectClose(fast.lastInnovation[i]!, y.get(i, 0), { rel: 1e-9, abs: 1e-12 }, `${label}: y[${i}]`);
-    for (let j = 0; j < 3; j++) expectClose(fast.lastInnovationCovariance[3 * i + j]!, S.get(i, j), { rel: 1e-9, abs: 1e-12 }, `${label}: S[${i}][${j}]`);
+    for (let j = 0; j < m; j++) expectClose(fast.lastInnovationCovariance[m * i + j]!, S.get(i, j), { rel: 1e-9, abs: 1e-12 }, `${label}: S[${i}][${j}]`);
   }
 }
 
 // Two implementations of one filter: block-structured typed arrays vs dense ml-matrix objects.
 describe('PlainLandingFilter and LandingFilter give the same state to 1e-9', () => {
-  const cases: [CarrierModel, CameraUpdateMode][] = [['constant-velocity', 'tight'], ['constant-velocity', 'loose'], ['singer', 'tight'], ['singer', 'loose']];
-  for (const [carrierModel, cameraUpdate] of cases) {
-    it(`${carrierModel}, ${cameraUpdate} camera update, 2000 IMU steps with boxes and odometry`, () => {
+  const cases: [CarrierModel, CameraUpdateMode, Partial<FilterSpec>][] = [
+    ['constant-velocity', 'tight', {}], ['constant-velocity', 'loose', {}], ['singer', 'tight', {}], ['singer', 'loose', {}],
+    ['constant-velocity', 'tight', { boxModel: 'outline' }], ['singer', 'tight', { boxModel: 'outline', boxTerms: 'centre-width-height' }],
+  ];
+  const deck = { deckLength: 2.2, deckWidth: 1.5, bodyHeight: 0.8 };
+  for (const [carrierModel, cameraUpdate, box] of cases) {
+    it(`${carrierModel}, ${cameraUpdate} camera update${box.boxModel ? `, ${box.boxModel} ${box.boxTerms ?? 'centre-size'}` : ''}, 2000 IMU steps with boxes and odometry`, () => {
       // the Singer cases also carry box noise in proportion to the box size (sizeNoiseFraction, pixelNoiseFraction)
-      const spec = filterSpec({ carrierModel, cameraUpdate, ...(carrierModel === 'singer' ? { sizeNoiseFraction: 0.05, pixelNoiseFraction: 0.02 } : {}) });
-      const fast = new LandingFilter(spec, camera, targetSize);
-      const plain = new PlainLandingFilter(spec, camera, targetSize);
+      const spec = filterSpec({ carrierModel, cameraUpdate, ...box, ...(carrierModel === 'singer' ? { sizeNoiseFraction: 0.05, pixelNoiseFraction: 0.02 } : {}) });
+      const fast = new LandingFilter(spec, camera, targetSize, deck);
+      const plain = new PlainLandingFilter(spec, camera, targetSize, deck);
       const sigma = { position: 1, velocity: 0.5, accelBias: 0.1 };
       fast.initialize(0, [1, 0.5, -8], [2, 0, 0], [1.5, 0, 0], sigma);
       plain.initialize(0, [1, 0.5, -8], [2, 0, 0], [1.5, 0, 0], sigma);

@@ -13,7 +13,9 @@ export const targetSize = 1.8; // m, sqrt(deck length x width)
 
 export function filterSpec(overrides: Partial<FilterSpec> = {}): FilterSpec {
   return {
-    rate: 200, cameraUpdate: 'tight', carrierModel: 'constant-velocity',
+    // the flat box model: the mechanics tests draw their boxes from it (OutlineBoxModel.test.ts
+    // and the outline cases below name boxModel 'outline' themselves)
+    rate: 200, cameraUpdate: 'tight', boxModel: 'flat', carrierModel: 'constant-velocity',
     carrierAccelNoise: 0.3, singerTau: 2, accelNoise: 0.05, accelBiasWalk: 0.002,
     pixelNoise: 2, sizeNoise: 1.5, sizeNoiseFraction: 0, pixelNoiseFraction: 0, odometryNoise: 0.05,
     gateProbability: 0.997, qScale: 1, rScale: 1, gateScale: 1, historyLength: 0.3,

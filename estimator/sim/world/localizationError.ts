@@ -5,6 +5,7 @@
 import { quatFromEulerDeg } from '../../frames/quatFromEulerDeg.js';
 import { quatMultiply } from '../../frames/quaternion.js';
 import type { FilterCamera } from '../../models/FilterCamera.js';
+import type { DeckOutline } from '../../models/OutlineBoxModel.js';
 import { cameraMount, pinholeCamera } from '../../camera/PinholeCamera.js';
 import { RandomStream } from '../../random/RandomStream.js';
 import type { CameraMount, CameraSpec, CarrierSpec, LocalizationSpec } from '../Scenario.js';
@@ -119,6 +120,12 @@ export class LocalizationError {
     const k = intrinsicsFromSpec(camera);
     const scale = 1 + this.spec.focalError;
     return pinholeCamera({ fx: k.fx * scale, fy: k.fy * scale, cx: k.cx, cy: k.cy, width: camera.width, height: camera.height, distortion: camera.distortion }, camera.mount);
+  }
+
+  /** Deck outline the filter assumes (m): every dimension scaled by (1 + targetSizeError). */
+  believedOutline(carrier: Pick<CarrierSpec, 'deckLength' | 'deckWidth' | 'bodyHeight'>): DeckOutline {
+    const scale = 1 + this.spec.targetSizeError;
+    return { deckLength: carrier.deckLength * scale, deckWidth: carrier.deckWidth * scale, bodyHeight: carrier.bodyHeight * scale };
   }
 
   /** Target size the filter assumes (m): sqrt(deckLength deckWidth) (1 + targetSizeError). */

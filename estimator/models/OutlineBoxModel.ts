@@ -1,0 +1,175 @@
+// The detector's box predicted from the deck outline: the deck's corners (and its footprint
+// bodyHeight below, when the carrier has a body) placed at the estimated relative position with
+// the deck's heading, projected through the believed camera (mount, intrinsics, distortion) at
+// the lander's estimated attitude, then boxed as the detector boxes the true outline. A tilted,
+// body-fixed camera sees the flat deck obliquely: its box centre moves along travel and the box
+// grows, which the centre-projection model cannot show. Allocation-free (preallocated arrays).
+//
+// Corner k in deck axes c_k = (±L/2, ±W/2, 0 or -b); deck level, heading ψ:
+//   d_k = R_z(ψ) c_k,   p_k = M (r + d_k) - o,   M = R_cb R_wbᵀ,  o = R_cb t_b,   (u_k, v_k) = π(p_k)
+// Box edges: xMin = u_a, xMax = u_b, yMin = v_c, yMax = v_d (a..d the active corners), and
+//   centre-size          h = [(u_a + u_b)/2, (v_c + v_d)/2, sqrt(w h)],  w = u_b - u_a, h = v_d - v_c
+//   centre-width-height  h = [(u_a + u_b)/2, (v_c + v_d)/2, w, h]
+// Jacobian over [r, v_c] (6 columns), chain rule through the active corner of each edge:
+//   ∂(u_k, v_k)/∂r = J_k M,   ∂(u_k, v_k)/∂ψ = J_k M ∂d_k/∂ψ,  ∂d_k/∂ψ = (-sψ cx - cψ cy, cψ cx - sψ cy, 0)
+//   ∂s = (h ∂w + w ∂h) / (2 s)
+// Heading from the carrier velocity estimate (the deck is taken to point along travel):
+//   ψ = atan2(v_cy, v_cx),  ∂ψ/∂v_c = (-v_cy, v_cx, 0) / (v_cx² + v_cy²)
+// Below minSpeed the direction of v_c is mostly noise: ψ is then held at its last value from
+// speed (at first the lander's own yaw) and ∂ψ/∂v_c = 0.
+import type { PinholeCamera } from '../camera/PinholeCamera.js';
+import { project, projectJacobian } from '../camera/project.js';
+
+/** The deck outline the filter believes in (m): length along travel, width, body below the deck. */
+export interface DeckOutline {
+  deckLength: number;
+  deckWidth: number;
+  bodyHeight: number;
+}
+
+/** The box terms measured: centre and sqrt(width height), or centre, width and height. */
+export type BoxTerms = 'centre-size' | 'centre-width-height';
+
+const MIN_DEPTH = 1e-3; // m: a corner closer than this has no meaningful image
+
+export class OutlineBoxModel {
+  /** Measurement dimension m: 3 (centre-size) or 4 (centre-width-height). */
+  readonly m: number;
+  /** Number of outline corners: 4 (flat deck) or 8 (deck and footprint). */
+  readonly corners: number;
+  /** Heading ψ (rad from East, CCW) used by the last evaluation, and whether it came from v_c. */
+  heading = Number.NaN;
+  headingFromVelocity = false;
+  private readonly deckCorners: Float64Array;
+  private readonly pCam = new Float64Array(3);
+  private readonly pixel = new Float64Array(2);
+  private readonly Jp = new Float64Array(6);
+  private readonly work = new Float64Array(4);
+  /** Per corner: pixel (2), ∂pixel/∂r (2x3), ∂pixel/∂ψ (2). */
+  private readonly uv: Float64Array;
+  private readonly G: Float64Array;
+  private readonly g: Float64Array;
+  /** Rows of the box terms over [r (3), ψ (1)]: m x 4. */
+  private readonly rows: Float64Array;
+
+  constructor(readonly camera: PinholeCamera, readonly outline: DeckOutline, readonly terms: BoxTerms, readonly minSpeed: number) {
+    for (const key of ['deckLength', 'deckWidth'] as const) {
+      if (!(outline[key] > 0) || !Number.isFinite(outline[key])) throw new RangeError(`outline.${key} must be a positive number of metres, got ${outline[key]}`);
+    }
+    if (!(outline.bodyHeight >= 0) || !Number.isFinite(outline.bodyHeight)) throw new RangeError(`outline.bodyHeight must be a non-negative number of metres, got ${outline.bodyHeight}`);
+    this.m = terms === 'centre-width-height' ? 4 : 3;
+    this.corners = outline.bodyHeight > 0 ? 8 : 4;
+    this.deckCorners = new Float64Array(3 * this.corners);
+    for (let k = 0; k < this.corners; k++) {
+      this.deckCorners[3 * k] = k & 1 ? outline.deckLength / 2 : -outline.deckLength / 2;
+      this.deckCorners[3 * k + 1] = k & 2 ? outline.deckWidth / 2 : -outline.deckWidth / 2;
+      this.deckCorners[3 * k + 2] = k & 4 ? -outline.bodyHeight : 0;
+    }
+    this.uv = new Float64Array(2 * this.corners);
+    this.G = new Float64Array(6 * this.corners);
+    this.g = new Float64Array(2 * this.corners);
+    this.rows = new Float64Array(4 * this.m);
+  }
+
+  /** Forget the held heading (a re-initialized filter). */
+  reset(): void {
+    this.heading = Number.NaN;
+    this.headingFromVelocity = false;
+  }
+
+  /**
+   * h(x) into hOut (m) and H over [r, v_c] into H (m x 6, row-major).
+   * @param x filter state (r at 0..2, v_c at 3..5)
+   * @param M R_cb R_wbᵀ (world -> camera), o = R_cb t_b, Rwb the attitude (for the fallback heading)
+   * @returns false when a corner is behind the camera
+   */
+  evaluate(x: ArrayLike<number>, M: Float64Array, o: Float64Array, Rwb: Float64Array, hOut: Float64Array, H: Float64Array): boolean {
+    const vx = x[3]!, vy = x[4]!, speed2 = vx * vx + vy * vy;
+    let dpsiX = 0, dpsiY = 0;
+    if (speed2 >= this.minSpeed * this.minSpeed && speed2 > 0) {
+      this.heading = Math.atan2(vy, vx);
+      this.headingFromVelocity = true;
+      // ∂ψ/∂v_c = (-v_cy, v_cx, 0) / |v_c|²
+      dpsiX = -vy / speed2;
+      dpsiY = vx / speed2;
+    } else {
+      // body x axis in the world: R_wb e_x = (R00, R10)
+      if (Number.isNaN(this.heading)) this.heading = Math.atan2(Rwb[3]!, Rwb[0]!);
+      this.headingFromVelocity = false;
+    }
+    const c = Math.cos(this.heading), s = Math.sin(this.heading);
+    const { pCam, pixel, Jp, work, uv, G, g, deckCorners, camera } = this;
+    const r0 = x[0]!, r1 = x[1]!, r2 = x[2]!;
+    let a = 0, b = 0, lo = 0, hi = 0;
+    for (let k = 0; k < this.corners; k++) {
+      const cx = deckCorners[3 * k]!, cy = deckCorners[3 * k + 1]!, cz = deckCorners[3 * k + 2]!;
+      // d_k = R_z(ψ) c_k and ∂d_k/∂ψ
+      const d0 = c * cx - s * cy, d1 = s * cx + c * cy;
+      const e0 = -s * cx - c * cy, e1 = c * cx - s * cy;
+      const w0 = r0 + d0, w1 = r1 + d1, w2 = r2 + cz;
+      for (let i = 0; i < 3; i++) pCam[i] = M[3 * i]! * w0 + M[3 * i + 1]! * w1 + M[3 * i + 2]! * w2 - o[i]!;
+      if (!(pCam[2]! > MIN_DEPTH)) return false;
+      project(camera, pCam, pixel);
+      projectJacobian(camera, pCam, Jp, work);
+      uv[2 * k] = pixel[0]!;
+      uv[2 * k + 1] = pixel[1]!;
+      for (let row = 0; row < 2; row++) {
+        // G = J_k M (2x3), g = G ∂d_k/∂ψ
+        const j0 = Jp[3 * row]!, j1 = Jp[3 * row + 1]!, j2 = Jp[3 * row + 2]!;
+        const m0 = j0 * M[0]! + j1 * M[3]! + j2 * M[6]!;
+        const m1 = j0 * M[1]! + j1 * M[4]! + j2 * M[7]!;
+        const m2 = j0 * M[2]! + j1 * M[5]! + j2 * M[8]!;
+        G[6 * k + 3 * row] = m0;
+        G[6 * k + 3 * row + 1] = m1;
+        G[6 * k + 3 * row + 2] = m2;
+        g[2 * k + row] = m0 * e0 + m1 * e1;
+      }
+      if (uv[2 * k]! < uv[2 * a]!) a = k;
+      if (uv[2 * k]! > uv[2 * b]!) b = k;
+      if (uv[2 * k + 1]! < uv[2 * lo + 1]!) lo = k;
+      if (uv[2 * k + 1]! > uv[2 * hi + 1]!) hi = k;
+    }
+    const width = uv[2 * b]! - uv[2 * a]!, height = uv[2 * hi + 1]! - uv[2 * lo + 1]!;
+    hOut[0] = (uv[2 * a]! + uv[2 * b]!) / 2;
+    hOut[1] = (uv[2 * lo + 1]! + uv[2 * hi + 1]!) / 2;
+    const R = this.rows;
+    for (let j = 0; j < 3; j++) {
+      const du = (G[6 * a + j]! + G[6 * b + j]!) / 2;
+      const dv = (G[6 * lo + 3 + j]! + G[6 * hi + 3 + j]!) / 2;
+      const dw = G[6 * b + j]! - G[6 * a + j]!;
+      const dh = G[6 * hi + 3 + j]! - G[6 * lo + 3 + j]!;
+      this.boxRows(j, du, dv, dw, dh, width, height);
+    }
+    this.boxRows(3, (g[2 * a]! + g[2 * b]!) / 2, (g[2 * lo + 1]! + g[2 * hi + 1]!) / 2, g[2 * b]! - g[2 * a]!, g[2 * hi + 1]! - g[2 * lo + 1]!, width, height);
+    if (this.m === 4) {
+      hOut[2] = width;
+      hOut[3] = height;
+    } else {
+      hOut[2] = Math.sqrt(width * height);
+    }
+    for (let i = 0; i < this.m; i++) {
+      H[6 * i] = R[4 * i]!;
+      H[6 * i + 1] = R[4 * i + 1]!;
+      H[6 * i + 2] = R[4 * i + 2]!;
+      // ∂/∂v_c = ∂/∂ψ · ∂ψ/∂v_c
+      H[6 * i + 3] = R[4 * i + 3]! * dpsiX;
+      H[6 * i + 4] = R[4 * i + 3]! * dpsiY;
+      H[6 * i + 5] = 0;
+    }
+    return true;
+  }
+
+  /** Column j of the box-term rows from the edge derivatives (du, dv, dw, dh). */
+  private boxRows(j: number, du: number, dv: number, dw: number, dh: number, width: number, height: number): void {
+    const R = this.rows;
+    R[j] = du;
+    R[4 + j] = dv;
+    if (this.m === 4) {
+      R[8 + j] = dw;
+      R[12 + j] = dh;
+    } else {
+      // s = sqrt(w h): ∂s = (h ∂w + w ∂h) / (2 s)
+      R[8 + j] = (height * dw + width * dh) / (2 * Math.sqrt(width * height));
+    }
+  }
+}

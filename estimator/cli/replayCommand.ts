@@ -82,6 +82,7 @@ export function formatReplay(r: ReplayReport): string {
   lines.push(`  whiteness  ${w.white === null ? 'too few updates to test' : w.white ? 'white' : 'NOT white'} (Ljung-Box, ${w.lags} lags, 5 %)`);
   for (const t of w.tests) lines.push(`    ${t.series}: Q ${f(t.ljungBox, 1)} vs ${f(t.threshold, 1)}, p ${f(t.pValue, 3)}, ${t.outside}/${t.lags} lags outside ±${f(t.bound, 3)}`);
   if (r.neesMean !== null) lines.push(`  truth      NEES ${f(r.neesMean)} (dim ${r.neesDim}, ${r.neesCount} rows), 95 % bounds [${f(r.neesBounds![0])}, ${f(r.neesBounds![1])}] (independent samples assumed); position RMSE ${f(r.positionRmse, 3)} m, velocity RMSE ${f(r.velocityRmse, 3)} m/s`);
+  if (r.descentNees) lines.push(`  truth      NEES by true height: ${consistencyWords(r.descentNees.verdict)} (inside its 95 % interval in ${r.descentNees.bins.filter((b) => b.verdict === 'consistent').length} of ${r.descentNees.bins.length} height bins)`);
   if (r.onboard) lines.push(`  onboard    ${r.onboard.compared} rows compared, largest |replay - onboard| ${r.onboard.maxStateDifference.toExponential(2)}${r.onboard.at !== null ? ` at ${f(r.onboard.at)} s` : ''}`);
   lines.push(r.caution);
   return lines.join('\n') + '\n';

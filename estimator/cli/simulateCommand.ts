@@ -7,6 +7,8 @@ import type { Scenario } from '../sim/Scenario.js';
 import type { TrialResult } from '../sim/TrialResult.js';
 import { PHASES } from '../sim/TrialResult.js';
 import { CliError } from './CliError.js';
+import { descentConsistency } from '../study/statistics/descentConsistency.js';
+import { consistencyWords } from '../study/statistics/ensembleConsistency.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { cameraSummary } from './cameraCommand.js';
@@ -43,6 +45,8 @@ export function formatSummary(scenario: Scenario, seed: number, r: TrialResult):
     lines.push(`  contact    closing ${f(r.closingSpeed)} m/s, lateral ${f(r.lateralSpeed)} m/s, tilt ${f(r.tiltDeg, 1)} deg (limits ${env.maxClosingSpeed} m/s, ${env.maxLateralSpeed} m/s, ${env.maxTiltDeg} deg)`);
   }
   lines.push(`  estimate   position RMSE ${f(r.positionRmse, 3)} m, velocity RMSE ${f(r.velocityRmse, 3)} m/s, NEES ${f(r.neesMean)} (dim ${r.neesDim}), NIS ${f(r.nisMean)} (dim ${r.nisDim}, ${r.nisCount} updates)`);
+  const descent = descentConsistency([r.neesByHeight], r.neesDim);
+  if (descent) lines.push(`  descent    NEES by true height: ${consistencyWords(descent.verdict)} (inside its 95 % interval in ${descent.bins.filter((b) => b.verdict === 'consistent').length} of ${descent.bins.length} height bins; one trial, so a wide interval: judge an ensemble with alight sweep and summarize)`);
   lines.push(`  phases     ${PHASES.map((p) => `${p} ${f(r.phaseTimes[p], 1)} s`).join(', ')}`);
   lines.push(`  sensing    ${r.boxes} boxes, ${r.dropped} dropped, ${r.falseBoxes} false, ${r.gateRejections} gated; ${r.aborts} abort${r.aborts === 1 ? '' : 's'}`);
   lines.push(`  camera     ${cameraSummary(scenario, scenario.guidance.trailHeight)}`);

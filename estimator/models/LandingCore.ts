@@ -71,6 +71,8 @@ export class LandingCore {
   private readonly Houtline: Float64Array;
   private readonly Routline: Float64Array;
   private readonly gateOutline: number;
+  private readonly refineState = new Float64Array(6);
+  private readonly refineMatrix = new Float64Array(9);
 
   /**
    * @param outline the deck outline believed in (m); default a flat square deck of side targetSize
@@ -239,6 +241,56 @@ export class LandingCore {
       return 'diverged';
     }
     return 'accepted';
+  }
+
+  /**
+   * Refine the loose fix in `fix` (r, m) so the outline model reproduces the box centre (u, v)
+   * and size s = sqrt(w h): Gauss-Newton on r with the deck heading of carrier velocity vC,
+   *   r ← r + H_r⁻¹ (z - h(r)),  z = [u, v, s]
+   * (the flat back-projection misplaces a close, obliquely seen deck with a body below it by
+   * decimetres, and the first update would then gate every box). Attitude as last set on
+   * `model`. Stops after 8 steps or a step under 1 mm; returns false (fix untouched) when
+   * the outline cannot be evaluated, H_r is singular, or the fit moves r by more than half its
+   * length (the box is then not the deck's: a false box or a cut one).
+   */
+  refineFixWithOutline(u: number, v: number, w: number, h: number, vC: ArrayLike<number>): boolean {
+    const outline = this.outline;
+    if (!outline) return true;
+    const state = this.refineState, hv = this.hOutline, H = this.Houtline, m = outline.m;
+    for (let i = 0; i < 3; i++) {
+      state[i] = this.fix[i]!;
+      state[3 + i] = vC[i]!;
+    }
+    const s = Math.sqrt(w * h);
+    for (let iteration = 0; iteration < 8; iteration++) {
+      if (!outline.evaluate(state, this.model.Rcw, this.model.offsetCam, this.model.Rwb, hv, H)) return false;
+      // rows (u, v, s); with width and height measured, s and its row follow from them
+      let hs = hv[2]!;
+      const A = this.refineMatrix;
+      for (let j = 0; j < 3; j++) {
+        A[j] = H[j]!;
+        A[3 + j] = H[6 + j]!;
+        A[6 + j] = m === 4 ? (hv[3]! * H[12 + j]! + hv[2]! * H[18 + j]!) / (2 * Math.sqrt(hv[2]! * hv[3]!)) : H[12 + j]!;
+      }
+      if (m === 4) hs = Math.sqrt(hv[2]! * hv[3]!);
+      const e0 = u - hv[0]!, e1 = v - hv[1]!, e2 = s - hs;
+      // solve A d = e by Cramer's rule (3x3)
+      const det = A[0]! * (A[4]! * A[8]! - A[5]! * A[7]!) - A[1]! * (A[3]! * A[8]! - A[5]! * A[6]!) + A[2]! * (A[3]! * A[7]! - A[4]! * A[6]!);
+      if (!(Math.abs(det) > 0) || !Number.isFinite(det)) return false;
+      const d0 = (e0 * (A[4]! * A[8]! - A[5]! * A[7]!) - A[1]! * (e1 * A[8]! - A[5]! * e2) + A[2]! * (e1 * A[7]! - A[4]! * e2)) / det;
+      const d1 = (A[0]! * (e1 * A[8]! - A[5]! * e2) - e0 * (A[3]! * A[8]! - A[5]! * A[6]!) + A[2]! * (A[3]! * e2 - e1 * A[6]!)) / det;
+      const d2 = (A[0]! * (A[4]! * e2 - e1 * A[7]!) - A[1]! * (A[3]! * e2 - e1 * A[6]!) + e0 * (A[3]! * A[7]! - A[4]! * A[6]!)) / det;
+      state[0] = state[0]! + d0;
+      state[1] = state[1]! + d1;
+      state[2] = state[2]! + d2;
+      if (!Number.isFinite(state[0]! + state[1]! + state[2]!)) return false;
+      if (d0 * d0 + d1 * d1 + d2 * d2 < 1e-6) break;
+    }
+    const f = this.fix;
+    const moved2 = (state[0]! - f[0]!) ** 2 + (state[1]! - f[1]!) ** 2 + (state[2]! - f[2]!) ** 2;
+    if (!(moved2 <= 0.25 * (f[0]! * f[0]! + f[1]! * f[1]! + f[2]! * f[2]!))) return false;
+    for (let i = 0; i < 3; i++) f[i] = state[i]!;
+    return true;
   }
 
   /** Size variance (px²) of a box of size s (px): σs² + (φ s)², rScale applied. */

@@ -140,6 +140,11 @@ export class LandingFilter {
     const modelProblem = core.model.loose(u, v, s, core.centreVariance(s), core.centreVariance(s), core.sizeVariance(s), core.fix, core.Rfix);
     if (modelProblem) return rejected(modelProblem, 3);
     if (!cholesky(this.core.Rfix, 3, this.core.check)) return rejected('fix-covariance-not-positive-definite', 3);
+    // start where the outline model (when used) explains the box, so the first updates agree with it
+    // (not for a box cut by the image border: its centre and size are not the outline's)
+    const cam = core.model.camera;
+    const inside = box.xMin > 1 && box.yMin > 1 && box.xMax < cam.width - 1 && box.yMax < cam.height - 1;
+    if (!this.loose && inside) core.refineFixWithOutline(u, v, box.xMax - box.xMin, box.yMax - box.yMin, vL);
     this.initialize(t, core.fix, vL, vL, { position: 1, velocity: sigma.velocity, accelBias: sigma.accelBias });
     const n = this.n;
     for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) this.P[i * n + j] = core.Rfix[3 * i + j]!;

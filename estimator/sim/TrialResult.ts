@@ -27,6 +27,12 @@ export interface TrialResult {
   /** Mean NEES of the relative-position+velocity block over filter steps, and its dimension. */
   neesMean: number;
   neesDim: number;
+  /**
+   * Mean NEES (dim neesDim) over the filter steps of the descent (phases descend and touchdown),
+   * per true-height bin of DESCENT_HEIGHT_EDGES (descentHeightBins.ts); null where the descent
+   * spent no step. Summaries judge these across trials (ensemble NEES per height bin).
+   */
+  neesByHeight?: (number | null)[];
   /** Mean NIS over accepted camera updates, and its dimension. */
   nisMean: number;
   nisDim: number;

@@ -94,7 +94,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   // blind when the predicted outline leaves the image (the fixed figure `blind` only marks the attribution log)
   const supervisor = new LandingSupervisor(scenario.guidance, landerSpec, guidance);
   const forecast = new OutlineForecast(believed, dims, detectorSpec.edgeMargin);
-  const st = new TrialState(filter.n);
+  const st = new TrialState(filter.n, filter.boxDim);
   const log = options.attribution === false ? null : new FailureLog(scenario, blind);
   const scripted = landerSpec.wind.gusts && landerSpec.wind.gusts.length > 0 ? new ScriptedGusts(landerSpec.wind.gusts) : null;
   st.command.set(cs.velocity);
@@ -221,7 +221,8 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     log?.step(t, phase, st.rTrue, st.wind, input);
     for (let k = 0; k < 3; k++) st.vLTrue[k] = ls.velocity[k]!;
     if (input.valid && Math.abs(filter.time - t) < eps + 1e-12) {
-      st.errors.add(x, filter.P, filter.n, st.rTrue, st.vCTrue, st.vLTrue);
+      const nees = st.errors.add(x, filter.P, filter.n, st.rTrue, st.vCTrue, st.vLTrue);
+      if (phase === 'descend' || phase === 'touchdown') st.addDescentNees(-st.rTrue[2]!, nees);
     }
     if (recorder) recordStep(recorder, st, t, initialized ? filter : null);
     if (onStep) onStep(st.row(t, phase, input.valid ? x : null, input.valid ? filter.P : null));

@@ -1,11 +1,12 @@
 // The working arrays and running sums of one trial (runTrial's bookkeeping), preallocated so
 // the step loop allocates nothing; row() builds a TraceRow only when a caller wants one.
 //   position/velocity RMSE and mean NEES: EstimateErrors, over steps with a valid estimate
-//   nisMean = mean NIS of accepted boxes (dim 3)
+//   nisMean = mean NIS of accepted boxes (dim 3, or 4 with a centre-width-height box)
 // Means over no samples are NaN (JSON null).
 import type { Box } from '../camera/Box.js';
 import type { UpdateResult } from '../models/LandingFilter.js';
 import { EstimateErrors } from './EstimateErrors.js';
+import { DESCENT_HEIGHT_BINS, descentHeightBin } from './descentHeightBins.js';
 import { PHASES, type Outcome, type Phase, type TrialResult } from './TrialResult.js';
 import type { TouchdownJudgement } from './touchdown.js';
 import type { CameraUpdate, RelativeTriple, TraceRow } from './trace.js';
@@ -71,8 +72,12 @@ export class TrialState {
   /** Estimate errors against truth at every filter step (RMSE, NEES). */
   readonly errors = new EstimateErrors();
   private readonly pDiagonal: Float64Array;
+  /** NEES sums and counts of the descent per true-height bin (descentHeightBins.ts). */
+  private readonly descentNeesSum = new Float64Array(DESCENT_HEIGHT_BINS);
+  private readonly descentNeesCount = new Float64Array(DESCENT_HEIGHT_BINS);
 
-  constructor(readonly n: number) {
+  /** @param boxDim dimension of the filter's box measurement (3, or 4 for centre-width-height) */
+  constructor(readonly n: number, readonly boxDim = 3) {
     this.pDiagonal = new Float64Array(n);
   }
 
@@ -134,6 +139,14 @@ export class TrialState {
     this.nisCount++;
   }
 
+  /** Count a descent step's NEES in the bin of the lander's true height above the deck (m). */
+  addDescentNees(height: number, nees: number): void {
+    if (!Number.isFinite(nees)) return;
+    const bin = descentHeightBin(height);
+    this.descentNeesSum[bin] += nees;
+    this.descentNeesCount[bin] += 1;
+  }
+
   /** Diagonal of P (n x n) into a reused array. */
   diagonal(P: ArrayLike<number>): Float64Array {
     for (let i = 0; i < this.n; i++) this.pDiagonal[i] = P[i * this.n + i]!;
@@ -188,8 +201,9 @@ export class TrialState {
       velocityRmse: this.errors.velocityRmse,
       neesMean: this.errors.neesMean,
       neesDim: 6,
+      neesByHeight: Array.from(this.descentNeesSum, (sum, i) => (this.descentNeesCount[i]! > 0 ? sum / this.descentNeesCount[i]! : null)),
       nisMean: mean(this.nisSum, this.nisCount),
-      nisDim: 3,
+      nisDim: this.boxDim,
       nisCount: this.nisCount,
       phaseTimes: { acquire: this.phaseTime(0), trail: this.phaseTime(1), align: this.phaseTime(2), descend: this.phaseTime(3), touchdown: this.phaseTime(4) },
       boxes: this.boxes,

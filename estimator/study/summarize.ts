@@ -4,6 +4,8 @@ import { OUTCOMES, type Outcome } from '../sim/TrialResult.js';
 import { failureCauses, type CauseCount } from './failureCauses.js';
 import { cep } from './statistics/cep.js';
 import { neesVerdict, type Consistency } from './statistics/neesVerdict.js';
+import type { EnsembleConsistency } from './statistics/ensembleConsistency.js';
+import { descentConsistency } from './statistics/descentConsistency.js';
 import { percentile } from './statistics/percentile.js';
 import { ruleOfThree } from './statistics/ruleOfThree.js';
 import { wilson } from './statistics/wilson.js';
@@ -46,7 +48,18 @@ export interface PointSummary {
   positionRmse: number | null;
   /** Failed trials by attributed cause, with Wilson 95 % intervals and a trial of each to replay. */
   causes: CauseCount[];
+  /**
+   * Ensemble NEES of the descent per true-height bin (each trial's neesByHeight, bins of
+   * DESCENT_HEIGHT_EDGES) judged by ensembleConsistency: per bin the runs, mean, median, robust
+   * mean without outlier trials, its 95 % chi-square interval, outliers and verdict; overall the
+   * share of bins inside and the verdict (consistent when >= 90 % of bins are). Null when no
+   * trial recorded a descent (or the results file predates neesByHeight).
+   */
+  descentNees: EnsembleConsistency | null;
+  /** descentNees.verdict, or null: the verdict every output states (summarize, simulate, replay, page, report). */
+  descentNeesVerdict: Consistency | null;
 }
+
 
 export class SummaryError extends Error {
   constructor(message: string) {
@@ -96,6 +109,7 @@ export function summarizeGroup(point: Params, records: readonly SweepRecord[], s
   const w = wilson(landed, trials);
   const n = consistency(nees, neesDims);
   const s = consistency(nis, nisDims);
+  const descent = descentConsistency(records.map((r) => r.neesByHeight), neesDims[0] ?? 6);
   return {
     point,
     trials,
@@ -115,6 +129,8 @@ export function summarizeGroup(point: Params, records: readonly SweepRecord[], s
     nisMean: s.mean, nisDim: s.dim, nisLow: s.low, nisHigh: s.high, nisVerdict: s.verdict,
     positionRmse: mean(rmse),
     causes: failureCauses(records, seed),
+    descentNees: descent,
+    descentNeesVerdict: descent ? descent.verdict : null,
   };
 }
 

@@ -3,6 +3,7 @@ import { FAILURE_CAUSES } from '../sim/attribution/FailureEvent.js';
 import { OUTCOMES } from '../sim/TrialResult.js';
 import { NOT_ATTRIBUTED } from './failureCauses.js';
 import type { PointSummary } from './summarize.js';
+import { consistencyWords } from './statistics/ensembleConsistency.js';
 
 function fixed(v: number | null, digits: number): string {
   return v === null ? '-' : v.toFixed(digits);
@@ -32,7 +33,12 @@ export function summaryTable(summaries: readonly PointSummary[]): string {
   const line = (cells: string[]) => cells.map((c, i) => (i === 0 ? c.padEnd(widths[i]!) : c.padStart(widths[i]!))).join('  ');
   const failures = summaries.filter((s) => s.trials - s.landed > 0);
   const notes = failures.length > 0 ? `\noutcomes: ${OUTCOMES.map((o) => `${o} ${summaries.reduce((n, s) => n + s.outcomes[o], 0)}`).join(', ')}` : '';
-  return [line(head), ...rows.map(line)].join('\n') + notes + '\n' + causeLines(failures);
+  const descent = summaries.filter((s) => s.descentNees !== null).map((s) => {
+    const e = s.descentNees!;
+    return `${pointLabel(s)}: ${consistencyWords(e.verdict)} (ensemble NEES inside its 95 % interval in ${e.bins.filter((b) => b.verdict === 'consistent').length} of ${e.bins.length} height bins, ${e.outlierTrials} outlier trial-bins)`;
+  });
+  const descentNote = descent.length > 0 ? `\ndescent NEES by height:\n  ${descent.join('\n  ')}` : '';
+  return [line(head), ...rows.map(line)].join('\n') + notes + descentNote + '\n' + causeLines(failures);
 }
 
 /**
@@ -55,7 +61,7 @@ function csvCell(v: unknown): string {
 export function summaryCsv(summaries: readonly PointSummary[], paths: readonly string[]): string {
   const stats = ['trials', 'landed', 'successRate', 'wilsonLow', 'wilsonHigh', 'ruleOfThreeLow', 'contacts', 'cep50', 'cep95',
     'timeToLandP10', 'timeToLandP50', 'timeToLandP90', 'neesMean', 'neesDim', 'neesLow', 'neesHigh', 'neesVerdict',
-    'nisMean', 'nisDim', 'nisLow', 'nisHigh', 'nisVerdict', 'positionRmse'] as const;
+    'nisMean', 'nisDim', 'nisLow', 'nisHigh', 'nisVerdict', 'positionRmse', 'descentNeesVerdict'] as const;
   const causes = [...FAILURE_CAUSES, NOT_ATTRIBUTED];
   const head = [...paths, ...stats, ...OUTCOMES.map((o) => `outcome.${o}`), ...causes.map((c) => `cause.${c}`)];
   const count = (s: PointSummary, c: string) => s.causes.find((x) => x.cause === c)?.count ?? 0;

@@ -3,6 +3,7 @@
 // LogTextSink (the Node adapter writes files); rows are buffered per file and flushed in
 // chunks, so memory stays bounded however long the trial. Numbers print in the shortest
 // round-trip form: replay reads back exactly the doubles the simulator's filter used.
+import type { DeckOutline } from '../../models/OutlineBoxModel.js';
 import type { Box } from '../../camera/Box.js';
 import type { FilterSpec } from '../../sim/Scenario.js';
 import { estimatesHeader, estimatesRowFromDiagonal } from './estimatesCsv.js';
@@ -34,6 +35,8 @@ export interface LogRecorderOptions {
   camera: FilterCamera;
   /** Target size the filter assumes (m). */
   targetSize: number;
+  /** Deck outline the filter assumes (m), for the outline box model; absent = a square deck of targetSize. */
+  outline?: DeckOutline;
   /** The filter settings flown: written to filter.json so replay uses the same. */
   filter: FilterSpec;
   /** Free text for camera.json's note (e.g. scenario name and seed). */
@@ -64,6 +67,7 @@ export class LogRecorder implements TrialRecorder {
       distortion: options.camera.distortion,
       mount: options.camera.mount,
       targetSize: options.targetSize,
+      ...(options.outline !== undefined ? { outline: options.outline } : {}),
       timeOffsets: {},
     };
     sink.write('camera.json', JSON.stringify(camera, null, 2) + '\n');

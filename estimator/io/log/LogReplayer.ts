@@ -60,7 +60,7 @@ export class LogReplayer {
     this.spec = spec;
     this.settings = settings;
     this.hasOdometry = hasOdometry;
-    this.filter = new LandingFilter(spec, camera.camera, camera.targetSize);
+    this.filter = new LandingFilter(spec, camera.camera, camera.targetSize, camera.outline);
     this.attitudes = new AttitudeHistory(attitudeHistorySize(spec.historyLength, spec.rate));
     const lags = settings.lags ?? 20;
     const gate = gateThreshold(spec.gateProbability, 3, spec.gateScale);

@@ -47,6 +47,8 @@ export interface StreamRows {
   ignoredColumns: string[];
 }
 
+import type { EnsembleConsistency } from '../../study/statistics/ensembleConsistency.js';
+
 export interface ReplayReport {
   log: string;
   layoutVersion: 1;
@@ -79,6 +81,12 @@ export interface ReplayReport {
   neesDim: number;
   neesCount: number;
   neesBounds: [number, number] | null;
+  /**
+   * With truth.csv: mean NEES per true-height bin (DESCENT_HEIGHT_EDGES, every row counted) and
+   * the verdict of the same ensemble rule as summarize (one run per bin); null without truth.
+   */
+  neesByHeight: (number | null)[] | null;
+  descentNees: EnsembleConsistency | null;
   positionRmse: number | null;
   velocityRmse: number | null;
   /** With onboard.csv: rows compared and the largest |x_replay - x_onboard| over all of them. */

@@ -2,6 +2,7 @@
 // block (dim 6) and RMS errors of r and of vC - vL, through the simulator's own EstimateErrors,
 // so both report the same numbers. add() allocates nothing (scratch preallocated).
 import { EstimateErrors } from '../../sim/EstimateErrors.js';
+import { DESCENT_HEIGHT_BINS, descentHeightBin } from '../../sim/descentHeightBins.js';
 
 export interface TruthSummary {
   /** Rows compared. */
@@ -15,6 +16,8 @@ export interface TruthSummary {
   velocityRmse: number;
   /** Rows whose block covariance was not positive definite (NEES not computed, counted). */
   notPositiveDefinite: number;
+  /** Mean NEES per true-height bin (height = -r_z of truth, bins of DESCENT_HEIGHT_EDGES); null where no row fell. A log has no phases, so every row counts. */
+  neesByHeight: (number | null)[];
 }
 
 export class TruthComparison {
@@ -22,6 +25,8 @@ export class TruthComparison {
   private readonly vC = new Float64Array(3);
   private readonly vL = new Float64Array(3);
   private readonly errors = new EstimateErrors();
+  private readonly heightSum = new Float64Array(DESCENT_HEIGHT_BINS);
+  private readonly heightCount = new Float64Array(DESCENT_HEIGHT_BINS);
 
   /**
    * Compare state x with covariance P (n x n, row-major) against a truth row
@@ -33,7 +38,13 @@ export class TruthComparison {
       this.vC[i] = truth[4 + i]!;
       this.vL[i] = truth[7 + i]!;
     }
-    return this.errors.add(x, P, n, this.r, this.vC, this.vL);
+    const nees = this.errors.add(x, P, n, this.r, this.vC, this.vL);
+    if (Number.isFinite(nees)) {
+      const bin = descentHeightBin(-this.r[2]!);
+      this.heightSum[bin] += nees;
+      this.heightCount[bin] += 1;
+    }
+    return nees;
   }
 
   summary(): TruthSummary {
@@ -46,6 +57,7 @@ export class TruthComparison {
       positionRmse: e.positionRmse,
       velocityRmse: e.velocityRmse,
       notPositiveDefinite: e.notPositiveDefinite,
+      neesByHeight: Array.from(this.heightSum, (sum, i) => (this.heightCount[i]! > 0 ? sum / this.heightCount[i]! : null)),
     };
   }
 }

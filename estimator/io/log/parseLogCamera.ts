@@ -4,6 +4,7 @@
 import type { CameraMount, Distortion } from '../../sim/Scenario.js';
 import type { FilterCamera } from '../../models/FilterCamera.js';
 import { JsonSyntaxError, parseJsonText } from '../jsonPositions.js';
+import type { DeckOutline } from '../../models/OutlineBoxModel.js';
 import { LogLayoutError } from './LogProblem.js';
 import { LOG_STREAMS, type LogStreamName } from './logStreams.js';
 
@@ -16,12 +17,14 @@ export interface LogCamera {
   camera: FilterCamera;
   /** Target size the filter assumes: sqrt(deck length * width) (m). */
   targetSize: number;
+  /** Deck outline the filter assumes (m) for the outline box model; absent = a flat square deck of targetSize. */
+  outline?: DeckOutline;
   /** Seconds added to each stream's times to bring it onto the common clock (absent = 0). */
   timeOffsets: Partial<Record<LogStreamName, number>>;
 }
 
 const FILE = 'camera.json';
-const TOP_KEYS = ['format', 'version', 'width', 'height', 'intrinsics', 'distortion', 'mount', 'targetSize', 'timeOffsets', 'note'];
+const TOP_KEYS = ['format', 'version', 'width', 'height', 'intrinsics', 'distortion', 'mount', 'targetSize', 'outline', 'timeOffsets', 'note'];
 
 /** Lines of the fields of the camera.json being checked (set by parseLogCamera for its call). */
 let fieldLines: ReadonlyMap<string, number> | undefined;
@@ -92,12 +95,21 @@ function checkLogCamera(json: unknown): LogCamera {
     for (const key of ['rollDeg', 'pitchDeg', 'yawDeg'] as const) if (m[key] !== undefined) mount[key] = num(m[key], `mount.${key}`, (x) => Math.abs(x) <= 180, 'an angle in [-180, 180] (deg)');
   }
   const targetSize = num(top.targetSize, 'targetSize', positive, 'a positive size (m)');
+  let outline: DeckOutline | undefined;
+  if (top.outline !== undefined) {
+    const o = record(top.outline, 'outline', ['deckLength', 'deckWidth', 'bodyHeight']);
+    outline = {
+      deckLength: num(o.deckLength, 'outline.deckLength', positive, 'a positive length (m)'),
+      deckWidth: num(o.deckWidth, 'outline.deckWidth', positive, 'a positive width (m)'),
+      bodyHeight: o.bodyHeight === undefined ? 0 : num(o.bodyHeight, 'outline.bodyHeight', (x) => x >= 0, 'a non-negative height (m)'),
+    };
+  }
   const timeOffsets: Partial<Record<LogStreamName, number>> = {};
   if (top.timeOffsets !== undefined) {
     const o = record(top.timeOffsets, 'timeOffsets', LOG_STREAMS);
     for (const [name, value] of Object.entries(o)) timeOffsets[name as LogStreamName] = num(value, `timeOffsets.${name}`, () => true, 'a number of seconds');
   }
-  return { camera: { fx, fy, cx, cy, width, height, distortion, mount }, targetSize, timeOffsets };
+  return { camera: { fx, fy, cx, cy, width, height, distortion, mount }, targetSize, ...(outline ? { outline } : {}), timeOffsets };
 }
 
 /** camera.json text -> LogCamera; bad JSON is a layout problem too. */

@@ -31,6 +31,7 @@ export function recordTrial(scenario: Scenario, sink: LogTextSink, options: Reco
   const recorder = new LogRecorder(sink, {
     camera: errors.believedCamera(scenario.camera),
     targetSize: errors.believedTargetSize(scenario.carrier),
+    outline: errors.believedOutline(scenario.carrier),
     filter: withHistoryFor(scenario.filter, scenario.detector, scenario.localization.clockOffset), // the history the trial ran with
     note: `recorded by alight from scenario "${scenario.name}", seed ${key.seed}, point ${key.point}, trial ${key.trial}`,
     truth: options.truth,

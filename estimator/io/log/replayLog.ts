@@ -2,6 +2,7 @@
 // streams (each read row by row, never loaded whole) feeding a LogReplayer, then the report:
 // NIS with chi-square bounds, whiteness, gate rejections and, with truth, NEES and RMSE.
 // Browser-safe: give it any LogSource. The merge allocates nothing per row.
+import { descentConsistency } from '../../study/statistics/descentConsistency.js';
 import type { FilterSpec } from '../../sim/Scenario.js';
 import { averagedChiSquareInterval } from '../../stats/chiSquare.js';
 import { applyFilterSettings, defaultFilterSpec, FilterSettingsError } from './filterSettings.js';
@@ -165,6 +166,8 @@ function report(source: LogSource, spec: FilterSpec, level: number, readers: Log
     neesDim: t.neesDim,
     neesCount: t.neesCount,
     neesBounds: hasTruth && t.neesCount > 0 ? averagedChiSquareInterval(t.neesCount, t.neesDim, level) : null,
+    neesByHeight: hasTruth && t.neesCount > 0 ? t.neesByHeight : null,
+    descentNees: hasTruth && t.neesCount > 0 ? descentConsistency([t.neesByHeight], t.neesDim) : null,
     positionRmse: hasTruth && t.count > 0 ? t.positionRmse : null,
     velocityRmse: hasTruth && t.count > 0 ? t.velocityRmse : null,
     onboard: rows.onboard !== undefined ? { compared: r.onboardCompared, maxStateDifference: r.onboardMax, at: r.onboardAt } : null,

@@ -70,9 +70,9 @@ export function writeSyntheticLog(folder: string, options: SyntheticLogOptions):
   const noise = RandomStream.fromKey([options.seed ?? 1, 0, 0, 77]);
   mkdirSync(folder, { recursive: true });
   writeFileSync(join(folder, 'camera.json'), JSON.stringify(SYNTHETIC_CAMERA, null, 2));
-  // The filter settings state this generator's own noise: white 1.5 px boxes from the exact size
+  // The filter settings state this generator's own noise and model: white 1.5 px boxes from the exact (flat) size
   // model (so no noise in proportion to the box) and the carrier's sway (0.5 m/s² / √Hz covers it).
-  writeFileSync(join(folder, 'filter.json'), JSON.stringify({ rate: imuRate, pixelNoise: 1.5, sizeNoise: 1.5, pixelNoiseFraction: 0, sizeNoiseFraction: 0, carrierAccelNoise: 0.5, odometryNoise: 0.05, accelNoise: 0.05 }, null, 2));
+  writeFileSync(join(folder, 'filter.json'), JSON.stringify({ rate: imuRate, boxModel: 'flat', pixelNoise: 1.5, sizeNoise: 1.5, pixelNoiseFraction: 0, sizeNoiseFraction: 0, carrierAccelNoise: 0.5, odometryNoise: 0.05, accelNoise: 0.05 }, null, 2));
   const imu = new ChunkedFile(join(folder, 'imu.csv'), 'time,fx,fy,fz');
   const attitude = new ChunkedFile(join(folder, 'attitude.csv'), 'time,qw,qx,qy,qz');
   const boxes = new ChunkedFile(join(folder, 'boxes.csv'), 'time,arrival,xMin,yMin,xMax,yMax,score');

@@ -58,8 +58,9 @@ describe('failure attribution on constructed scenarios', () => {
   });
 
   it('names a gust', () => {
-    // 15 m/s peak "1 - cosine" gust across the track late in the descent
-    check(fly(setPaths(base, { 'lander.wind.gusts': [{ time: 9, duration: 3, speed: 15, directionDeg: 90 }] })), 'gust', 10);
+    // 25 m/s peak "1 - cosine" gust across the track in the descent (since the box model sees the
+    // deck through the tilt the gust forces, 15 m/s late in the descent no longer throws the lander off)
+    check(fly(setPaths(base, { 'lander.wind.gusts': [{ time: 7, duration: 3, speed: 25, directionDeg: 90 }] })), 'gust', 10);
   });
 
   it('attribution changes nothing the trial reports besides its own fields', () => {

@@ -100,7 +100,7 @@ export function defaultScenario(): Scenario {
       cameraUpdate: 'tight',
       boxModel: 'outline',
       boxTerms: 'centre-size',
-      headingMinSpeed: 0.5,
+      headingMinSpeed: 1.5,
       carrierModel: 'constant-velocity',
       carrierAccelNoise: 0.2,
       singerTau: 3,

@@ -23,7 +23,7 @@ export interface FilterSpec {
   boxModel?: BoxModel;
   /** Outline model: measure centre and size sqrt(w h) (3-D, default) or centre, width and height (4-D). */
   boxTerms?: BoxTerms;
-  /** Outline model: carrier speed (m/s) below which the deck heading is held instead of taken from the velocity estimate (default 0.5). */
+  /** Outline model: carrier speed (m/s) below which the deck heading is the lander's yaw instead of the direction of the carrier velocity estimate (default 1.5). */
   headingMinSpeed?: number;
   carrierModel: CarrierModel;
   /** Carrier acceleration noise (m/s^2 / sqrt(Hz)) and Singer time constant (s). */

@@ -96,7 +96,7 @@ export class LandingCore {
     this.varPixelFraction = spec.pixelNoiseFraction * spec.pixelNoiseFraction * spec.rScale;
     this.Rbox = new Float64Array([this.varPixel, 0, 0, 0, this.varPixel, 0, 0, 0, this.varSize]);
     const deck = outline ?? { deckLength: targetSize, deckWidth: targetSize, bodyHeight: 0 };
-    this.outline = (spec.boxModel ?? 'outline') === 'outline' ? new OutlineBoxModel(this.model.camera, deck, spec.boxTerms ?? 'centre-size', spec.headingMinSpeed ?? 0.5) : null;
+    this.outline = (spec.boxModel ?? 'outline') === 'outline' ? new OutlineBoxModel(this.model.camera, deck, spec.boxTerms ?? 'centre-size', spec.headingMinSpeed ?? 1.5) : null;
     this.boxDim = this.outline ? this.outline.m : 3;
     this.wsOutline = new UpdateWorkspace(this.n, this.boxDim);
     this.hOutline = new Float64Array(this.boxDim);

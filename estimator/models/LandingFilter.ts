@@ -366,7 +366,6 @@ export class LandingFilter {
     this.updatesSinceCheck = 0;
     const { coefficients, noise } = this.core;
     coefficients.clear();
-    this.core.outline?.reset();
     if (this.n === 15) {
       const tau = noise.singerTau, sigma = noise.carrierAccelNoise;
       this.setDiagonal(12, Math.max((sigma * sigma * noise.qScale) / (2 * tau), 1e-12));

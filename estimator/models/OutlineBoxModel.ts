@@ -15,8 +15,10 @@
 //   ∂s = (h ∂w + w ∂h) / (2 s)
 // Heading from the carrier velocity estimate (the deck is taken to point along travel):
 //   ψ = atan2(v_cy, v_cx),  ∂ψ/∂v_c = (-v_cy, v_cx, 0) / (v_cx² + v_cy²)
-// Below minSpeed the direction of v_c is mostly noise: ψ is then held at its last value from
-// speed (at first the lander's own yaw) and ∂ψ/∂v_c = 0.
+// Below minSpeed the direction of v_c is mostly noise (σ_ψ ≈ σ_v / |v_c|): ψ is then the
+// lander's own yaw (a lander that yaws along the carrier, as the simulator's default yaw policy
+// does, knows the deck's heading that way) and ∂ψ/∂v_c = 0. Either way h is a function of the
+// state and the attitude alone, so a delayed box replays exactly.
 import type { PinholeCamera } from '../camera/PinholeCamera.js';
 import { project, projectJacobian } from '../camera/project.js';
 
@@ -71,16 +73,10 @@ export class OutlineBoxModel {
     this.rows = new Float64Array(4 * this.m);
   }
 
-  /** Forget the held heading (a re-initialized filter). */
-  reset(): void {
-    this.heading = Number.NaN;
-    this.headingFromVelocity = false;
-  }
-
   /**
    * h(x) into hOut (m) and H over [r, v_c] into H (m x 6, row-major).
    * @param x filter state (r at 0..2, v_c at 3..5)
-   * @param M R_cb R_wbᵀ (world -> camera), o = R_cb t_b, Rwb the attitude (for the fallback heading)
+   * @param M R_cb R_wbᵀ (world -> camera), o = R_cb t_b, Rwb the attitude (its yaw is the heading below minSpeed)
    * @returns false when a corner is behind the camera
    */
   evaluate(x: ArrayLike<number>, M: Float64Array, o: Float64Array, Rwb: Float64Array, hOut: Float64Array, H: Float64Array): boolean {
@@ -93,8 +89,8 @@ export class OutlineBoxModel {
       dpsiX = -vy / speed2;
       dpsiY = vx / speed2;
     } else {
-      // body x axis in the world: R_wb e_x = (R00, R10)
-      if (Number.isNaN(this.heading)) this.heading = Math.atan2(Rwb[3]!, Rwb[0]!);
+      // the lander's yaw: its body x axis in the world, R_wb e_x = (R00, R10)
+      this.heading = Math.atan2(Rwb[3]!, Rwb[0]!);
       this.headingFromVelocity = false;
     }
     const c = Math.cos(this.heading), s = Math.sin(this.heading);

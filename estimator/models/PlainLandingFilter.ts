@@ -50,7 +50,7 @@ export class PlainLandingFilter {
     this.coefficients = emptyProcessCoefficients(spec.carrierModel === 'singer');
     this.model = new BoxMeasurementModel(camera, targetSize);
     const deck = outline ?? { deckLength: targetSize, deckWidth: targetSize, bodyHeight: 0 };
-    this.outline = (spec.boxModel ?? 'outline') === 'outline' ? new OutlineBoxModel(this.model.camera, deck, spec.boxTerms ?? 'centre-size', spec.headingMinSpeed ?? 0.5) : null;
+    this.outline = (spec.boxModel ?? 'outline') === 'outline' ? new OutlineBoxModel(this.model.camera, deck, spec.boxTerms ?? 'centre-size', spec.headingMinSpeed ?? 1.5) : null;
     this.gate = gateThreshold(spec.gateProbability, 3, spec.gateScale);
     this.gateOutline = gateThreshold(spec.gateProbability, this.outline ? this.outline.m : 3, spec.gateScale);
     const vp = spec.pixelNoise ** 2 * spec.rScale, vs = spec.sizeNoise ** 2 * spec.rScale, vo = spec.odometryNoise ** 2 * spec.rScale;

@@ -23,7 +23,7 @@ function expectSameInnovation(fast: LandingFilter, plain: PlainLandingFilter, la
 describe('PlainLandingFilter and LandingFilter give the same state to 1e-9', () => {
   const cases: [CarrierModel, CameraUpdateMode, Partial<FilterSpec>][] = [
     ['constant-velocity', 'tight', {}], ['constant-velocity', 'loose', {}], ['singer', 'tight', {}], ['singer', 'loose', {}],
-    ['constant-velocity', 'tight', { boxModel: 'outline' }], ['singer', 'tight', { boxModel: 'outline', boxTerms: 'centre-width-height' }],
+    ['constant-velocity', 'tight', { boxModel: 'outline', headingMinSpeed: 0 }], ['singer', 'tight', { boxModel: 'outline', boxTerms: 'centre-width-height', headingMinSpeed: 0 }],
   ];
   const deck = { deckLength: 2.2, deckWidth: 1.5, bodyHeight: 0.8 };
   for (const [carrierModel, cameraUpdate, box] of cases) {

@@ -159,6 +159,7 @@ async function prepare(recording: Recording, name: string, map: RosMap, sink: Lo
     distortion: camera.distortion,
     mount: map.camera.mount,
     targetSize: map.targetSize,
+    ...(map.outline ? { outline: map.outline } : {}),
     timeOffsets: map.timeOffsets,
   };
   sink.write('camera.json', JSON.stringify(cameraJson, null, 2) + '\n');

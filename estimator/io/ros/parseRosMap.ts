@@ -1,6 +1,7 @@
 // The map file of `alight ingest`: which topics and fields of a ROS 2 recording give the
 // streams of a flight log (schema: rosMap.schema.json). Validated once here, like a scenario:
 // every problem at once, one line each, `map.json:7: boxes.topic: ...`. Browser-safe.
+import type { DeckOutline } from '../../models/OutlineBoxModel.js';
 import { Ajv } from 'ajv';
 import type { CameraMount, FilterSpec } from '../../sim/Scenario.js';
 import { jsonLines, JsonSyntaxError } from '../jsonPositions.js';
@@ -27,6 +28,8 @@ export interface RosMap {
   note?: string;
   camera: { topic: string; image: 'raw' | 'rectified'; pixelCentres: 'integer' | 'half-integer'; mount: CameraMount };
   targetSize: number;
+  /** Deck outline for the outline box model (m), written to camera.json; absent = a flat square deck of targetSize. */
+  outline?: DeckOutline;
   boxes: { topic: string; classId?: string; arrival: 'receive' | 'stamp'; stamp: 'header' | 'receive'; list?: string; corners?: BoxCorners; score?: string };
   imu: { topic: string; body: Convention<BodyConvention> };
   /** Absent in the file: the IMU topic's orientation. */
@@ -114,6 +117,7 @@ export function parseRosMap(text: string, fileName: string): RosMap {
     ...(m.note !== undefined ? { note: m.note } : {}),
     camera: { topic: m.camera.topic, image: m.camera.image ?? 'raw', pixelCentres: m.camera.pixelCentres ?? 'integer', mount },
     targetSize: m.targetSize,
+    ...(m.outline !== undefined ? { outline: { deckLength: m.outline.deckLength, deckWidth: m.outline.deckWidth, bodyHeight: m.outline.bodyHeight ?? 0 } } : {}),
     boxes: { topic: m.boxes.topic, classId: m.boxes.classId, arrival: m.boxes.arrival ?? 'receive', stamp: m.boxes.stamp ?? 'header', list: m.boxes.list, corners: m.boxes.corners, score: m.boxes.score },
     imu: { topic: m.imu.topic, body: m.imu.body ?? 'auto' },
     attitude: { topic: m.attitude?.topic ?? m.imu.topic, ...conventions(m.attitude) },

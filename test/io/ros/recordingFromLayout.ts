@@ -57,6 +57,7 @@ export function mapForLayout(folder: string, options: LayoutRecordingOptions = {
     version: 1,
     camera: { topic: '/camera/camera_info', mount: camera.mount },
     targetSize: camera.targetSize,
+    ...(camera.outline ? { outline: camera.outline } : {}),
     boxes: { topic: '/deck/detections', classId: 'deck' },
     imu: { topic: '/imu/data' },
     ...(options.attitude === 'topic' ? { attitude: { topic: '/lander/attitude' } } : {}),

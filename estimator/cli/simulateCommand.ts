@@ -5,7 +5,7 @@ import { runTrial } from '../sim/runTrial.js';
 import { TRACE_COLUMNS, traceCsvLine } from '../sim/trace.js';
 import type { Scenario } from '../sim/Scenario.js';
 import type { TrialResult } from '../sim/TrialResult.js';
-import { PHASES } from '../sim/TrialResult.js';
+import { OUTCOMES, PHASES } from '../sim/TrialResult.js';
 import { CliError } from './CliError.js';
 import { descentConsistency } from '../study/statistics/descentConsistency.js';
 import { consistencyWords } from '../study/statistics/ensembleConsistency.js';
@@ -60,7 +60,7 @@ export const simulateCommand: Command = {
   async run(argv, io) {
     const parsed = parseArgs('simulate', argv, OPTIONS);
     if (parsed.flags.has('help')) {
-      io.stdout(formatHelp(USAGE, `${PURPOSE}.\nThe summary names the outcome (landed, off-pad, hard-contact, aborted, timed-out, diverged), the\nmiss from the pad centre, contact speeds and tilt, estimate quality and time per phase.\n${SAFETY_CAUTION}`, OPTIONS));
+      io.stdout(formatHelp(USAGE, `${PURPOSE}.\nThe summary names the outcome (${OUTCOMES.join(', ')}), the\nmiss from the pad centre, contact speeds and tilt, estimate quality and time per phase.\n${SAFETY_CAUTION}`, OPTIONS));
       return 0;
     }
     if (parsed.positional.length > 1) throw new CliError(`alight simulate: one scenario file please, got ${parsed.positional.length} (${USAGE})`);

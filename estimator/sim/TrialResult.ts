@@ -3,8 +3,15 @@
 import type { FailureCause, FailureEvent } from './attribution/FailureEvent.js';
 import type { Phase } from './Phase.js';
 
-export type Outcome = 'landed' | 'off-pad' | 'hard-contact' | 'aborted' | 'timed-out' | 'diverged';
-export const OUTCOMES: readonly Outcome[] = ['landed', 'off-pad', 'hard-contact', 'aborted', 'timed-out', 'diverged'];
+/**
+ * How a trial ended. Contact: landed, off-pad (on the deck, outside the pad), hard-contact (on
+ * the deck, beyond the envelope's speeds or tilt), off-carrier (not on the carrier at all: the
+ * ground, or past the deck's edge). No contact: aborted, timed-out, diverged (the filter said
+ * so), silent-divergence (the estimate was far from truth while its NIS looked calm: only the
+ * simulator's truth can tell; see runTrial).
+ */
+export type Outcome = 'landed' | 'off-pad' | 'hard-contact' | 'off-carrier' | 'aborted' | 'timed-out' | 'diverged' | 'silent-divergence';
+export const OUTCOMES: readonly Outcome[] = ['landed', 'off-pad', 'hard-contact', 'off-carrier', 'aborted', 'timed-out', 'diverged', 'silent-divergence'];
 
 export { PHASES, type Phase } from './Phase.js';
 

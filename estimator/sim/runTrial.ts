@@ -108,13 +108,13 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   const attitudes = new AttitudeHistory(attitudeHistorySize(filterSpec.historyLength, localization.imuRate));
   const pending: DetectorFrame[] = new Array<DetectorFrame>(PENDING);
   let pendingHead = 0, pendingCount = 0;
-  const input: SupervisorInput = { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, valid: false, height: 0, vcz: 0, unseenFor: Infinity, lastSeen: -Infinity, diverged: false, blind: false };
+  const input: SupervisorInput = { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, valid: false, height: 0, vcz: 0, unseenFor: Infinity, lastSeen: -Infinity, diverged: false, blind: false, confirmed: false };
 
   const steps = Math.round(scenario.duration * filterSpec.rate);
   const imuPeriod = 1 / localization.imuRate, odometryPeriod = 1 / localization.odometryRate;
   const capturePeriod = 1 / detectorSpec.rate;
   let nextImu = 0, nextOdometry = 0, nextCapture = 0;
-  let initialized = false, reacquire = false, abortsSeen = 0, lastSeen = -Infinity, touchdownTime: number | null = null;
+  let initialized = false, reacquire = false, restartPending = false, abortsSeen = 0, lastSeen = -Infinity, touchdownTime: number | null = null;
   let phase: Phase = 'acquire';
   const eps = 1e-9 * dt;
 
@@ -189,6 +189,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       // starts nothing (a box 0.8 s old placed at its arrival flew the lander into the deck).
       if (!initialized || reacquire || filter.diverged) {
         if (acquire(filter, st, attitudes, frame.box, t, stamp, filterSpec.historyLength)) {
+          st.startedAfresh(initialized); // a re-start (after an abort, divergence or refused boxes) must be confirmed
           log?.acquired(t, frame.falseBox, initialized);
           initialized = true;
           reacquire = false;
@@ -198,10 +199,15 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
         continue;
       }
       if (updateWithBox(filter, st, frame, stamp, log, t)) lastSeen = t;
+      // a start its successors disagree with (every box since gated) was likely a false box, and
+      // a filter that refuses every box for a third of a second has lost the carrier: start again
+      // from the next step's boxes (as a reset row, so replay does the same)
+      else if (st.gatedInARow >= (st.confirmed ? LOST_AFTER_GATED : RESTART_AFTER_GATED)) restartPending = true;
     }
     // estimate -> supervisor -> command for the next step
     const x = filter.x;
     input.valid = initialized && filter.diverged === null;
+    input.confirmed = st.confirmed;
     input.diverged = filter.diverged !== null;
     input.rx = x[0]!; input.ry = x[1]!; input.height = -x[2]!;
     input.vcx = x[3]!; input.vcy = x[4]!; input.vcz = x[5]!;
@@ -209,8 +215,17 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     input.lastSeen = lastSeen;
     input.unseenFor = t - lastSeen;
     input.blind = input.valid && forecast.leaving(x, st.qEstimate, st.heading[0]!, st.heading[1]!);
+    // truth judges the estimate while boxes are expected (blind, it only dead-reckons towards contact)
+    if (input.valid && !input.blind) st.watchEstimate(t, x);
+    else st.watch.pause();
     phase = supervisor.step(t, dt, input, st.command);
     if (input.valid) steerFromEstimate(lander, st, x, dt, velocityFromEstimate, yawFollowsCarrier);
+    if (restartPending) {
+      restartPending = false;
+      st.gatedInARow = 0;
+      reacquire = true;
+      recorder?.reset?.(t);
+    }
     if (supervisor.aborts > abortsSeen) {
       abortsSeen = supervisor.aborts;
       reacquire = true;
@@ -280,10 +295,18 @@ function updateWithBox(filter: LandingFilter, st: TrialState, frame: DetectorFra
     st.addNis(r.nis);
     return true;
   }
-  if (r.status === 'gated') st.gateRejections++;
+  if (r.status === 'gated') {
+    st.gateRejections++;
+    st.gatedInARow++;
+  }
   else if (r.status === 'diverged') st.noteDivergence(filter.diverged);
   return false;
 }
+
+/** Consecutive gated boxes after which an unconfirmed start is dropped and the next box starts afresh. */
+const RESTART_AFTER_GATED = 3;
+/** Consecutive gated boxes after which even a confirmed filter is taken as lost (a healthy one gates a true box with probability 0.003). */
+const LOST_AFTER_GATED = 10;
 
 /** Speed (m/s) of the estimated carrier above which its velocity gives the yaw setpoint. */
 const HEADING_MIN_SPEED = 0.5;

@@ -1,7 +1,8 @@
 // Landing supervisor: the phase logic around guidance. Allocation-free per step.
 //   acquire -> trail -> align -> descend -> touchdown, with abort back to acquire.
 // acquire:   before the first box or after an abort until a box newer than the abort is
-//            accepted: keep the last horizontal command (dead reckoning), climb back towards
+//            accepted and the filter's start is confirmed (input.confirmed: boxes after the
+//            starting box agreed with it, so a lone false box is not descended on): keep the last horizontal command (dead reckoning), climb back towards
 //            the trailing height while the estimate is fresh (seen < 2 lostTimeout ago), else hold.
 // trail:     track the carrier at guidance.trailHeight above the deck.
 // align:     inside alignRadius; after alignTime continuously inside -> descend.
@@ -36,6 +37,8 @@ export interface SupervisorInput extends HorizontalEstimate {
   diverged: boolean;
   /** The predicted image of the deck outline reaches the image edge (OutlineForecast): boxes are expected to stop. */
   blind: boolean;
+  /** The filter's latest start was confirmed by the boxes after it (not a lone, possibly false, box). */
+  confirmed: boolean;
 }
 
 /**
@@ -123,7 +126,7 @@ export class LandingSupervisor {
       else if (s.unseenFor > g.lostTimeout && !(this.phase === 'descend' && this.isBlind(s))) this.abort(t, 'target-lost');
     }
     if (this.phase === 'acquire') {
-      if (s.valid && s.lastSeen > this.abortedAt && s.unseenFor < g.lostTimeout) this.phase = 'trail';
+      if (s.valid && s.confirmed && s.lastSeen > this.abortedAt && s.unseenFor < g.lostTimeout) this.phase = 'trail';
       else {
         // keep the last horizontal command (dead reckoning on the carrier's last velocity);
         // climb back towards the trailing height while the estimate is still fresh, else hold

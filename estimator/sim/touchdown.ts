@@ -2,9 +2,10 @@
 // geometry (deck frame miss, closing and lateral speed, tilt) comes from world/deckContact,
 // so truth and judgement share one definition:
 //   miss = hypot(along, across)          horizontal miss from the pad (= deck) centre, deck axes
-// Outcome: hard-contact when the closing speed, lateral speed or tilt exceeds the envelope
-// (it breaks things wherever it happens), else off-pad when miss > padRadius or the contact
-// is not on the deck (e.g. the ground beside it), else landed.
+// Outcome: off-carrier when the contact is not on the deck at all (the ground, or past the
+// deck's edge: a different failure from a bad landing, and its miss can be metres), else
+// hard-contact when the closing speed, lateral speed or tilt exceeds the envelope, else off-pad
+// when miss > padRadius, else landed.
 import type { LandingEnvelope } from './Scenario.js';
 import type { Outcome } from './TrialResult.js';
 import type { DeckContact } from './world/deckContact.js';
@@ -32,9 +33,11 @@ export function judgeTouchdown(envelope: LandingEnvelope, contact: ContactGeomet
   const missDistance = Math.hypot(contact.along, contact.across);
   const tiltDeg = (contact.tilt * 180) / Math.PI;
   let outcome: Outcome = 'landed';
-  if (contact.closingSpeed > envelope.maxClosingSpeed || contact.lateralSpeed > envelope.maxLateralSpeed || tiltDeg > envelope.maxTiltDeg) {
+  if (!contact.onDeck) {
+    outcome = 'off-carrier';
+  } else if (contact.closingSpeed > envelope.maxClosingSpeed || contact.lateralSpeed > envelope.maxLateralSpeed || tiltDeg > envelope.maxTiltDeg) {
     outcome = 'hard-contact';
-  } else if (!contact.onDeck || missDistance > envelope.padRadius) {
+  } else if (missDistance > envelope.padRadius) {
     outcome = 'off-pad';
   }
   return {

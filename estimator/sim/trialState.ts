@@ -5,6 +5,7 @@
 // Means over no samples are NaN (JSON null).
 import type { Box } from '../camera/Box.js';
 import type { UpdateResult } from '../models/LandingFilter.js';
+import { DivergenceWatch } from './DivergenceWatch.js';
 import { EstimateErrors } from './EstimateErrors.js';
 import { DESCENT_HEIGHT_BINS, descentHeightBin } from './descentHeightBins.js';
 import { PHASES, type Outcome, type Phase, type TrialResult } from './TrialResult.js';
@@ -33,6 +34,9 @@ function phaseIndex(phase: Phase): number {
     default: return 4;
   }
 }
+
+/** Accepted boxes that confirm a (re)start before the lander leaves acquire on it. */
+export const CONFIRM_BOXES = 3;
 
 export class TrialState {
   readonly wind = new Float64Array(3);
@@ -67,6 +71,13 @@ export class TrialState {
   private readonly phaseSteps = new Float64Array(PHASES.length);
   private stepDt = 1;
   private divergence: string | null = null;
+  /** The simulator saw the estimate far from truth with a calm NIS (DivergenceWatch). */
+  private silentDivergence = false;
+  /** Truth's judge of the estimate (it names divergences the filter cannot see). */
+  readonly watch = new DivergenceWatch();
+  /** Boxes accepted since the filter last (re)started, and boxes gated in a row since then. */
+  acceptedSinceStart = 0;
+  gatedInARow = 0;
   private nisSum = 0;
   private nisCount = 0;
   /** Estimate errors against truth at every filter step (RMSE, NEES). */
@@ -133,7 +144,34 @@ export class TrialState {
     if (this.divergence === null && event !== null) this.divergence = event;
   }
 
+  /**
+   * The filter (re)started from a box. A re-start (confirm = true) must now be confirmed by its
+   * successors; the first start is taken as it is (the lander has not been fooled yet, and the
+   * gate still drops it when ten boxes in a row disagree).
+   */
+  startedAfresh(confirm: boolean): void {
+    this.acceptedSinceStart = confirm ? 0 : CONFIRM_BOXES;
+    this.gatedInARow = 0;
+    this.watch.reset();
+  }
+
+  /** The start agrees with its successors: CONFIRM_BOXES boxes accepted since (the gate is the agreement test). */
+  get confirmed(): boolean {
+    return this.acceptedSinceStart >= CONFIRM_BOXES;
+  }
+
+  /** Judge the valid estimate x against this step's truth; names an episode far from truth as a divergence event. */
+  watchEstimate(t: number, x: ArrayLike<number>): void {
+    const event = this.watch.step(t, x, this.rTrue);
+    if (event === null) return;
+    this.noteDivergence(event);
+    if (event === 'silent-divergence') this.silentDivergence = true;
+  }
+
   addNis(nis: number): void {
+    this.acceptedSinceStart++;
+    this.gatedInARow = 0;
+    this.watch.noteNis(nis);
     if (!Number.isFinite(nis)) return;
     this.nisSum += nis;
     this.nisCount++;
@@ -185,6 +223,7 @@ export class TrialState {
     let outcome: Outcome;
     if (t) outcome = t.outcome;
     else if (this.divergence !== null && end.lastAbort === 'diverged') outcome = 'diverged';
+    else if (this.silentDivergence) outcome = 'silent-divergence';
     else if (end.aborts > 0) outcome = 'aborted';
     else outcome = 'timed-out';
     const mean = (sum: number, count: number) => (count > 0 ? sum / count : Number.NaN);

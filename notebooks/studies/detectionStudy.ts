@@ -2,6 +2,7 @@
 // changes landing success and touchdown miss. One grid sweep per chosen impairment.
 import { setPath } from '../../estimator/io/scenarioPath.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
+import { OUTCOMES } from '../../estimator/sim/TrialResult.js';
 import type { PointSummary } from '../../estimator/study/summarize.js';
 import { trialsNeeded } from '../../estimator/study/statistics/trialsNeeded.js';
 import { wilson } from '../../estimator/study/statistics/wilson.js';
@@ -212,22 +213,17 @@ export const detectionStudy: Study = {
 };
 
 export function outcomeTable(value: SweepOutput, path: string): { kind: 'table'; markup: string; csv: string; attachment: { label: string; fileName: string; text: string } } {
-  const header = [path, 'trials', 'landed', 'off-pad', 'hard-contact', 'aborted', 'timed-out', 'diverged', 'NEES mean', 'NEES 95 % interval', 'NEES verdict', 'position RMSE (m)'];
+  const header = [path, 'trials', ...OUTCOMES, 'NEES mean', 'NEES 95 % interval', 'NEES verdict', 'position RMSE (m)'];
   const rows = value.summaries.map((p) => [
     String(p.point[path]),
     String(p.trials),
-    String(p.outcomes.landed),
-    String(p.outcomes['off-pad']),
-    String(p.outcomes['hard-contact']),
-    String(p.outcomes.aborted),
-    String(p.outcomes['timed-out']),
-    String(p.outcomes.diverged),
+    ...OUTCOMES.map((o) => String(p.outcomes[o])),
     formatNumber(p.neesMean),
     p.neesLow === null || p.neesHigh === null ? '–' : `${formatNumber(p.neesLow)} to ${formatNumber(p.neesHigh)}`,
     p.neesVerdict ?? '–',
     formatNumber(p.positionRmse),
   ]);
-  const csvRows = value.summaries.map((p) => [p.point[path] as number, p.trials, p.outcomes.landed, p.outcomes['off-pad'], p.outcomes['hard-contact'], p.outcomes.aborted, p.outcomes['timed-out'], p.outcomes.diverged, p.neesMean, p.neesLow, p.neesHigh, p.neesVerdict, p.positionRmse]);
+  const csvRows = value.summaries.map((p) => [p.point[path] as number, p.trials, ...OUTCOMES.map((o) => p.outcomes[o]), p.neesMean, p.neesLow, p.neesHigh, p.neesVerdict, p.positionRmse]);
   return {
     kind: 'table',
     markup: htmlTable(header, rows),

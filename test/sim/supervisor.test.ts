@@ -15,7 +15,7 @@ class Still implements HorizontalGuidance {
 }
 
 function input(over: Partial<SupervisorInput>): SupervisorInput {
-  return { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, valid: true, height: 6, vcz: 0, unseenFor: 0, lastSeen: 0, diverged: false, blind: false, ...over };
+  return { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, valid: true, height: 6, vcz: 0, unseenFor: 0, lastSeen: 0, diverged: false, blind: false, confirmed: true, ...over };
 }
 
 describe('LandingSupervisor', () => {
@@ -111,6 +111,14 @@ describe('LandingSupervisor', () => {
     expectClose(out[2]!, -0.75, { abs: 1e-12 }, '1.5x faster while blind (exact)');
     expect(sup.step(3.1, 0.01, input({ height: 3.5, unseenFor: 1.9, blind: false }), out)).toBe('acquire'); // outline back in view, no box: lost
     expect(sup.lastAbort).toBe('target-lost');
+  });
+
+  it('stays in acquire on a start its successors have not confirmed (a lone box may be false)', () => {
+    const sup = new LandingSupervisor(guidanceSpec, s.lander, new Still());
+    const out = new Float64Array(3);
+    expect(sup.step(0, 0.01, input({ confirmed: false }), out)).toBe('acquire');
+    expect(sup.step(0.5, 0.01, input({ confirmed: false }), out)).toBe('acquire');
+    expect(sup.step(0.51, 0.01, input({ confirmed: true }), out)).not.toBe('acquire'); // trail, and inside alignRadius at once: align
   });
 
   it('never aborts once committed to touchdown', () => {

@@ -19,7 +19,8 @@ describe('summaryTable and summaryCsv', () => {
   it('summaryCsv has a column per path, the statistics and outcome counts', () => {
     const csv = summaryCsv(summarize(header, records), ['a', 'b']).split('\n');
     expect(csv[0]!.startsWith('a,b,trials,landed,successRate,wilsonLow,wilsonHigh')).toBe(true);
-    expect(csv[0]!.includes(',outcome.diverged,cause.dropout-burst,')).toBe(true);
+    expect(csv[0]!.includes(',outcome.off-carrier,outcome.aborted,')).toBe(true);
+    expect(csv[0]!.includes(',outcome.diverged,outcome.silent-divergence,cause.dropout-burst,')).toBe(true);
     expect(csv[0]!.endsWith(',cause.no-single-cause,cause.not-attributed')).toBe(true);
     expect(csv[1]!.startsWith('1,x,29,29,1,')).toBe(true);
   });  it('summaryTable shows each point with its Wilson interval, the rule-of-three bound and outcome totals', () => {
@@ -28,7 +29,7 @@ describe('summaryTable and summaryCsv', () => {
     expect(lines[0]).toMatch(/^point\s+trials\s+landed\s+success\s+wilson95/);
     expect(lines[1]).toMatch(/^a=1 b=x\s+29\s+29\s+1\.000\s+0\.883-1\.000 \(r3 >= 0\.897\)/); // Newcombe 1998: 29/29 -> 0.8830
     expect(lines[2]).toMatch(/^a=2 b=x\s+30\s+15\s+0\.500/);
-    expect(text).toContain('outcomes: landed 44, off-pad 0, hard-contact 0, aborted 15');
+    expect(text).toContain('outcomes: landed 44, off-pad 0, hard-contact 0, off-carrier 0, aborted 15');
     // these records predate attribution: their failures are counted as not attributed, with a trial to replay
     expect(text).toMatch(/failures by cause.*\na=2 b=x: not-attributed 15 \(0\.\d{3}-0\.\d{3}, e\.g\. trial 2\/15\)\n$/);
   });

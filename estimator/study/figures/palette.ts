@@ -15,5 +15,7 @@ export const OUTCOME_COLOURS: Record<Outcome, string> = {
   'hard-contact': '#d55e00', // vermillion
   aborted: '#cc79a7', // reddish purple
   'timed-out': '#999999',
+  'off-carrier': '#56b4e9', // sky blue
   diverged: '#000000',
+  'silent-divergence': '#0072b2', // blue
 };

@@ -19,6 +19,7 @@ export const EVENT_NAMES = [
   'abort', // symptom; value: 0 target lost, 1 diverged
   'blind', // marker; value: estimated height (m) when the target was expected to overflow the image
   'acquired', // marker; value: 0 first acquisition, 1 re-acquisition
+  'silent-divergence', // symptom; value: 1 with a calm NIS (the filter saw nothing), 0 with an alarmed one
 ] as const;
 export type FailureEventName = (typeof EVENT_NAMES)[number];
 
@@ -32,6 +33,7 @@ export const EV_DIVERGENCE = 6;
 export const EV_ABORT = 7;
 export const EV_BLIND = 8;
 export const EV_ACQUIRED = 9;
+export const EV_SILENT = 10;
 
 /** Kinds below this are triggers. */
 export const TRIGGER_KINDS = 4;
@@ -47,8 +49,9 @@ export interface FailureEvent {
 
 /**
  * Why a trial that did not land failed: the trigger the attribution rule picked
- * (attributeFailure.ts), 'divergence' for a filter that diverged with no trigger before it,
- * or 'no-single-cause' (no trigger, or two of different kinds at once).
+ * (attributeFailure.ts), 'divergence' for a filter that declared divergence with no trigger
+ * before it, 'silent-divergence' for an estimate the simulator found far from the truth with no
+ * trigger before it, or 'no-single-cause' (no trigger, or two of different kinds at once).
  */
-export type FailureCause = 'dropout-burst' | 'latency-spike' | 'false-box' | 'gust' | 'divergence' | 'no-single-cause';
-export const FAILURE_CAUSES: readonly FailureCause[] = ['dropout-burst', 'latency-spike', 'false-box', 'gust', 'divergence', 'no-single-cause'];
+export type FailureCause = 'dropout-burst' | 'latency-spike' | 'false-box' | 'gust' | 'divergence' | 'silent-divergence' | 'no-single-cause';
+export const FAILURE_CAUSES: readonly FailureCause[] = ['dropout-burst', 'latency-spike', 'false-box', 'gust', 'divergence', 'silent-divergence', 'no-single-cause'];

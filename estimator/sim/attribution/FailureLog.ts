@@ -10,12 +10,13 @@
 //   blind:          in descend/touchdown, the predicted outline leaves the image or the estimated
 //                   height is below the blind height (once per episode)
 //   divergence, abort, acquired: as the filter and supervisor report them
+//   silent divergence: the simulator's truth-side watch found the estimate far from the truth
 import type { DetectorFrame, DetectorTruth } from '../world/detector.js';
 import { drydenScalesInto, W20_KNOTS } from '../world/dryden.js';
 import type { Scenario } from '../Scenario.js';
 import { PHASES, type Phase } from '../Phase.js';
 import type { UpdateStatus } from '../../models/LandingFilter.js';
-import { EV_ABORT, EV_ACQUIRED, EV_BLIND, EV_BURST, EV_DIVERGENCE, EV_FALSE_BOX, EV_FUNNEL, EV_GATED, EV_GUST, EV_LATENCY, EVENT_NAMES, type FailureEvent } from './FailureEvent.js';
+import { EV_ABORT, EV_ACQUIRED, EV_BLIND, EV_BURST, EV_DIVERGENCE, EV_FALSE_BOX, EV_FUNNEL, EV_GATED, EV_GUST, EV_LATENCY, EV_SILENT, EVENT_NAMES, type FailureEvent } from './FailureEvent.js';
 
 /** Events kept (the newest win): a trial records a handful; 128 leaves room for a noisy one. */
 export const LOG_CAPACITY = 128;
@@ -175,6 +176,11 @@ export class FailureLog {
     this.funnelEvent = -1;
     this.blindSeen = false;
     this.divergenceSeen = false;
+  }
+
+  /** The simulator named the estimate far from the truth at t; `silent`: the filter's NIS stayed calm. */
+  farFromTruth(t: number, silent: boolean): void {
+    this.record(EV_SILENT, t, silent ? 1 : 0);
   }
 
   /** The supervisor aborted at t ('target-lost' or 'diverged'). */

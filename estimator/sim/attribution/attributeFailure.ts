@@ -7,10 +7,12 @@
 //      decided by the episode that went wrong before.
 //   3. In it, the cause is the earliest trigger (dropout burst, latency spike, false box, gust)
 //      followed within CAUSE_WINDOW s by a symptom (estimate outside the descent funnel, boxes
-//      refused by the gate, abort, divergence) or, in the last episode, by the end of the trial.
+//      refused by the gate, abort, divergence declared by the filter or found by the simulator)
+//      or, in the last episode, by the end of the trial.
 //   4. A trigger of another kind starting within TIE s of that one makes it 'no-single-cause'
 //      (two things at once; neither can be blamed alone).
-//   5. No such trigger: 'divergence' when the filter diverged, otherwise 'no-single-cause'
+//   5. No such trigger: 'divergence' when the filter diverged, 'silent-divergence' when the
+//      simulator found the estimate far from the truth, otherwise 'no-single-cause'
 //      (the trial failed inside the noise: nothing the trial knows stands out).
 // The chain is the cause and every event after it (from the deciding episode's start when
 // there is no single cause), in time order, at most MAX_CHAIN events.
@@ -30,7 +32,8 @@ export interface Attribution {
 }
 
 const isTrigger = (e: FailureEvent) => EVENT_NAMES.indexOf(e.event) < TRIGGER_KINDS;
-const isSymptom = (e: FailureEvent) => e.event === 'funnel-exit' || e.event === 'gated-boxes' || e.event === 'abort' || e.event === 'divergence';
+const isSymptom = (e: FailureEvent) =>
+  e.event === 'funnel-exit' || e.event === 'gated-boxes' || e.event === 'abort' || e.event === 'divergence' || e.event === 'silent-divergence';
 
 /**
  * Cause and chain of a trial's outcome. `events` in time order; `end` the trial's last time (s).
@@ -56,8 +59,8 @@ export function attributeFailure(events: readonly FailureEvent[], outcome: Outco
       if (tied) return { cause: 'no-single-cause', causeChain: chainFrom(events, from) };
       return { cause: cause.event as FailureCause, causeChain: chainFrom(events, events.indexOf(cause)) };
     }
-    const diverged = episode.find((e) => e.event === 'divergence');
-    if (diverged) return { cause: 'divergence', causeChain: chainFrom(events, events.indexOf(diverged)) };
+    const diverged = episode.find((e) => e.event === 'divergence' || e.event === 'silent-divergence');
+    if (diverged) return { cause: diverged.event as FailureCause, causeChain: chainFrom(events, events.indexOf(diverged)) };
     return { cause: 'no-single-cause', causeChain: chainFrom(events, from) };
   }
   return { cause: 'no-single-cause', causeChain: chainFrom(events, 0) };

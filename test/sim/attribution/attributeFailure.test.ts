@@ -37,6 +37,12 @@ describe('attributeFailure', () => {
     expect(attributeFailure([ev(0, 'acquired', 0), ev(8, 'divergence'), ev(8.01, 'abort', 1)], 'diverged', 60).cause).toBe('divergence');
   });
 
+  it('names a silent divergence that no trigger preceded, and a false box before one', () => {
+    expect(attributeFailure([ev(0, 'acquired', 0), ev(8, 'silent-divergence', 1)], 'timed-out', 60).cause).toBe('silent-divergence');
+    const events = [ev(0, 'acquired', 0), ev(0, 'false-box', 1), ev(0.2, 'gated-boxes', 3), ev(2, 'silent-divergence', 1)];
+    expect(attributeFailure(events, 'timed-out', 60).causeChain.map((e) => e.event)).toEqual(['false-box', 'gated-boxes', 'silent-divergence']);
+  });
+
   it('decides by the last episode that went wrong: a clean re-acquisition that ran out of time looks back', () => {
     const burstThenClean = [ev(0, 'acquired', 0), ev(7, 'dropout-burst', 3), ev(8.5, 'abort'), ev(10.1, 'acquired', 1)];
     expect(attributeFailure(burstThenClean, 'aborted', 20).cause).toBe('dropout-burst');

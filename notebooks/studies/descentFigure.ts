@@ -14,9 +14,9 @@ import type { SweepOutput } from '../jobs/sweepJob.js';
 import { fromState, HALF, keyNumber, toCsv } from './figureOutput.js';
 import type { StudyFigure } from './Study.js';
 
-/** The per-height verdict of a point, when its results carry one. */
+/** The per-height verdict of a point, when its results carry one (results written before neesByHeight do not). */
 function descentOf(p: PointSummary): EnsembleConsistency | null {
-  return (p as PointSummary & { descentNees?: EnsembleConsistency | null }).descentNees ?? null;
+  return p.descentNees ?? null;
 }
 
 export function descentNeesFigure(pointLabel: (p: PointSummary, impairment: string) => string): StudyFigure {

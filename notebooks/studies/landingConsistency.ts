@@ -15,6 +15,8 @@ import type { LandingOutput } from '../jobs/landingJob.js';
 import { fromState, keyNumber, toCsv, WIDE } from './figureOutput.js';
 import type { StudyFigure } from './Study.js';
 import { verdictText } from './verdictText.js';
+import { descentConsistency } from '../../estimator/study/statistics/descentConsistency.js';
+import { consistencyWords } from '../../estimator/study/statistics/ensembleConsistency.js';
 
 /** Two-sided level of the per-update band. */
 export const NIS_BAND_LEVEL = 0.95;
@@ -119,6 +121,13 @@ export const consistencyFigure: StudyFigure = {
           ...(() => {
             const v = verdictText(r.nisMean, r.nisCount, r.nisDim);
             return v ? [keyNumber('nisVerdict', `mean NIS ÷ ${r.nisDim} over ${r.nisCount} updates`, v.ratio, v.text)] : [];
+          })(),
+          ...(() => {
+            // The descent's NEES per true-height bin, judged by the rule every output shares (one trial: one run per bin).
+            const d = descentConsistency([r.neesByHeight], r.neesDim);
+            if (!d) return [];
+            const bins = d.bins.map((b) => `${b.label} ${formatNumber(b.robustMean / d.dim)} (${formatNumber(b.low / d.dim)} to ${formatNumber(b.high / d.dim)})`).join('; ');
+            return [keyNumber('descentVerdict', `NEES ÷ ${d.dim} per height of the descent: ${bins}`, d.insideShare, consistencyWords(d.verdict))];
           })(),
           keyNumber('neesMean', 'mean NEES', r.neesMean),
         ],

@@ -11,6 +11,7 @@ import type { LogChoice, ReplayOutput } from '../jobs/replayJob.js';
 import { fromState, HALF, htmlTable, keyNumber, toCsv, WIDE } from './figureOutput.js';
 import { sideBySide } from '../figures/sideBySide.js';
 import { verdictText } from './verdictText.js';
+import { consistencyWords } from '../../estimator/study/statistics/ensembleConsistency.js';
 import type { FigureOutput, Study } from './Study.js';
 
 /** Demo logs shipped in data-demo/ (folder names). */
@@ -117,6 +118,7 @@ export const replayStudy: Study = {
                 const v = verdicts[k];
                 return v ? [keyNumber(`${it.key}Verdict`, `${it.label} ÷ ${it.dim} (${it.count} ${it.key === 'nees' ? 'samples' : 'updates'})`, v.ratio, v.text)] : [];
               }),
+              ...(rep.descentNees ? [keyNumber('descentVerdict', `NEES per height of the descent: ${Math.round(100 * rep.descentNees.insideShare)} % of bins inside`, rep.descentNees.insideShare, consistencyWords(rep.descentNees.verdict))] : []),
               keyNumber('nisMean', 'box NIS mean', rep.nisMean),
               keyNumber('gateRejections', 'gate rejections', rep.gateRejections, String(rep.gateRejections)),
               keyNumber('white', 'innovations white', rep.whiteness.white === null ? null : rep.whiteness.white ? 1 : 0, rep.whiteness.white === null ? 'too short' : rep.whiteness.white ? 'yes' : 'no'),

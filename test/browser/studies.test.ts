@@ -19,6 +19,8 @@ import type { Scenario } from '../../estimator/sim/Scenario.js';
 import { applyParams } from '../../estimator/study/applyParams.js';
 import { simulateTrial } from '../../estimator/study/simulateTrial.js';
 import { chiSquareQuantile } from '../../estimator/stats/chiSquare.js';
+import { descentConsistency } from '../../estimator/study/statistics/descentConsistency.js';
+import { consistencyWords } from '../../estimator/study/statistics/ensembleConsistency.js';
 import { summarizeGroup, type PointSummary } from '../../estimator/study/summarize.js';
 import type { Params } from '../../estimator/study/sweepDesign.js';
 import { main } from '../../estimator/cli/main.js';
@@ -91,6 +93,10 @@ describe.skipIf(!runBrowserTests)('studies in chromium', () => {
     expectClose(await shownValue(page, 'error', 'positionRmse'), expected.positionRmse, ACROSS_ENGINES, 'positionRmse');
     expectClose(await shownValue(page, 'consistency', 'nisMean'), expected.nisMean, ACROSS_ENGINES, 'nisMean');
     expect(await page.textContent('[data-figure="phases"] dd[data-key="outcome"]')).toBe(expected.outcome);
+    // The descent's NEES per height, judged by the shared rule and said in the shared words.
+    const descent = descentConsistency([expected.neesByHeight], expected.neesDim);
+    expect(descent).not.toBeNull();
+    expect(await page.textContent('[data-figure="consistency"] dd[data-key="descentVerdict"]')).toBe(consistencyWords(descent!.verdict));
     // NIS per camera update against the single-update chi-square band, composed here from the
     // trace rows and the chi-square quantiles (95 % two-sided: common practice). A count: exact.
     const nis: number[] = [];
@@ -123,6 +129,9 @@ describe.skipIf(!runBrowserTests)('studies in chromium', () => {
     expect(await shownValue(page, 'success', 'wilsonLow0')).toBe(expected.wilsonLow);
     expect(await shownValue(page, 'success', 'wilsonHigh0')).toBe(expected.wilsonHigh);
     if (expected.cep50 !== null) expectClose(await shownValue(page, 'miss', 'cep50_0'), expected.cep50, ACROSS_ENGINES, 'cep50');
+    // Per-height NEES of the descent, ensemble verdict per point in the shared words.
+    expect(expected.descentNees).not.toBeNull();
+    expect(await page.textContent('[data-figure="descentNees"] dd[data-key="descentVerdict0"]')).toBe(consistencyWords(expected.descentNees!.verdict));
     const pageTexts = new Map<string, string | null>();
     for (const key of ['successRate0', 'wilsonLow0', 'wilsonHigh0']) pageTexts.set(key, await page.textContent(`[data-figure="success"] dd[data-key="${key}"]`));
 

@@ -216,7 +216,10 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     input.unseenFor = t - lastSeen;
     input.blind = input.valid && forecast.leaving(x, st.qEstimate, st.heading[0]!, st.heading[1]!);
     // truth judges the estimate while boxes are expected (blind, it only dead-reckons towards contact)
-    if (input.valid && !input.blind) st.watchEstimate(t, x);
+    if (input.valid && !input.blind) {
+      const named = st.watchEstimate(t, x);
+      if (named !== null) log?.farFromTruth(t, named === 'silent-divergence');
+    }
     else st.watch.pause();
     phase = supervisor.step(t, dt, input, st.command);
     if (input.valid) steerFromEstimate(lander, st, x, dt, velocityFromEstimate, yawFollowsCarrier);

@@ -5,7 +5,7 @@
 // Means over no samples are NaN (JSON null).
 import type { Box } from '../camera/Box.js';
 import type { UpdateResult } from '../models/LandingFilter.js';
-import { DivergenceWatch } from './DivergenceWatch.js';
+import { DivergenceWatch, type DivergenceEvent } from './DivergenceWatch.js';
 import { EstimateErrors } from './EstimateErrors.js';
 import { DESCENT_HEIGHT_BINS, descentHeightBin } from './descentHeightBins.js';
 import { PHASES, type Outcome, type Phase, type TrialResult } from './TrialResult.js';
@@ -160,12 +160,13 @@ export class TrialState {
     return this.acceptedSinceStart >= CONFIRM_BOXES;
   }
 
-  /** Judge the valid estimate x against this step's truth; names an episode far from truth as a divergence event. */
-  watchEstimate(t: number, x: ArrayLike<number>): void {
+  /** Judge the valid estimate x against this step's truth; names an episode far from truth as a divergence event (returned at the step it is named, else null). */
+  watchEstimate(t: number, x: ArrayLike<number>): DivergenceEvent | null {
     const event = this.watch.step(t, x, this.rTrue);
-    if (event === null) return;
+    if (event === null) return null;
     this.noteDivergence(event);
     if (event === 'silent-divergence') this.silentDivergence = true;
+    return event;
   }
 
   addNis(nis: number): void {

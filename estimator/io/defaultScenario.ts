@@ -47,6 +47,10 @@ export function defaultScenario(): Scenario {
       height: 480,
       distortion: { k1: 0, k2: 0, k3: 0, p1: 0, p2: 0 },
       mount: { offset: [0, 0, -0.05], rollDeg: 0, pitchDeg: 0, yawDeg: 0 },
+      stabilization: 'body-fixed',
+      gimbalTimeConstant: 0.05,
+      gimbalMaxRateDeg: 120,
+      gimbalMaxAngleDeg: 45,
     },
     detector: {
       rate: 30,

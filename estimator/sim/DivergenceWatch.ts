@@ -6,9 +6,12 @@
 //   far:     e = |r̂ - r| > FAR_ERROR for FAR_TIME continuously (one episode per restart), counted
 //            only while boxes are expected (runTrial pauses the watch while the predicted
 //            outline leaves the image: a blind final descent only dead-reckons, and drifts)
+//   sure:    the filter is over-confident about it: position NEES e^T P_rr^-1 e above the
+//            chi-square 0.999 quantile of 3 degrees of freedom (about 16.3); a filter whose
+//            covariance grew honestly (a long outage) is far but not silent
 //   calm:    the boxes accepted during the episode have mean NIS below the chi-square 0.99
 //            quantile of their dimension (11.34 for 3), or none was accepted
-//   named:   calm -> 'silent-divergence', else 'estimate-far-from-truth'
+//   named:   sure and calm -> 'silent-divergence', else 'estimate-far-from-truth'
 import { chiSquareQuantile } from '../stats/chiSquare.js';
 
 /** Horizontal-and-vertical position error (m) that counts as lost: past any pad and funnel of the demos. */
@@ -17,6 +20,8 @@ export const FAR_ERROR = 2;
 export const FAR_TIME = 0.5;
 /** Chi-square 0.99 quantile for the box NIS's 3 degrees of freedom (about 11.34). */
 const NIS_CALM_3 = chiSquareQuantile(0.99, 3);
+/** Chi-square 0.999 quantile for the position error's 3 degrees of freedom (about 16.27). */
+const NEES_SURE_3 = chiSquareQuantile(0.999, 3);
 
 export type DivergenceEvent = 'silent-divergence' | 'estimate-far-from-truth';
 
@@ -49,10 +54,10 @@ export class DivergenceWatch {
   }
 
   /**
-   * One step with a valid estimate x (x[0..2] = r̂) against the true r (m); returns the event
-   * when an episode is confirmed at this step, else null.
+   * One step with a valid estimate x (x[0..2] = r̂) and its covariance P (n x n, row-major)
+   * against the true r (m); returns the event when an episode is confirmed at this step, else null.
    */
-  step(t: number, x: ArrayLike<number>, rTrue: ArrayLike<number>): DivergenceEvent | null {
+  step(t: number, x: ArrayLike<number>, P: ArrayLike<number>, n: number, rTrue: ArrayLike<number>): DivergenceEvent | null {
     const ex = x[0]! - rTrue[0]!, ey = x[1]! - rTrue[1]!, ez = x[2]! - rTrue[2]!;
     const e = Math.sqrt(ex * ex + ey * ey + ez * ez);
     if (!(e > FAR_ERROR)) {
@@ -65,6 +70,19 @@ export class DivergenceWatch {
     if (this.named || t - this.farSince < FAR_TIME) return null;
     this.named = true;
     const calm = this.nisCount === 0 || this.nisSum / this.nisCount < NIS_CALM_3;
-    return calm ? 'silent-divergence' : 'estimate-far-from-truth';
+    const sure = positionNees(ex, ey, ez, P, n) > NEES_SURE_3;
+    return calm && sure ? 'silent-divergence' : 'estimate-far-from-truth';
   }
+}
+
+/** e^T A^-1 e for the symmetric 3 x 3 block A = P[0..2][0..2] (adjugate inverse); Infinity if A is singular. */
+function positionNees(ex: number, ey: number, ez: number, P: ArrayLike<number>, n: number): number {
+  const a = P[0]!, b = P[1]!, c = P[2]!, d = P[n + 1]!, e = P[n + 2]!, f = P[2 * n + 2]!;
+  // adjugate of [[a b c] [b d e] [c e f]]
+  const A00 = d * f - e * e, A01 = c * e - b * f, A02 = b * e - c * d;
+  const A11 = a * f - c * c, A12 = b * c - a * e, A22 = a * d - b * b;
+  const det = a * A00 + b * A01 + c * A02;
+  if (!(det > 0)) return Infinity;
+  const q = ex * (A00 * ex + A01 * ey + A02 * ez) + ey * (A01 * ex + A11 * ey + A12 * ez) + ez * (A02 * ex + A12 * ey + A22 * ez);
+  return q / det;
 }

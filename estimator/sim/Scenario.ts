@@ -141,7 +141,15 @@ export interface CameraSpec {
   height: number;
   distortion: Distortion;
   mount: CameraMount;
+  /** 'body-fixed', or 'nadir-gimbal': roll/pitch stabilized against the estimated attitude (NadirGimbal). */
+  stabilization: CameraStabilization;
+  /** nadir-gimbal: per-axis time constant (s), rate limit (deg/s) and travel (deg). */
+  gimbalTimeConstant: number;
+  gimbalMaxRateDeg: number;
+  gimbalMaxAngleDeg: number;
 }
+
+export type CameraStabilization = 'body-fixed' | 'nadir-gimbal';
 
 export interface BurstLoss {
   /** Gilbert–Elliott: P(good -> bad) and P(bad -> good) per frame; no loss in good, full loss in bad. */

@@ -15,6 +15,7 @@ import { FailureLog } from './attribution/FailureLog.js';
 import { createGuidance } from './guidance.js';
 import { AttitudeHistory, attitudeHistorySize } from './AttitudeHistory.js';
 import { OutlineForecast } from './OutlineForecast.js';
+import { NadirGimbal } from './world/NadirGimbal.js';
 import { withHistoryFor } from './historyFor.js';
 import { blindHeight, LandingSupervisor, type SupervisorInput } from './supervisor.js';
 import { judgeTouchdown } from './touchdown.js';
@@ -105,6 +106,13 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   st.heading[1] = Math.sin(cs.heading);
   const contact = createDeckContact();
   // attitude estimates back to the oldest box that may start the filter (as replay keeps them)
+  // a stabilized camera: the filter sees the camera base q̂_wb ⊗ q_g (gimbal angles from its
+  // encoders) and the specific force in that frame, R(q_g)^T f_b, so its propagation is unchanged
+  const gimbal = scenario.camera.stabilization === 'nadir-gimbal'
+    ? new NadirGimbal({ timeConstant: scenario.camera.gimbalTimeConstant, maxRate: scenario.camera.gimbalMaxRateDeg * DEG, maxAngle: scenario.camera.gimbalMaxAngleDeg * DEG })
+    : null;
+  const qFilter = gimbal ? st.qCameraEstimate : st.qEstimate, fFilter = gimbal ? st.forceCamera : st.force;
+  const cameraPose = gimbal ? { position: ls.position, qWorldBody: st.qCameraTrue } : ls;
   const attitudes = new AttitudeHistory(attitudeHistorySize(filterSpec.historyLength, localization.imuRate));
   const pending: DetectorFrame[] = new Array<DetectorFrame>(PENDING);
   let pendingHead = 0, pendingCount = 0;
@@ -127,6 +135,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     for (let k = 0; k < 3; k++) st.wind[k] = st.wind[k]! + meanWind[k]!;
     if (scripted) scripted.add(t, st.wind);
     lander.step(dt, st.command, st.wind, ls, st.autopilotVelocity); // the autopilot flies on its belief
+    if (gimbal) st.levelCamera(dt, gimbal, ls.qWorldBody);
     carrier.stateAt(t, cs);
     deckContact(ls, cs, carrierSpec.deckLength, carrierSpec.deckWidth, contact);
     if (contactEnds(contact)) { // judged after the loop (contact is left as it is here)
@@ -143,13 +152,14 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     if (t >= nextImu - eps) {
       nextImu += imuPeriod;
       errors.attitude(ls.qWorldBody, st.qEstimate, t);
-      attitudes.push(t, st.qEstimate);
       errors.specificForce(ls.specificForceBody, st.force);
+      if (gimbal) st.onGimbal(gimbal.q);
+      attitudes.push(t, qFilter);
       if (initialized) {
-        const r = filter.propagate(t, st.force, st.qEstimate);
+        const r = filter.propagate(t, fFilter, qFilter);
         if (r && r.status === 'diverged') st.noteDivergence(filter.diverged);
       }
-      recorder?.imu(t, st.force, st.qEstimate);
+      recorder?.imu(t, fFilter, qFilter);
     }
     // odometry
     if (t >= nextOdometry - eps) {
@@ -167,7 +177,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     // steps, so the capture time is the step time: frame spacing jitters by up to one step)
     if (t >= nextCapture - eps) {
       nextCapture += capturePeriod;
-      const frame = detector.observe(t, ls, cs);
+      const frame = detector.observe(t, cameraPose, cs);
       st.noteOutline(detector.lastTruth.box);
       log?.capture(t, frame, detector.lastTruth);
       if (frame) st.boxes++;
@@ -214,10 +224,10 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     input.vlx = x[6]!; input.vly = x[7]!;
     input.lastSeen = lastSeen;
     input.unseenFor = t - lastSeen;
-    input.blind = input.valid && forecast.leaving(x, st.qEstimate, st.heading[0]!, st.heading[1]!);
+    input.blind = input.valid && forecast.leaving(x, qFilter, st.heading[0]!, st.heading[1]!);
     // truth judges the estimate while boxes are expected (blind, it only dead-reckons towards contact)
     if (input.valid && !input.blind) {
-      const named = st.watchEstimate(t, x);
+      const named = st.watchEstimate(t, x, filter.P);
       if (named !== null) log?.farFromTruth(t, named === 'silent-divergence');
     }
     else st.watch.pause();

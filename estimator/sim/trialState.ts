@@ -6,6 +6,8 @@
 import type { Box } from '../camera/Box.js';
 import type { UpdateResult } from '../models/LandingFilter.js';
 import { DivergenceWatch, type DivergenceEvent } from './DivergenceWatch.js';
+import { quatMultiply } from '../frames/quaternion.js';
+import type { NadirGimbal } from './world/NadirGimbal.js';
 import { EstimateErrors } from './EstimateErrors.js';
 import { DESCENT_HEIGHT_BINS, descentHeightBin } from './descentHeightBins.js';
 import { PHASES, type Outcome, type Phase, type TrialResult } from './TrialResult.js';
@@ -47,6 +49,29 @@ export class TrialState {
   readonly vLTrue = new Float64Array(3);
   /** Estimated attitude q_wb, measured specific force (body), measured velocity (world). */
   readonly qEstimate = Float64Array.of(1, 0, 0, 0);
+  /** nadir-gimbal: true camera-base attitude q_wb ⊗ q_g, its estimate q̂_wb ⊗ q_g and the specific force in that frame R(q_g)^T f. */
+  readonly qCameraTrue = Float64Array.of(1, 0, 0, 0);
+  readonly qCameraEstimate = Float64Array.of(1, 0, 0, 0);
+  readonly forceCamera = new Float64Array(3);
+
+  /** Step the gimbal on the estimated attitude and place the true camera base on the body. */
+  levelCamera(dt: number, gimbal: NadirGimbal, qWorldBody: ArrayLike<number>): void {
+    gimbal.step(dt, this.qEstimate);
+    quatMultiply(qWorldBody, gimbal.q, this.qCameraTrue);
+  }
+
+  /** The IMU sample as the filter sees it on a gimbal: attitude q̂ ⊗ q_g, force R(q_g)^T f (rotated by conj(q_g)). */
+  onGimbal(qGimbal: ArrayLike<number>): void {
+    quatMultiply(this.qEstimate, qGimbal, this.qCameraEstimate);
+    const w = qGimbal[0]!, x = -qGimbal[1]!, y = -qGimbal[2]!, z = -qGimbal[3]!;
+    const vx = this.force[0]!, vy = this.force[1]!, vz = this.force[2]!;
+    // v' = v + 2 u x (u x v + w v), u = (x, y, z): rotation by the unit quaternion (w, u)
+    const cx = y * vz - z * vy + w * vx, cy = z * vx - x * vz + w * vy, cz = x * vy - y * vx + w * vz;
+    this.forceCamera[0] = vx + 2 * (y * cz - z * cy);
+    this.forceCamera[1] = vy + 2 * (z * cx - x * cz);
+    this.forceCamera[2] = vz + 2 * (x * cy - y * cx);
+  }
+
   /** Estimated attitude at a box's capture (looked up when a box starts the filter). */
   readonly qCapture = Float64Array.of(1, 0, 0, 0);
   readonly force = new Float64Array(3);
@@ -161,8 +186,8 @@ export class TrialState {
   }
 
   /** Judge the valid estimate x against this step's truth; names an episode far from truth as a divergence event (returned at the step it is named, else null). */
-  watchEstimate(t: number, x: ArrayLike<number>): DivergenceEvent | null {
-    const event = this.watch.step(t, x, this.rTrue);
+  watchEstimate(t: number, x: ArrayLike<number>, P: ArrayLike<number>): DivergenceEvent | null {
+    const event = this.watch.step(t, x, P, this.n, this.rTrue);
     if (event === null) return null;
     this.noteDivergence(event);
     if (event === 'silent-divergence') this.silentDivergence = true;

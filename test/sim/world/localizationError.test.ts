@@ -105,6 +105,7 @@ describe('LocalizationError', () => {
       intrinsics: { fx: 600, fy: 610, cx: 320, cy: 240 }, width: 640, height: 480,
       distortion: { k1: -0.05, k2: 0, k3: 0, p1: 0, p2: 0 },
       mount: { offset: [0.1, 0, -0.05], rollDeg: 0, pitchDeg: 5, yawDeg: 0 },
+      stabilization: 'body-fixed', gimbalTimeConstant: 0.05, gimbalMaxRateDeg: 120, gimbalMaxAngleDeg: 45,
     };
     const loc = make({ focalError: 0.02, misalignmentDeg: 1.5 });
     const believed = loc.believedCamera(spec);

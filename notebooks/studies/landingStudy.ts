@@ -23,7 +23,7 @@ export const landingStudy: Study = {
   title: 'One landing, step by step',
   lede: 'A single trial of the scenario: the carrier drives, the lander trails, aligns and descends on its filter’s estimate. Scrub through time to see what the camera reported.',
   parameters: [
-    { kind: 'number', name: 'trial', label: 'Trial number', unit: '', min: 0, max: 99, step: 1, default: 0, integer: true },
+    { kind: 'number', name: 'trial', label: 'Trial number', unit: '', min: 0, max: 999, step: 1, default: 0, integer: true },
     { kind: 'number', name: 'speed', label: 'Carrier speed', unit: 'm/s', min: 0, max: 15, step: 0.5, default: 3 },
     { kind: 'number', name: 'pixelNoise', label: 'Box centre noise', unit: 'px', min: 0, max: 10, step: 0.5, default: 1.5 },
     { kind: 'number', name: 'time', label: 'Inspect time', unit: 's', min: 0, max: 120, step: 0.5, default: 8 },

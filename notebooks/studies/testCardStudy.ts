@@ -32,7 +32,7 @@ export const testCardStudy: Study = {
     { kind: 'number', name: 'limit', label: 'Claimed up to (frame rate: down to)', unit: '', min: 0, max: 1000, step: 0.01, default: 0.15 },
     { kind: 'number', name: 'rate', label: 'Claim: success at least', unit: '', min: 0.5, max: 0.99, step: 0.01, default: 0.9 },
     { kind: 'number', name: 'level', label: 'Claimed at confidence', unit: '', min: 0.8, max: 0.99, step: 0.01, default: 0.95 },
-    { kind: 'number', name: 'trials', label: 'Simulated trials per point', unit: '', min: 1, max: 60, step: 1, default: 20, integer: true },
+    { kind: 'number', name: 'trials', label: 'Simulated trials per point', unit: 'trials', min: 1, max: 1000, step: 1, default: 20, integer: true },
   ],
   cells: [
     {

@@ -54,7 +54,7 @@ export const tuningStudy: Study = {
       { value: 'fractions', label: 'the default four and the centre fraction' },
     ], default: 'sensors' },
     { kind: 'number', name: 'grid', label: 'Trade-off grid points per multiplier', unit: '', min: 2, max: 5, step: 1, default: 2, integer: true },
-    { kind: 'number', name: 'trials', label: 'Trials per setting', unit: '', min: 1, max: 30, step: 1, default: 2, integer: true },
+    { kind: 'number', name: 'trials', label: 'Trials per setting', unit: 'trials', min: 1, max: 400, step: 1, default: 2, integer: true },
     { kind: 'choice', name: 'level', label: 'NEES acceptance level', options: [{ value: '0.95', label: '95 %' }, { value: '0.99', label: '99 %' }], default: '0.95' },
   ],
   cells: [

@@ -13,7 +13,7 @@ import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } fro
 import { createExecutor, loadScenarioOrFail, workerCount } from './studyRunner.js';
 import { SAFETY_CAUTION } from '../safetyCaution.js';
 import { scenarioUnit } from '../io/scenarioUnit.js';
-import { decimalsFor, decimalsIn, percent, quantity } from './formatNumbers.js';
+import { decimalsFor, decimalsIn, percent, quantity } from '../study/formatNumbers.js';
 import { asCliError, JSON_OPTION, SEED_OPTION, WORKERS_OPTION } from './studyCli.js';
 import { checkOutputs, outputTarget, scenarioFiles, writeOutput } from './outputFiles.js';
 

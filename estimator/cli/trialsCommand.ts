@@ -2,6 +2,7 @@
 import { ruleOfThree } from '../study/statistics/ruleOfThree.js';
 import { trialsNeeded } from '../study/statistics/trialsNeeded.js';
 import { wilson } from '../study/statistics/wilson.js';
+import { decimalsIn, ratePercent } from '../study/formatNumbers.js';
 import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
@@ -19,6 +20,8 @@ const OPTIONS: OptionSpec[] = [
 ];
 
 const unit = (v: number) => v > 0 && v < 1;
+// A rate the user typed, as a percentage with the digits they gave (0.95 -> "95 %", 0.985 -> "98.5 %").
+const givenPercent = (v: number) => `${(100 * v).toFixed(Math.max(0, decimalsIn(v) - 2))} %`;
 
 export const trialsCommand: Command = {
   name: 'trials',
@@ -40,8 +43,9 @@ export const trialsCommand: Command = {
       const w = wilson(k, n);
       const observed: Record<string, unknown> = { successes: k, trials: n, rate: k / n, wilsonLow: w.low, wilsonHigh: w.high, ruleOfThreeFailureBound: k === n ? ruleOfThree(n) : null };
       out.observed = observed;
-      lines.push(`${k} of ${n}: observed success ${(100 * k / n).toFixed(1)} %, Wilson 95 % interval ${(100 * w.low).toFixed(1)} % to ${(100 * w.high).toFixed(1)} %.`);
-      if (k === n) lines.push(`No failure in ${n}: by the rule of three the failure rate may still be up to about ${(100 * ruleOfThree(n)).toFixed(1)} %.`);
+      // percentages to the digits n trials resolve (one trial moves the rate by 100/n %)
+      lines.push(`${k} of ${n}: observed success ${ratePercent(k / n, n)}, Wilson 95 % interval ${ratePercent(w.low, n)} to ${ratePercent(w.high, n)}.`);
+      if (k === n) lines.push(`No failure in ${n}: by the rule of three the failure rate may still be up to about ${ratePercent(ruleOfThree(n), n)}.`);
     }
     if (parsed.values.has('target')) {
       const target = numberOption('trials', parsed, 'target', 0.9, unit, 'a rate between 0 and 1');
@@ -49,16 +53,14 @@ export const trialsCommand: Command = {
       const power = numberOption('trials', parsed, 'power', 0.8, unit, 'a probability between 0 and 1');
       const r = trialsNeeded(rate, target, { power });
       out.needed = { target, rate, power, ...r };
-      lines.push(
-        `To show success >= ${target} (lower Wilson 95 % bound):`,
-        `  every trial lands:            ${r.allSucceed} trials (rule-of-three estimate: ${r.ruleOfThree})`,
-        r.atExpectedCount === null
-          ? `  at a true rate of ${rate}: never (the rate must exceed the target)`
-          : `  at a true rate of ${rate}:    ${r.atExpectedCount} trials if successes come in at the expected count`,
-        r.withPower === null
-          ? `  with ${Math.round(power * 100)} % chance:          more than 20000 trials, or never`
-          : `  with ${Math.round(power * 100)} % chance of showing it: ${r.withPower} trials`,
-      );
+      // labels padded to one width so the counts line up in a terminal
+      const rows: [string, string][] = [
+        ['every trial lands:', `${r.allSucceed} trials (rule-of-three estimate: ${r.ruleOfThree})`],
+        [`at a true rate of ${givenPercent(rate)}:`, r.atExpectedCount === null ? 'never (the rate must exceed the target)' : `${r.atExpectedCount} trials if successes come in at the expected count`],
+        [`with ${Math.round(power * 100)} % chance of showing it:`, r.withPower === null ? 'more than 20000 trials, or never' : `${r.withPower} trials`],
+      ];
+      const width = Math.max(...rows.map(([label]) => label.length));
+      lines.push(`To show success >= ${givenPercent(target)} (lower Wilson 95 % bound):`, ...rows.map(([label, value]) => `  ${label.padEnd(width)} ${value}`));
     }
     io.stdout(parsed.flags.has('json') ? JSON.stringify(out, null, 1) + '\n' : lines.join('\n') + '\n');
     return 0;

@@ -4,9 +4,15 @@ import { OUTCOMES } from '../sim/TrialResult.js';
 import { NOT_ATTRIBUTED } from './failureCauses.js';
 import type { PointSummary } from './summarize.js';
 import { consistencyWords } from './statistics/ensembleConsistency.js';
+import { rateDecimals } from './formatNumbers.js';
 
 function fixed(v: number | null, digits: number): string {
   return v === null ? '-' : v.toFixed(digits);
+}
+
+// Rates as percentages with the digits the trial count resolves (one trial moves a rate by 100/n %).
+function pct(v: number | null, trials: number): string {
+  return v === null ? '-' : (100 * v).toFixed(rateDecimals(trials));
 }
 
 function pointLabel(s: PointSummary): string {
@@ -16,15 +22,15 @@ function pointLabel(s: PointSummary): string {
 
 /** A plain aligned table, one row per point. */
 export function summaryTable(summaries: readonly PointSummary[]): string {
-  const head = ['point', 'trials', 'landed', 'success', 'wilson95', 'cep50 m', 'cep95 m', 'land s p50', 'nees', 'verdict'];
+  const head = ['point', 'trials', 'landed', 'success %', 'wilson95 %', 'cep50 m', 'cep95 m', 'land s p50', 'nees', 'verdict'];
   const rows = summaries.map((s) => [
     pointLabel(s),
     String(s.trials),
     String(s.landed),
-    fixed(s.successRate, 3),
-    `${fixed(s.wilsonLow, 3)}-${fixed(s.wilsonHigh, 3)}` + (s.ruleOfThreeLow !== null && s.ruleOfThreeLow > 0 ? ` (r3 >= ${fixed(s.ruleOfThreeLow, 3)})` : ''), // vacuous below 4 trials
-    fixed(s.cep50, 3),
-    fixed(s.cep95, 3),
+    pct(s.successRate, s.trials),
+    `${pct(s.wilsonLow, s.trials)}-${pct(s.wilsonHigh, s.trials)}` + (s.ruleOfThreeLow !== null && s.ruleOfThreeLow > 0 ? ` (r3 >= ${pct(s.ruleOfThreeLow, s.trials)})` : ''), // vacuous below 4 trials
+    fixed(s.cep50, 2), // cm: finer than the detector resolves at landing height
+    fixed(s.cep95, 2),
     fixed(s.timeToLandP50, 1),
     s.neesMean === null ? '-' : `${fixed(s.neesMean, 2)} [${fixed(s.neesLow, 2)}, ${fixed(s.neesHigh, 2)}]`,
     s.neesVerdict ?? '-',
@@ -47,7 +53,7 @@ export function summaryTable(summaries: readonly PointSummary[]): string {
  */
 function causeLines(failures: readonly PointSummary[]): string {
   if (failures.length === 0) return '';
-  const lines = failures.map((s) => `${pointLabel(s)}: ` + s.causes.map((c) => `${c.cause} ${c.count} (${fixed(c.wilsonLow, 3)}-${fixed(c.wilsonHigh, 3)}, e.g. trial ${c.example.point}/${c.example.trial})`).join('; '));
+  const lines = failures.map((s) => `${pointLabel(s)}: ` + s.causes.map((c) => `${c.cause} ${c.count} (${pct(c.wilsonLow, s.trials)}-${pct(c.wilsonHigh, s.trials)} %, e.g. trial ${c.example.point}/${c.example.trial})`).join('; '));
   return `failures by cause (count, Wilson 95 % of the rate, example point/trial):\n${lines.join('\n')}\n`;
 }
 

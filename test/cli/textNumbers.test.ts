@@ -4,7 +4,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { decimalsFor, decimalsIn, percent, quantity } from '../../estimator/cli/formatNumbers.js';
+import { decimalsFor, decimalsIn, percent, quantity } from '../../estimator/study/formatNumbers.js';
 import { main } from '../../estimator/cli/main.js';
 import { scenarioUnit } from '../../estimator/io/scenarioUnit.js';
 import { findRequirement } from '../../estimator/study/findRequirement.js';

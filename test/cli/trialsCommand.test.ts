@@ -15,8 +15,25 @@ describe('alight trials', () => {
     const io = fakeIo('/');
     expect(await main(['trials', '--observed', '5/5'], io)).toBe(0);
     // Newcombe 1998 formula with k = n = 5: 5 / (5 + 1.96²) = 0.5656.
-    expect(io.out.join('')).toContain('Wilson 95 % interval 56.6 % to 100.0 %');
-    expect(io.out.join('')).toContain('up to about 60.0 %');
+    // printed in whole percent: one of 5 trials moves the rate by 20 %
+    expect(io.out.join('')).toContain('5 of 5: observed success 100 %, Wilson 95 % interval 57 % to 100 %.');
+    expect(io.out.join('')).toContain('up to about 60 %'); // Hanley and Lippman-Hand 1983: 3 / 5
+  });
+  it('alight trials --observed 925/1000 prints one decimal, as 1000 trials resolve', async () => {
+    const io = fakeIo('/');
+    expect(await main(['trials', '--observed', '925/1000'], io)).toBe(0);
+    // Wilson 1927 score interval, worked by hand: centre 0.92339, half-width 0.016375 -> 0.9070 to 0.9398
+    expect(io.out.join('')).toBe('925 of 1000: observed success 92.5 %, Wilson 95 % interval 90.7 % to 94.0 %.\n');
+  });
+  it('alight trials --target text lines up its counts under one column and names rates in %', async () => {
+    const io = fakeIo('/');
+    expect(await main(['trials', '--target', '0.9', '--rate', '0.95'], io)).toBe(0);
+    const lines = io.out.join('').trimEnd().split('\n');
+    expect(lines[0]).toBe('To show success >= 90 % (lower Wilson 95 % bound):');
+    expect(lines[1]).toMatch(/^  every trial lands: +35 trials \(rule-of-three estimate: 30\)$/); // Hanley and Lippman-Hand 1983: 3 / (1 - 0.9)
+    expect(lines[2]).toMatch(/^  at a true rate of 95 %: +\d+ trials/);
+    const column = lines.slice(1).map((l) => /^  .*?: +/.exec(l)![0].length);
+    expect(new Set(column).size).toBe(1);
   });
   it('alight trials refuses a bad --observed and a target outside (0, 1)', async () => {
     const a = fakeIo('/');

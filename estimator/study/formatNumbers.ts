@@ -38,3 +38,22 @@ export function quantity(value: number, decimals: number, unit: string): string 
 export function percent(rate: number): string {
   return `${(100 * rate).toFixed(1)} %`;
 }
+
+/**
+ * Decimals of a percentage that `trials` outcomes can resolve: one trial moves the rate by
+ * 100/n %, so 3 trials show whole percent and 1000 trials one decimal.
+ * @example rateDecimals(3) // 0
+ * @example rateDecimals(1000) // 1
+ */
+export function rateDecimals(trials: number): number {
+  return trials > 0 ? decimalsFor(100 / trials) : 0;
+}
+
+/**
+ * A rate measured over `trials` outcomes as a percentage with the digits the count supports.
+ * @example ratePercent(1, 3) // '100 %'
+ * @example ratePercent(0.925, 1000) // '92.5 %'
+ */
+export function ratePercent(rate: number, trials: number): string {
+  return `${(100 * rate).toFixed(rateDecimals(trials))} %`;
+}

@@ -23,8 +23,8 @@ const PURPOSE = `Identify the filter's noise terms from data, each with a 95 % i
 current setting.
 
 What is identified, from what:
-  - The terms named with --free (default pixelNoise, sizeNoiseFraction, odometryNoise, carrierAccelNoise;
-    also pixelNoiseFraction, sizeNoise, accelNoise, accelBiasWalk); every other setting is held.
+  - The terms named with --free (default pixelNoise, sizeNoiseFraction, odometryNoise, carrierAccelNoise,
+    accelNoise; also pixelNoiseFraction, sizeNoise, accelBiasWalk); every other setting is held.
   - They maximise the innovation likelihood of the box and odometry updates, -2 ln L = sum (ln|2 pi S| +
     y' S^-1 y) (Mehra 1970), replaying the log(s) once per trial setting. No truth is needed; truth.csv,
     when present, only checks the result (NEES, RMSE), it never steers it.
@@ -40,7 +40,7 @@ identified from them; then --trials N trials per setting fly Q and R multipliers
 around the identified setting (the same random streams for every setting) and the trade-off between
 landing success and consistency (|ln(ANEES/n)|) is reported as its non-dominated settings.`;
 const OPTIONS: OptionSpec[] = [
-  { name: 'free', kind: 'value', valueName: 'A,B,..', help: 'noise terms to identify (default pixelNoise,sizeNoiseFraction,odometryNoise,carrierAccelNoise)' },
+  { name: 'free', kind: 'value', valueName: 'A,B,..', help: 'noise terms to identify (default pixelNoise,sizeNoiseFraction,odometryNoise,carrierAccelNoise,accelNoise)' },
   { name: 'filter', kind: 'value', valueName: 'FILE', help: 'log folders: the current setting over the log\'s filter.json, as for alight replay' },
   { name: 'logs', kind: 'value', valueName: 'K', help: 'scenario: trials recorded as logs to identify from (default 3)' },
   { name: 'trials', kind: 'value', valueName: 'N', help: 'scenario: landing trials per trade-off setting (default 16)' },

@@ -49,9 +49,9 @@ export const tuningStudy: Study = {
   parameters: [
     { kind: 'number', name: 'logs', label: 'Recorded trials to identify from', unit: '', min: 1, max: 10, step: 1, default: 1, integer: true },
     { kind: 'choice', name: 'terms', label: 'Noise terms identified', options: [
-      { value: 'default', label: 'pixel, size fraction, odometry, carrier acceleration' },
+      { value: 'default', label: 'pixel, size fraction, odometry, carrier and lander acceleration' },
       { value: 'sensors', label: 'pixel, size fraction, odometry' },
-      { value: 'fractions', label: 'the default four and the centre fraction' },
+      { value: 'fractions', label: 'pixel and its centre fraction, size fraction, odometry, carrier acceleration' },
     ], default: 'sensors' },
     { kind: 'number', name: 'grid', label: 'Trade-off grid points per multiplier', unit: '', min: 2, max: 5, step: 1, default: 2, integer: true },
     { kind: 'number', name: 'trials', label: 'Trials per setting', unit: 'trials', min: 1, max: 400, step: 1, default: 2, integer: true },

@@ -1,4 +1,5 @@
 // Plain SVG strings for figures (no DOM): document frame, text escaping and axes from d3 scales.
+import { SAFETY_CAUTION_SHORT } from '../../safetyCaution.js';
 import { GRID, GROUND, INK } from './palette.js';
 
 export function escapeXml(text: string): string {
@@ -29,7 +30,7 @@ export function svgDocument(frame: Frame, title: string, body: string): string {
     `<rect width="${width}" height="${height}" fill="${GROUND}"/>\n` +
     `<text x="${Math.min(frame.margin.left, 64)}" y="24" font-size="15" font-weight="600">${escapeXml(title)}</text>\n` +
     body +
-    `<text x="${width - 8}" y="${height - 8}" text-anchor="end" font-size="9" opacity="0.7">alight · simulation clears nothing for flight</text>\n` +
+    `<text x="${width - 8}" y="${height - 8}" text-anchor="end" font-size="9" opacity="0.7">alight · ${escapeXml(SAFETY_CAUTION_SHORT)}</text>\n` +
     `</svg>\n`
   );
 }

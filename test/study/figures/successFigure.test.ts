@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { successFigure } from '../../../estimator/study/figures/successFigure.js';
+import { SAFETY_CAUTION, SAFETY_CAUTION_SHORT } from '../../../estimator/safetyCaution.js';
 import { expectWellFormedSvg } from './expectWellFormedSvg.js';
 
 describe('successFigure', () => {
@@ -13,6 +14,9 @@ describe('successFigure', () => {
     expect(svg).toContain('detector.pixelNoise &lt;px&gt;');
     expect(svg).toContain('Wilson 95 % interval');
     expect((svg.match(/<circle /g) ?? []).length).toBe(3);
-    expect(svg).toContain('clears nothing for flight');
+    // the footer carries the short form of the one caution text, cut from it
+    expect(SAFETY_CAUTION_SHORT).toBe('Simulation and replay results clear nothing for flight.');
+    expect(SAFETY_CAUTION.startsWith(SAFETY_CAUTION_SHORT)).toBe(true);
+    expect(svg).toContain(`>alight · ${SAFETY_CAUTION_SHORT}</text>`);
   });
 });

@@ -29,18 +29,21 @@ const LITERAL = /true|false|null|-?(?:0|[1-9]\d*)(?:\.\d+)?(?:[eE][+-]?\d+)?/y;
  *   nesting beyond MAX_DEPTH, with 1-based line and column.
  * @example parseJsonText('\uFEFF{"a": 1}').value // { a: 1 }
  */
-export function parseJsonText(text: string): { value: unknown; lines: Map<string, number> } {
-  const lines = jsonLines(text);
-  return { value: JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text) as unknown, lines };
+export function parseJsonText(text: string): { value: unknown; lines: Map<string, number>; columns: Map<string, number> } {
+  const columns = new Map<string, number>();
+  const lines = jsonLines(text, columns);
+  return { value: JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text) as unknown, lines, columns };
 }
 
 /**
  * Scan `text` and return the 1-based line of every value, keyed by dotted path
  * ('' for the root, 'detector.pixelNoise', 'lander.startOffset.2'). Throws JsonSyntaxError
- * at the first syntax error.
+ * at the first syntax error. When `columns` is given it receives the 1-based column of every
+ * value by the same path (counted in UTF-16 units, as the syntax-error column is), so messages
+ * can read file:line:column.
  * @example jsonLines('{\n "a": {\n  "b": 1 }}').get('a.b') // 3
  */
-export function jsonLines(text: string): Map<string, number> {
+export function jsonLines(text: string, columns?: Map<string, number>): Map<string, number> {
   const lines = new Map<string, number>();
   const start = text.charCodeAt(0) === 0xfeff ? 1 : 0;
   let i = start;
@@ -83,7 +86,10 @@ export function jsonLines(text: string): Map<string, number> {
   };
   const value = (path: string): void => {
     space();
-    lines.set(path, lineAt(i));
+    const line = lineAt(i);
+    lines.set(path, line);
+    // column from the line start; the byte-order mark is not a column
+    columns?.set(path, i - Math.max(lineStarts[line - 1]!, start) + 1);
     const c = text[i];
     const join = (key: string) => (path === '' ? key : `${path}.${key}`);
     if ((c === '{' || c === '[') && ++depth > MAX_DEPTH) failAt(i, `nesting deeper than ${MAX_DEPTH} levels`);

@@ -1,6 +1,6 @@
 // Scenario text -> validated, frozen Scenario. Browser-safe; the Node file reader is
 // loadScenario.ts. Bad JSON is reported with file, line and column; schema and cross-field
-// problems one per line with file, line and field path (see validateScenario).
+// problems one per line with file, line, column and field path (see validateScenario).
 import type { Scenario } from '../sim/Scenario.js';
 import { JsonSyntaxError, parseJsonText } from './jsonPositions.js';
 import { ScenarioError } from './ScenarioError.js';
@@ -10,10 +10,10 @@ import { validateScenario } from './validateScenario.js';
  * Parse and validate a scenario file's text. A recorded carrier path named by `file`
  * keeps `points` undefined here; loadScenario (Node) reads the CSV into it.
  * @throws ScenarioError — one message per problem, e.g.
- *   `rover.scenario.json:14: detector.pixelNoise: must be >= 0, got -1`.
+ *   `rover.scenario.json:14:19: detector.pixelNoise: must be >= 0, got -1`.
  */
 export function parseScenario(text: string, fileName: string): Scenario {
-  let parsed: { value: unknown; lines: Map<string, number> };
+  let parsed: { value: unknown; lines: Map<string, number>; columns: Map<string, number> };
   try {
     parsed = parseJsonText(text);
   } catch (error) {
@@ -22,5 +22,5 @@ export function parseScenario(text: string, fileName: string): Scenario {
     }
     throw error;
   }
-  return validateScenario(parsed.value, fileName, parsed.lines);
+  return validateScenario(parsed.value, fileName, parsed.lines, parsed.columns);
 }

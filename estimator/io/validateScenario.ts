@@ -107,17 +107,22 @@ function crossFieldProblems(s: Scenario, raw: Record<string, unknown>): [string,
 
 /**
  * Validate a parsed scenario object, fill defaults and freeze it. `lines` maps field paths
- * to 1-based lines (from jsonLines) so messages read `file:line: path: problem`.
+ * to 1-based lines (from jsonLines) so messages read `file:line: path: problem`; with
+ * `columns` too (same paths) they read `file:line:column: path: problem`, the column of the
+ * value at fault (or of the nearest enclosing value that is in the file).
  * @throws ScenarioError with one message per problem.
  */
-export function validateScenario(raw: unknown, fileName: string, lines?: ReadonlyMap<string, number>): Scenario {
+export function validateScenario(raw: unknown, fileName: string, lines?: ReadonlyMap<string, number>, columns?: ReadonlyMap<string, number>): Scenario {
   const where = (path: string): { prefix: string; line: number } => {
     let line: number | undefined;
+    let column: number | undefined;
     for (let p = path; line === undefined; p = p.includes('.') ? p.slice(0, p.lastIndexOf('.')) : '') {
       line = lines?.get(p);
+      column = columns?.get(p);
       if (p === '') break;
     }
-    return { prefix: `${fileName}${line !== undefined ? `:${line}` : ''}: ${path === '' ? '(top level)' : path}`, line: line ?? 0 };
+    const at = line === undefined ? '' : column === undefined ? `:${line}` : `:${line}:${column}`;
+    return { prefix: `${fileName}${at}: ${path === '' ? '(top level)' : path}`, line: line ?? 0 };
   };
   const found: { line: number; path: string; text: string }[] = [];
   const add = (path: string, message: string): void => {

@@ -42,7 +42,7 @@ describe.skipIf(!runBrowserTests)('an own scenario in chromium', () => {
     const a: Analysis = { study: 'detection', scenario: defaultScenario(), parameters: { impairment: 'dropout', trials: 3 }, seed: 4, toolVersion: VERSION };
     await openAnalysis(page, server.url, a);
 
-    // A wrong file is refused with the validator's file:line message, as the CLI prints it.
+    // A wrong file is refused with the validator's file:line:column message, as the CLI prints it.
     const bad = JSON.stringify({ ...JSON.parse(JSON.stringify(defaultScenario())), name: 'broken', detector: { ...defaultScenario().detector, pixelNoise: -1 } }, null, 2);
     writeFileSync(join(work, 'broken.scenario.json'), bad);
     let expected = '';
@@ -51,7 +51,7 @@ describe.skipIf(!runBrowserTests)('an own scenario in chromium', () => {
     } catch (error) {
       expected = (error as Error).message;
     }
-    expect(expected).toMatch(/^broken\.scenario\.json:\d+: detector\.pixelNoise/m);
+    expect(expected).toMatch(/^broken\.scenario\.json:\d+:\d+: detector\.pixelNoise/m);
     await page.setInputFiles('#open-scenario-file', join(work, 'broken.scenario.json'));
     await page.waitForSelector('#scenario-problem:not([hidden])');
     expect(await page.textContent('#scenario-problem')).toBe(expected);

@@ -88,10 +88,10 @@ describe('alight simulate', () => {
     expect(stdout).toBe('');
     expect(stderr).not.toMatch(/\bat \w+ \(/); // no stack frames
     expect(stderr.trim().split('\n')).toEqual([
-      'alight simulate: rover.scenario.json:4: detector.pixelNoise: must be >= 0, got -1',
-      'alight simulate: rover.scenario.json:6: detector.latencyy: unknown key (expected one of: rate, pixelNoise, sizeNoise, latency, latencyJitter, dropout, burst, falseBoxRate, edgeMargin, script)',
-      'alight simulate: rover.scenario.json:9: lander.maxTiltDeg: must be < 90, got 120',
-      'alight simulate: rover.scenario.json:12: guidance.law: must be one of "pid", "lqr", got "bang-bang"',
+      'alight simulate: rover.scenario.json:4:19: detector.pixelNoise: must be >= 0, got -1', // line:column of the value, counted by hand in the 2-space JSON
+      'alight simulate: rover.scenario.json:6:17: detector.latencyy: unknown key (expected one of: rate, pixelNoise, sizeNoise, latency, latencyJitter, dropout, burst, falseBoxRate, edgeMargin, script)',
+      'alight simulate: rover.scenario.json:9:19: lander.maxTiltDeg: must be < 90, got 120',
+      'alight simulate: rover.scenario.json:12:12: guidance.law: must be one of "pid", "lqr", got "bang-bang"',
     ]);
   });
 

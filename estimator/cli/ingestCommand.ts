@@ -1,6 +1,6 @@
 // `alight ingest <recording.mcap> --map map.json --out <log-folder> [--force] [--json]`: turn a
 // ROS 2 recording into the flight-log layout, so `alight replay` and `alight tune` can read it.
-import { existsSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { isAbsolute, join } from 'node:path';
 import { STREAM_SPECS } from '../io/log/logStreams.js';
 import { ingestRosRecordingToFolder, RecordingError, type IngestReport } from '../io/ros/ingestRosRecording.node.js';
@@ -9,6 +9,7 @@ import { CliError } from './CliError.js';
 import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, parseArgs, type OptionSpec } from './parseArgs.js';
 import { checkOutputs } from './outputFiles.js';
+import { commitStaging, discardStaging, startStaging } from './stagedLogFolder.js';
 
 const OPTIONS: OptionSpec[] = [
   { name: 'map', kind: 'value', valueName: 'map.json', help: 'which topics and fields give boxes, IMU, attitude, odometry, truth and the camera (schema: estimator/io/ros/rosMap.schema.json)' },
@@ -74,17 +75,18 @@ export const ingestCommand: Command = {
     if (existsSync(folder)) {
       const present = readdirSync(folder).filter((f) => LOG_FILES.includes(f));
       if (present.length > 0 && !parsed.flags.has('force')) throw new CliError(`alight ingest: ${out} already holds a log (${present.slice(0, 3).join(', ')}${present.length > 3 ? ', ...' : ''}); use --force to overwrite`);
-      for (const f of present) rmSync(join(folder, f));
     }
     let report: IngestReport;
+    let staging: string | undefined;
     try {
-      report = await ingestRosRecordingToFolder(resolve(recording), map, folder, { name: recording });
+      // Written beside the target and moved in when complete: a stopped conversion leaves no
+      // half-written log behind to be replayed by mistake, and --force keeps the old log until then.
+      staging = startStaging(folder);
+      report = await ingestRosRecordingToFolder(resolve(recording), map, staging, { name: recording });
+      commitStaging(staging, folder, LOG_FILES);
     } catch (error) {
-      if (error instanceof RecordingError) {
-        // A stopped conversion leaves no half-written log behind to be replayed by mistake.
-        for (const f of LOG_FILES) rmSync(join(folder, f), { force: true });
-        throw new CliError(`alight ingest: ${error.message}`);
-      }
+      if (staging !== undefined) discardStaging(staging);
+      if (error instanceof RecordingError) throw new CliError(`alight ingest: ${error.message}`);
       const code = (error as { code?: string }).code;
       if (code !== undefined && ['EACCES', 'EPERM', 'EROFS', 'ENOENT', 'ENOTDIR', 'EEXIST', 'EISDIR', 'ENOSPC'].includes(code)) throw new CliError(`alight ingest: cannot write ${out} (${code})`);
       throw error;

@@ -1,6 +1,6 @@
 // `alight record <scenario.json> --out <log-folder> [--seed N] [--no-truth] [--force]`: fly one
 // simulated trial and write it in the flight-log layout, so `alight replay` can run on it.
-import { existsSync, readdirSync, rmSync } from 'node:fs';
+import { existsSync, readdirSync } from 'node:fs';
 import { isAbsolute, join } from 'node:path';
 import { folderSink } from '../io/log/folderSink.node.js';
 import { recordTrial } from '../io/log/recordTrial.js';
@@ -10,6 +10,7 @@ import type { Command } from './Command.js';
 import { formatHelp, HELP_OPTION, numberOption, parseArgs, type OptionSpec } from './parseArgs.js';
 import { loadScenarioForCli } from './loadScenarioForCli.js';
 import { checkOutputs, scenarioFiles } from './outputFiles.js';
+import { commitStaging, discardStaging, startStaging } from './stagedLogFolder.js';
 import { SAFETY_CAUTION } from '../safetyCaution.js';
 
 const OPTIONS: OptionSpec[] = [
@@ -51,13 +52,16 @@ export const recordCommand: Command = {
     if (existsSync(folder)) {
       const present = readdirSync(folder).filter((f) => LOG_FILES.includes(f));
       if (present.length > 0 && !parsed.flags.has('force')) throw new CliError(`alight record: ${out} already holds a log (${present.slice(0, 3).join(', ')}${present.length > 3 ? ', ...' : ''}); use --force to overwrite`);
-      // --force: the old log's files go, so no stale truth.csv or onboard.csv survives.
-      for (const f of present) rmSync(join(folder, f));
+      // --force: the old log's files go once the new log is complete (commitStaging), so no stale truth.csv or onboard.csv survives.
     }
     let recorded;
+    let staging: string | undefined;
     try {
-      recorded = recordTrial(scenario, folderSink(folder), { key: { seed, point: 0, trial: 0 }, truth: !parsed.flags.has('no-truth') });
+      staging = startStaging(folder);
+      recorded = recordTrial(scenario, folderSink(staging), { key: { seed, point: 0, trial: 0 }, truth: !parsed.flags.has('no-truth') });
+      commitStaging(staging, folder, LOG_FILES);
     } catch (error) {
+      if (staging !== undefined) discardStaging(staging);
       const code = (error as { code?: string }).code;
       if (code !== undefined && ['EACCES', 'EPERM', 'EROFS', 'ENOENT', 'ENOTDIR', 'EEXIST', 'EISDIR', 'ENOSPC'].includes(code)) throw new CliError(`alight record: cannot write ${out} (${code})`);
       throw error;

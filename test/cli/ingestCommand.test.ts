@@ -1,4 +1,4 @@
-import { existsSync, mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -47,6 +47,20 @@ describe('alight ingest', () => {
     expect(refused.code).toBe(2);
     expect(refused.err).toContain('alight ingest: twice already holds a log');
     expect((await run('ingest', 'flight.mcap', '--map', 'flight.map.json', '--out', 'twice', '--force')).code).toBe(0);
+  });
+
+  it('a recording damaged mid-way leaves --force\'s old log whole and no staging folder behind', async () => {
+    expect((await run('ingest', 'flight.mcap', '--map', 'flight.map.json', '--out', 'kept')).code).toBe(0);
+    const before = Object.fromEntries(readdirSync(join(dir, 'kept')).map((f) => [f, readFileSync(join(dir, 'kept', f), 'utf8')]));
+    const whole = readFileSync(join(dir, 'flight.mcap'));
+    const broken = Buffer.from(whole);
+    broken.fill(0xff, Math.floor(whole.length / 2), Math.floor(whole.length / 2) + 64); // a record damaged half-way through
+    writeFileSync(join(dir, 'cut.mcap'), broken);
+    const cut = await run('ingest', 'cut.mcap', '--map', 'flight.map.json', '--out', 'kept', '--force');
+    expect(cut.code).toBe(2);
+    expect(cut.err).toMatch(/^alight ingest: cut\.mcap: the recording is damaged after log time \d+ ns/); // failed mid-stream, after rows were written
+    expect(Object.fromEntries(readdirSync(join(dir, 'kept')).map((f) => [f, readFileSync(join(dir, 'kept', f), 'utf8')]))).toEqual(before);
+    expect(readdirSync(dir).filter((f) => f.endsWith('.partial'))).toEqual([]);
   });
 
   it('exits 2 with file, line and field for a bad map, and names a missing topic', async () => {

@@ -1,5 +1,6 @@
 // `alight sensitivity`: rank impairments by the landing success they cost over their plausible
 // range, one at a time around the scenario, with 95 % intervals.
+import { rateDecimals } from '../study/formatNumbers.js';
 import { applyParams } from '../study/applyParams.js';
 import { sensitivityFigure } from '../study/figures/sensitivityFigure.js';
 import { PLAUSIBLE_RANGES, type PlausibleRange } from '../study/plausibleRanges.js';
@@ -69,7 +70,7 @@ export const sensitivityCommand: Command = {
       if (svgOut) writeOutput('sensitivity', svgOut, sensitivityFigure(rows.map((r) => ({ label: `${r.path} ${r.good.value} → ${r.bad.value}`, loss: r.loss, low: r.lossLow, high: r.lossHigh }))));
       if (parsed.flags.has('json')) io.stdout(JSON.stringify(rows, null, 1) + '\n');
       else {
-        const pct = (v: number) => `${(100 * v).toFixed(1)}`;
+        const pct = (v: number) => (100 * v).toFixed(rateDecimals(trials)); // the digits `trials` outcomes resolve
         const head = 'impairment (good -> bad)'.padEnd(48) + 'success good -> bad'.padEnd(22) + 'lost (95 % interval)';
         const body = rows.map((r) => `${`${r.path} ${r.good.value} -> ${r.bad.value}`.padEnd(48)}${`${pct(r.good.rate)} % -> ${pct(r.bad.rate)} %`.padEnd(22)}${pct(r.loss)} pts (${pct(r.lossLow)} .. ${pct(r.lossHigh)})`);
         io.stdout([head, ...body].join('\n') + `\n${trials} trials at each end; one impairment at a time around ${scenario.name}.\n${SAFETY_CAUTION}\n`);

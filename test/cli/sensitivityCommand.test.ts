@@ -29,6 +29,12 @@ describe('alight sensitivity (real trials)', () => {
     expect(svg).toContain('lander.wind.speed 0 → 10');
     expect(svg).toContain('detector.dropout 0 → 0.6');
   });
+  it('alight sensitivity text gives rates in whole percent for 3 trials (one trial moves a rate by 33 %)', async () => {
+    const io = fakeIo(process.cwd());
+    expect(await main(['sensitivity', scenario, '--vary', 'lander.wind.speed=0:10', '--trials', '3', '--workers', '1'], io), io.err.join('')).toBe(0);
+    const row = io.out.join('').split('\n')[1]!;
+    expect(row).toMatch(/^lander\.wind\.speed 0 -> 10 +(0|33|67|100) % -> (0|33|67|100) % +-?\d+ pts \(-?\d+ \.\. -?\d+\)$/);
+  });
   it('alight sensitivity refuses an unknown path before running any trial', async () => {
     const io = fakeIo(process.cwd());
     expect(await main(['sensitivity', scenario, '--vary', 'detector.pixelNoize=0:1', '--workers', '1'], io)).toBe(2);

@@ -10,6 +10,7 @@ import { estimatesHeader, estimatesRowFromDiagonal } from './estimatesCsv.js';
 import type { FilterCamera } from '../../models/FilterCamera.js';
 import { LOG_FORMAT, LOG_VERSION } from './parseLogCamera.js';
 import type { TrialRecorder } from './TrialRecorder.js';
+import { LOG_FILE_HEADERS } from './logFileHeaders.js';
 
 /** Receives file text in order: write() may be called many times per file. */
 export interface LogTextSink {
@@ -21,14 +22,6 @@ export interface LogTextSink {
 /** Buffered text per file before it goes to the sink (characters). */
 const FLUSH_CHARS = 1 << 16;
 
-const HEADERS: Record<string, string> = {
-  'imu.csv': 'time,fx,fy,fz',
-  'attitude.csv': 'time,qw,qx,qy,qz',
-  'odometry.csv': 'time,vx,vy,vz',
-  'boxes.csv': 'time,arrival,xMin,yMin,xMax,yMax,score',
-  'truth.csv': 'time,rx,ry,rz,vcx,vcy,vcz,vlx,vly,vlz',
-  'resets.csv': 'time',
-};
 
 export interface LogRecorderOptions {
   /** The camera the filter believes in (focal error included, misalignment not). */
@@ -72,7 +65,7 @@ export class LogRecorder implements TrialRecorder {
     };
     sink.write('camera.json', JSON.stringify(camera, null, 2) + '\n');
     sink.write('filter.json', JSON.stringify(options.filter, null, 2) + '\n');
-    for (const [file, header] of Object.entries(HEADERS)) if (file !== 'truth.csv' || this.withTruth) this.buffers.set(file, header + '\n');
+    for (const [file, header] of Object.entries(LOG_FILE_HEADERS)) if (file !== 'truth.csv' || this.withTruth) this.buffers.set(file, header + '\n');
   }
 
   private append(file: string, line: string): void {

@@ -11,17 +11,9 @@ import { RecordingError } from './RecordingError.js';
 import { cornerBoxes, detectionBoxes, emptyBoxCounts } from './rosBoxes.js';
 import { attitudeOf, cameraFromInfo, imuSpecificForce, logTimeSeconds, MessageContentError, odometryState, stampSeconds, velocityOf, type Decoded, type RosCamera } from './rosMessages.js';
 import { TruthPairing } from './TruthPairing.js';
+import { LOG_FILE_HEADERS, type LogFile } from '../log/logFileHeaders.js';
 
-const HEADERS = {
-  'imu.csv': 'time,fx,fy,fz',
-  'attitude.csv': 'time,qw,qx,qy,qz',
-  'odometry.csv': 'time,vx,vy,vz',
-  'boxes.csv': 'time,arrival,xMin,yMin,xMax,yMax,score',
-  'truth.csv': 'time,rx,ry,rz,vcx,vcy,vcz,vlx,vly,vlz',
-  'resets.csv': 'time',
-} as const;
-type LayoutFile = keyof typeof HEADERS;
-const FILE_OF: Partial<Record<IngestRole, LayoutFile>> = { boxes: 'boxes.csv', imu: 'imu.csv', attitude: 'attitude.csv', odometry: 'odometry.csv', truthLander: 'truth.csv', resets: 'resets.csv' };
+const FILE_OF: Partial<Record<IngestRole, LogFile>> = { boxes: 'boxes.csv', imu: 'imu.csv', attitude: 'attitude.csv', odometry: 'odometry.csv', truthLander: 'truth.csv', resets: 'resets.csv' };
 
 export interface RosLayoutContext {
   /** Recording name for messages. */
@@ -43,8 +35,8 @@ export class RosLayoutWriter {
   private readonly context: RosLayoutContext;
   private readonly byTopic = new Map<string, Route[]>();
   private readonly shift: number;
-  private readonly lastTime: Partial<Record<LayoutFile, number>> = {};
-  private readonly unordered: Partial<Record<LayoutFile, number>> = {};
+  private readonly lastTime: Partial<Record<LogFile, number>> = {};
+  private readonly unordered: Partial<Record<LogFile, number>> = {};
   private readonly truth: TruthPairing | null;
   private readonly boxCounts = emptyBoxCounts();
   private boxFrameChecked = false;
@@ -63,7 +55,7 @@ export class RosLayoutWriter {
     this.context = context;
     const map = context.map;
     this.shift = map.camera.pixelCentres === 'integer' ? 0.5 : 0;
-    this.rows = new LayoutRows(sink, HEADERS);
+    this.rows = new LayoutRows(sink, LOG_FILE_HEADERS);
     for (const route of context.routes) {
       const file = FILE_OF[route.role];
       if (file) this.rows.ensure(file); // every mapped stream gets its file, rows or not
@@ -176,7 +168,7 @@ export class RosLayoutWriter {
     s.left[reason] = (s.left[reason] ?? 0) + n;
   }
 
-  private write(role: IngestRole, file: LayoutFile, t: number, line: string, orderTime = t): void {
+  private write(role: IngestRole, file: LogFile, t: number, line: string, orderTime = t): void {
     if (orderTime < (this.lastTime[file] ?? -Infinity)) this.unordered[file] = (this.unordered[file] ?? 0) + 1;
     this.lastTime[file] = orderTime;
     this.rows.add(file, line);

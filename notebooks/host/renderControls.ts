@@ -33,15 +33,7 @@ export function showControlValue(root: ParentNode, spec: Parameter | 'seed', val
 
 export function renderControl(spec: Parameter, value: ParameterValue, onChange: (value: ParameterValue) => void): HTMLElement {
   if (spec.kind === 'list') return renderListControl(spec, String(value), onChange);
-  const box = document.createElement('div');
-  box.className = 'control';
-  const id = `control-${spec.name}`;
-  const label = document.createElement('label');
-  label.htmlFor = id;
-  label.textContent = spec.label;
-  const output = document.createElement('output');
-  output.htmlFor.add(id);
-  output.textContent = formatValue(spec, value);
+  const { box, id, label, output } = controlFrame(spec, value);
   let committed = String(value);
   let input: HTMLInputElement | HTMLSelectElement;
   const commit = (): void => {
@@ -108,8 +100,8 @@ export function renderControl(spec: Parameter, value: ParameterValue, onChange: 
   return box;
 }
 
-/** A list of numbers, typed: commits on change or Enter when it reads as one, else names the problem. */
-function renderListControl(spec: ListParameter, value: string, onChange: (value: ParameterValue) => void): HTMLElement {
+/** What every control shows around its input: the box, its label and the current value's output. */
+function controlFrame(spec: Parameter, value: ParameterValue): { box: HTMLDivElement; id: string; label: HTMLLabelElement; output: HTMLOutputElement } {
   const box = document.createElement('div');
   box.className = 'control';
   const id = `control-${spec.name}`;
@@ -119,6 +111,12 @@ function renderListControl(spec: ListParameter, value: string, onChange: (value:
   const output = document.createElement('output');
   output.htmlFor.add(id);
   output.textContent = formatValue(spec, value);
+  return { box, id, label, output };
+}
+
+/** A list of numbers, typed: commits on change or Enter when it reads as one, else names the problem. */
+function renderListControl(spec: ListParameter, value: string, onChange: (value: ParameterValue) => void): HTMLElement {
+  const { box, id, label, output } = controlFrame(spec, value);
   const input = document.createElement('input');
   input.type = 'text';
   input.id = id;

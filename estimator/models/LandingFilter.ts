@@ -13,6 +13,7 @@ import { type Box, boxProblem } from '../camera/Box.js';
 import type { FilterCamera } from './FilterCamera.js';
 import { FilterHistory, EVENT_DATA, EVENT_LOOSE, EVENT_ODOMETRY, EVENT_TIGHT, EVENTS_PER_STEP } from './FilterHistory.js';
 import type { DeckOutline } from './OutlineBoxModel.js';
+import type { ImuHistory } from './ImuHistory.js';
 import { LandingCore } from './LandingCore.js';
 import { rejected, type InitialSigma, type UpdateResult, type UpdateStatus } from './UpdateResult.js';
 import { validateFilterSpec } from './validateFilterSpec.js';
@@ -61,6 +62,9 @@ export class LandingFilter {
   private readonly attitude = new Float64Array(4);
   private readonly force = new Float64Array(3);
   private readonly replayForce = new Float64Array(3);
+  /** Scratch for the IMU samples a delayed start re-propagates. */
+  private readonly startForce = new Float64Array(3);
+  private readonly startAttitude = new Float64Array(4);
   private readonly replayAttitude = new Float64Array(4);
 
   /**
@@ -151,6 +155,25 @@ export class LandingFilter {
     this.history.clear();
     this.history.push(t, this.force, this.attitude, this.state);
     return { status: 'accepted', nis: Number.NaN, dim: 3, reason: null };
+  }
+
+  /**
+   * Start from a box captured at `capture` (s, filter clock; at most the newest IMU time) and bring
+   * the estimate to now through the IMU samples kept since. The history then reaches back to the
+   * capture, so the boxes captured during the latency window are applied where they belong; a
+   * start at arrival refused them all as older than its history.
+   */
+  initializeFromDelayedBox(capture: number, box: Box, qWorldBody: ArrayLike<number>, vL: ArrayLike<number>, sigma: { velocity: number; accelBias: number }, imu: ImuHistory): UpdateResult {
+    const result = this.initializeFromBox(capture, box, qWorldBody, vL, sigma);
+    if (result.status !== 'accepted') return result;
+    for (let j = 0; j < imu.size; j++) {
+      const tj = imu.time(j);
+      if (tj <= capture) continue;
+      imu.sample(j, this.startForce, this.startAttitude);
+      const step = this.propagate(tj, this.startForce, this.startAttitude);
+      if (step !== null && step.status === 'diverged') return step;
+    }
+    return result;
   }
 
   /** IMU step to time t: specific force in body FLU (m/s²), estimated attitude q_wb [w, x, y, z]. */

@@ -12,3 +12,4 @@ export { R_INDEX, VC_INDEX, VL_INDEX, BA_INDEX, AC_INDEX, STANDARD_GRAVITY, land
 export { validateFilterSpec } from './validateFilterSpec.js';
 export { rejected } from './UpdateResult.js';
 export type { FilterSpec, CameraUpdateMode, CarrierModel } from './FilterSettings.js';
+export { ImuHistory } from './ImuHistory.js';

@@ -14,6 +14,7 @@ import { attributeFailure } from './attribution/attributeFailure.js';
 import { FailureLog } from './attribution/FailureLog.js';
 import { createGuidance } from './guidance.js';
 import { AttitudeHistory, attitudeHistorySize } from './AttitudeHistory.js';
+import { ImuHistory } from '../models/ImuHistory.js';
 import { OutlineForecast } from './OutlineForecast.js';
 import { NadirGimbal } from './world/NadirGimbal.js';
 import { withHistoryFor } from './historyFor.js';
@@ -114,6 +115,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   const qFilter = gimbal ? st.qCameraEstimate : st.qEstimate, fFilter = gimbal ? st.forceCamera : st.force;
   const cameraPose = gimbal ? { position: ls.position, qWorldBody: st.qCameraTrue } : ls;
   const attitudes = new AttitudeHistory(attitudeHistorySize(filterSpec.historyLength, localization.imuRate));
+  const imuSamples = new ImuHistory(attitudeHistorySize(filterSpec.historyLength, localization.imuRate));
   const pending: DetectorFrame[] = new Array<DetectorFrame>(PENDING);
   let pendingHead = 0, pendingCount = 0;
   const input: SupervisorInput = { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, valid: false, height: 0, vcz: 0, unseenFor: Infinity, lastSeen: -Infinity, diverged: false, blind: false, confirmed: false };
@@ -155,6 +157,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       errors.specificForce(ls.specificForceBody, st.force);
       if (gimbal) st.onGimbal(gimbal.q);
       attitudes.push(t, qFilter);
+      imuSamples.push(t, fFilter, qFilter);
       if (initialized) {
         const r = filter.propagate(t, fFilter, qFilter);
         if (r && r.status === 'diverged') st.noteDivergence(filter.diverged);
@@ -194,11 +197,11 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       st.lastBox = frame.box;
       // (re-)acquisition: the first box, after a divergence, and after an abort (a lost target
       // may have been a false box all along, so the estimate starts afresh from the next box)
-      // The filter starts at the box's arrival time (as replay does, README.md, "Flight-log layout"); a box
-      // older than the filter's history could not be used as a measurement either, so it
-      // starts nothing (a box 0.8 s old placed at its arrival flew the lander into the deck).
+      // The filter starts at the box's capture stamp and re-propagates the IMU samples since (as
+      // replay does, README.md, "Flight-log layout"), so the boxes captured while this one was
+      // in flight are applied too; a box older than the filter's history starts nothing.
       if (!initialized || reacquire || filter.diverged) {
-        if (acquire(filter, st, attitudes, frame.box, t, stamp, filterSpec.historyLength)) {
+        if (acquire(filter, st, attitudes, imuSamples, frame.box, t, stamp, filterSpec.historyLength)) {
           st.startedAfresh(initialized); // a re-start (after an abort, divergence or refused boxes) must be confirmed
           log?.acquired(t, frame.falseBox, initialized);
           initialized = true;
@@ -293,9 +296,9 @@ function contactEnds(contact: DeckContact): boolean {
 }
 
 /** (Re-)start the filter from a box, read with the attitude estimated at its capture; true when it started (needs odometry and a box the history still covers). */
-function acquire(filter: LandingFilter, st: TrialState, attitudes: AttitudeHistory, box: Box, t: number, stamp: number, historyLength: number): boolean {
+function acquire(filter: LandingFilter, st: TrialState, attitudes: AttitudeHistory, imu: ImuHistory, box: Box, t: number, stamp: number, historyLength: number): boolean {
   if (!st.haveOdometry || t - stamp > historyLength || !attitudes.at(stamp, st.qCapture)) return false;
-  return filter.initializeFromBox(t, box, st.qCapture, st.odometry, INITIAL_SIGMA).status === 'accepted';
+  return filter.initializeFromDelayedBox(Math.min(stamp, t), box, st.qCapture, st.odometry, INITIAL_SIGMA, imu).status === 'accepted';
 }
 
 /** Box update at its (clamped) capture stamp, tallied in st (and the log); true when the filter accepted it. */

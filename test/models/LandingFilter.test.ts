@@ -9,6 +9,7 @@ import { CameraError } from '../../estimator/camera/PinholeCamera.js';
 import { expectAllClose, expectClose } from '../helpers/expectClose.js';
 import { camera, filterSpec, hoverForce, targetSize } from './landingFixture.js';
 import { simulateTracking } from './trackingSimulation.js';
+import { ImuHistory } from '../../estimator/models/ImuHistory.js';
 
 const sigma = { position: 0.5, velocity: 0.3, accelBias: 0.05 };
 const level = [1, 0, 0, 0];
@@ -67,6 +68,23 @@ describe('LandingFilter: construction and bad input', () => {
     const filter = started({ historyLength: 0.05 });
     for (let k = 1; k <= 100; k++) filter.propagate(k * 0.005, hoverForce, level);
     expect(filter.updateBox(0.1, boxFor(r0)).reason).toBe('older-than-history');
+  });
+
+  it('a start at the capture of a late box re-propagates the kept IMU samples, so the boxes captured in its latency window are used, not refused as older than the history', () => {
+    // hover at 200 Hz for 1 s; the first box was captured at 0.7 s and arrives at 1.0 s (0.3 s latency)
+    const imu = new ImuHistory(400);
+    for (let k = 1; k <= 200; k++) imu.push(k * 0.005, hoverForce, level);
+    const sigma = { velocity: 0.5, accelBias: 0.1 };
+    const atCapture = new LandingFilter(filterSpec({ historyLength: 0.5 }), camera, targetSize);
+    expect(atCapture.initializeFromDelayedBox(0.7, boxFor(r0), level, [0, 0, 0], sigma, imu).status).toBe('accepted');
+    expect(atCapture.time).toBe(1); // brought to the newest IMU sample
+    const atArrival = new LandingFilter(filterSpec({ historyLength: 0.5 }), camera, targetSize);
+    atArrival.initializeFromBox(1, boxFor(r0), level, [0, 0, 0], sigma);
+    // a box captured at 0.8 s (in flight while the first one was): refused by a start at arrival
+    expect(atArrival.updateBox(0.8, boxFor(r0)).reason).toBe('older-than-history');
+    expect(atCapture.updateBox(0.8, boxFor(r0)).status).toBe('accepted');
+    // 0.3 s of hover re-propagated leave the position where the first box put it (0.05 m: the second box's update moves it a little)
+    expectAllClose(atCapture.x.slice(0, 3), atArrival.x.slice(0, 3), { abs: 0.05 }, 'r after a consistent second box');
   });
 
   it('initializeFromBox refuses a bad box or attitude and stays uninitialized', () => {

@@ -10,6 +10,7 @@
 import { LandingFilter, type Box } from '../../models/LandingFilter.js';
 import type { FilterSpec } from '../../sim/Scenario.js';
 import { AttitudeHistory, attitudeHistorySize } from '../../sim/AttitudeHistory.js';
+import { ImuHistory } from '../../models/ImuHistory.js';
 import type { LogCamera } from './parseLogCamera.js';
 import { BOX_SLOTS } from './logStreams.js';
 import { DEFAULT_INITIAL_SIGMA, type ReplaySettings } from './ReplayReport.js';
@@ -51,6 +52,8 @@ export class LogReplayer {
   private readonly q = new Float64Array([Number.NaN, 0, 0, 0]);
   /** Attitudes of the last historyLength (+ 0.1 s), to read a starting box with the attitude of its capture. */
   private readonly attitudes: AttitudeHistory;
+  /** IMU rows kept so a start at a box's capture can re-propagate to its arrival. */
+  private readonly imuSamples: ImuHistory;
   private readonly qCapture = new Float64Array(4);
   private readonly f = new Float64Array(3);
   private readonly vL = new Float64Array(3);
@@ -62,6 +65,7 @@ export class LogReplayer {
     this.hasOdometry = hasOdometry;
     this.filter = new LandingFilter(spec, camera.camera, camera.targetSize, camera.outline);
     this.attitudes = new AttitudeHistory(attitudeHistorySize(spec.historyLength, spec.rate));
+    this.imuSamples = new ImuHistory(attitudeHistorySize(spec.historyLength, spec.rate));
     const lags = settings.lags ?? 20;
     const gate = gateThreshold(spec.gateProbability, 3, spec.gateScale);
     this.boxLikelihood = new InnovationLikelihood(gate);
@@ -90,9 +94,10 @@ export class LogReplayer {
 
   /** Emit the estimate of the finished step, then propagate (y = specific force, body FLU). */
   imu(v: Float64Array): RowOutcome {
+    for (let i = 0; i < 3; i++) this.f[i] = v[1 + i]!;
+    this.imuSamples.push(v[0]!, this.f, this.q);
     if (!this.running) return this.idle;
     this.emit();
-    for (let i = 0; i < 3; i++) this.f[i] = v[1 + i]!;
     const result = this.filter.propagate(v[0]!, this.f, this.q);
     this.noteDivergence();
     if (result !== null && result.status !== 'accepted') return `refused: ${result.reason ?? result.status}`;
@@ -173,7 +178,7 @@ export class LogReplayer {
     if (arrival - capture > this.spec.historyLength) return 'too-old-to-start';
     const t = arrival;
     this.attitudes.at(capture, this.qCapture);
-    const result = this.filter.initializeFromBox(t, this.box, this.qCapture, this.vL, this.settings.initialSigma ?? DEFAULT_INITIAL_SIGMA);
+    const result = this.filter.initializeFromDelayedBox(Math.min(capture, t), this.box, this.qCapture, this.vL, this.settings.initialSigma ?? DEFAULT_INITIAL_SIGMA, this.imuSamples);
     if (result.status !== 'accepted') return `start-refused: ${result.reason}`;
     if (this.started) this.restarts++;
     else this.start = t;

@@ -2,7 +2,7 @@
 // landing trial. Prints a short summary (or one JSON object); --trace writes a CSV row per step.
 import { basename, isAbsolute, join } from 'node:path';
 import { runTrial } from '../sim/runTrial.js';
-import { TRACE_COLUMNS, traceCsvLine } from '../sim/trace.js';
+import { traceColumns, traceCsvLine } from '../sim/trace.js';
 import type { Scenario } from '../sim/Scenario.js';
 import type { TrialResult } from '../sim/TrialResult.js';
 import { OUTCOMES, PHASES } from '../sim/TrialResult.js';
@@ -70,7 +70,7 @@ export const simulateCommand: Command = {
     const trace = outputTarget('--trace', tracePath, io.cwd);
     if (trace) checkOutputs('simulate', [trace], scenarioFiles(parsed.positional[0]!, scenario, io.cwd));
     const traceLines: string[] = [];
-    if (tracePath !== undefined) traceLines.push(TRACE_COLUMNS.join(','));
+    if (tracePath !== undefined) traceLines.push(traceColumns((scenario.filter.deckScaleSigma ?? 0) > 0).join(','));
     let result: TrialResult;
     try {
       result = runTrial(scenario, {

@@ -1,5 +1,7 @@
 // Writes models/predictLanding.generated.ts: the predict of predictLanding.ts, for the
-// constant-velocity model (n = 12) and the Singer model (n = 15), as straight-line code. It runs
+// constant-velocity model (n = 12) and the Singer model (n = 15), each also with the deck-scale
+// state last (n = 13, 16: its row and column only see the row pass, F being identity there), as
+// straight-line code. It runs
 // predictLandingLoops' own passes symbolically (same loops, same order and grouping of every
 // operation), so the generated functions give the same x and P to the last bit; each P entry is
 // loaded once into a local and only the entries the step changes are stored, with their mirror
@@ -12,11 +14,11 @@ export function predictLandingSource(): string {
 // predictLandingLoops (predictLanding.ts) unrolled for each model; see the generator.
 import type { ProcessCoefficients } from './ProcessCoefficients.js';
 import { predictLandingState } from './predictLandingState.js';
-${predictFunction(false)}${predictFunction(true)}`;
+${predictFunction(false, false)}${predictFunction(true, false)}${predictFunction(false, true)}${predictFunction(true, true)}`;
 }
 
-function predictFunction(singer: boolean): string {
-  const n = singer ? 15 : 12;
+function predictFunction(singer: boolean, deckScale: boolean): string {
+  const n = (singer ? 15 : 12) + (deckScale ? 1 : 0);
   const lines: string[] = [];
   const cell = new Map<number, string>(); // P index -> local holding its current value
   let counter = 0;
@@ -141,12 +143,14 @@ function predictFunction(singer: boolean): string {
       changed.push(name);
     }
   }
+  // P_ss is never changed by the step; the loops still test every diagonal entry, so this does too
+  if (deckScale) changed.push(`P[${n * n - 1}]!`);
   const terms: string[] = [];
   for (let k = 0; k < changed.length; k += 8) terms.push(changed.slice(k, k + 8).map((name) => `${name} * 0`).join(' + '));
   const singerLocals = singer ? '\n  const alpha = c.alpha, beta = c.beta, e = c.e, QrAc = c.QrAc, QVcAc = c.QVcAc, QAcAc = c.QAcAc;' : '';
   return `
-/** predictLanding(x, P, ${n}, f, Rwb, c) for c.singer = ${singer}; false when x or P became non-finite. */
-export function ${singer ? 'predictSinger' : 'predictConstantVelocity'}(x: Float64Array, P: Float64Array, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
+/** predictLanding(x, P, ${n}, f, Rwb, c) for c.singer = ${singer}${deckScale ? ' with the deck-scale state' : ''}; false when x or P became non-finite. */
+export function ${singer ? 'predictSinger' : 'predictConstantVelocity'}${deckScale ? 'DeckScale' : ''}(x: Float64Array, P: Float64Array, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
   const dt = c.dt, h2 = 0.5 * dt * dt;
   const R00 = Rwb[0]!, R01 = Rwb[1]!, R02 = Rwb[2]!, R10 = Rwb[3]!, R11 = Rwb[4]!, R12 = Rwb[5]!, R20 = Rwb[6]!, R21 = Rwb[7]!, R22 = Rwb[8]!;
   const Qrr = c.Qrr, QrVc = c.QrVc, QrVl = c.QrVl, QVcVc = c.QVcVc, QVlVl = c.QVlVl, QBaBa = c.QBaBa;

@@ -4,10 +4,10 @@
 //   U = P[:, c:c+3] Hbᵀ,  S = Hb U[c:c+3, :] + R,  S⁻¹ by cofactors (S checked positive definite
 //   by its leading minors, Sylvester's criterion),  K = U S⁻¹,  x ← x + K y,
 //   P ← P - K Uᵀ - U Kᵀ + (K S) Kᵀ   (Joseph form expanded; upper triangle computed, mirrored).
-// For n = 12 and 15 (the landing filters) updateJoseph3 runs generated straight-line code
+// For n = 12 and 15 (the landing filters; 13 and 16 with the deck-scale state) updateJoseph3 runs generated straight-line code
 // (josephUpdate.generated.ts), bit-identical to the loops, which stay for other n.
 import type { UpdateWorkspace } from './UpdateWorkspace.js';
-import { updateJoseph12, updateJoseph15 } from './josephUpdate.generated.js';
+import { updateJoseph12, updateJoseph13, updateJoseph15, updateJoseph16 } from './josephUpdate.generated.js';
 
 /** U, S, S⁻¹ (3x3, row-major in ws) for H = [0 … Hb … 0]. False when S is not positive definite. */
 export function innovationCovariance3(P: Float64Array, Hb: Float64Array, col: number, R: Float64Array, n: number, ws: UpdateWorkspace): boolean {
@@ -53,6 +53,8 @@ export function normalizedInnovationSquared3(ws: UpdateWorkspace): number {
 export function updateJoseph3(x: Float64Array, P: Float64Array, n: number, ws: UpdateWorkspace): boolean {
   if (n === 12) return updateJoseph12(x, P, ws);
   if (n === 15) return updateJoseph15(x, P, ws);
+  if (n === 13) return updateJoseph13(x, P, ws);
+  if (n === 16) return updateJoseph16(x, P, ws);
   return updateJoseph3Loops(x, P, n, ws);
 }
 

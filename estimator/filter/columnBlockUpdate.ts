@@ -31,6 +31,36 @@ export function innovationCovarianceColumnBlock(P: ArrayLike<number>, Hb: ArrayL
   return invertSymmetricPositiveDefinite(S, m, ws.Sinv, ws.chol);
 }
 
+/**
+ * innovationCovarianceColumnBlock for H non-zero in a block of k consecutive columns from `col`
+ * plus one more column `extra` outside it (a measurement that also sees the deck-scale state,
+ * last in x): Hb is m x (k + 1) row-major, its last column for `extra`.
+ *   U = P[:, cols] Hbᵀ,  S = Hb U[cols, :] + R,  cols = (col … col + k - 1, extra)
+ * updateJosephColumnBlock then applies it unchanged (it needs only U, S and y).
+ */
+export function innovationCovarianceColumnBlockAndColumn(P: ArrayLike<number>, Hb: ArrayLike<number>, col: number, k: number, extra: number, R: ArrayLike<number>, n: number, m: number, ws: UpdateWorkspace): boolean {
+  const { U, S } = ws;
+  const width = k + 1;
+  for (let i = 0; i < n; i++) {
+    const row = i * n + col, pe = P[i * n + extra]!;
+    for (let a = 0; a < m; a++) {
+      let sum = 0;
+      for (let j = 0; j < k; j++) sum += P[row + j]! * Hb[a * width + j]!;
+      U[i * m + a] = sum + pe * Hb[a * width + k]!;
+    }
+  }
+  for (let a = 0; a < m; a++) {
+    for (let b = a; b < m; b++) {
+      let sum = R[a * m + b]!;
+      for (let j = 0; j < k; j++) sum += Hb[a * width + j]! * U[(col + j) * m + b]!;
+      sum += Hb[a * width + k]! * U[extra * m + b]!;
+      S[a * m + b] = sum;
+      S[b * m + a] = sum;
+    }
+  }
+  return invertSymmetricPositiveDefinite(S, m, ws.Sinv, ws.chol);
+}
+
 /** x ← x + K y and P ← P - K Uᵀ - U Kᵀ + (K S) Kᵀ; needs innovationCovarianceColumnBlock and ws.y. */
 export function updateJosephColumnBlock(x: Float64Array, P: Float64Array, n: number, m: number, ws: UpdateWorkspace): void {
   gain(ws, n, m);

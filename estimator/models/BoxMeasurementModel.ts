@@ -1,6 +1,7 @@
 // The box measurement models built on the camera the filter believes in (FilterCamera.ts).
 // Tight: z = [u, v, s], h(x) = boxMeasurement(p_cam), p_cam = R_cb (R_wbᵀ r - t_b), so
-//   H_r = ∂h/∂p_cam · R_cb R_wbᵀ  (only the r block of H is non-zero).
+//   H_r = ∂h/∂p_cam · R_cb R_wbᵀ  (only the r block of H is non-zero; with the deck-scale state
+//   L becomes L (1 + s) and H gains ∂s_box/∂s, see LandingCore).
 // Loose: back-project the box to p_cam, r_z = R_wb (R_cbᵀ p_cam + t_b), with covariance
 //   R_r = C J R_box Jᵀ Cᵀ, J = ∂p_cam/∂(u, v, s), C = R_wb R_cbᵀ (camera -> world); then H = [I 0 …].
 // Preallocated; the methods allocate nothing.
@@ -52,16 +53,20 @@ export class BoxMeasurementModel {
     }
   }
 
-  /** Tight model: h into hOut [u, v, s], r block of H (3x3) into Hb. */
-  tight(r: ArrayLike<number>, hOut: Float64Array, Hb: Float64Array): CameraModelProblem {
+  /**
+   * Tight model: h into hOut [u, v, s], r block of H (3x3) into Hb. `scale` = 1 + s multiplies the
+   * target size (deck-scale state): s_box = sqrt(fx fy) L (1 + s) / Z, so ∂s_box/∂s = s_box / (1 + s).
+   */
+  tight(r: ArrayLike<number>, hOut: Float64Array, Hb: Float64Array, scale = 1): CameraModelProblem {
     const M = this.Rcw, p = this.pCam, R = this.Rcb, t = this.offset;
     for (let i = 0; i < 3; i++) {
       p[i] = M[3 * i]! * r[0]! + M[3 * i + 1]! * r[1]! + M[3 * i + 2]! * r[2]! - (R[3 * i]! * t[0]! + R[3 * i + 1]! * t[1]! + R[3 * i + 2]! * t[2]!);
     }
     if (!(p[2]! > MIN_DEPTH)) return 'target-behind-camera';
-    boxMeasurement(this.camera, this.targetSize, p, hOut);
+    const L = this.targetSize * scale;
+    boxMeasurement(this.camera, L, p, hOut);
     const J = this.J;
-    boxMeasurementJacobian(this.camera, this.targetSize, p, J, this.work);
+    boxMeasurementJacobian(this.camera, L, p, J, this.work);
     for (let i = 0; i < 3; i++) {
       for (let j = 0; j < 3; j++) Hb[3 * i + j] = J[3 * i]! * M[j]! + J[3 * i + 1]! * M[3 + j]! + J[3 * i + 2]! * M[6 + j]!;
     }

@@ -56,6 +56,14 @@ export interface FilterSpec {
   qScale: number;
   rScale: number;
   gateScale: number;
+  /**
+   * Deck-scale state (default 0 = none): fractional 1 sigma of the deck size the filter assumes
+   * (0.05 = the true deck may be 5 % larger or smaller). When > 0 the filter carries one more
+   * state s, last in x (landingState.ts): the true outline (length, width, body height) and the
+   * flat model's L are the assumed ones times (1 + s); s is a random constant with prior 0 ± this
+   * sigma, observable from the lander's metric motion (IMU, odometry) against the box growing.
+   */
+  deckScaleSigma?: number;
   /** History kept for delayed boxes (s). */
   historyLength: number;
 }

@@ -9,17 +9,25 @@
 //            (φ = sizeNoiseFraction, φc = pixelNoiseFraction: errors that scale with the box, see Scenario.ts)
 //   loose    z = back-projected r (m),     H = [I 0 0 0],       R = propagated box noise
 //   odometry z = vL (m/s, world),          H = [0 0 I 0],       R = σo² I · rScale
+// Deck-scale state s (deckScaleSigma > 0; last in x, landingState.ts): the deck is (1 + s) times
+// the assumed one, so every box model gains a column for s:
+//   tight flat     s_box = sqrt(fx fy) L (1 + s) / Z,  ∂s_box/∂s = s_box / (1 + s)
+//   tight outline  corners scaled by (1 + s) (OutlineBoxModel.ts)
+//   loose          the fix back-projected with L is c + (r - c) / (1 + s), c = R_wb t_b (the camera's
+//                  offset in the world: p_cam scales with the target size for a given box), so
+//                  H_r = I / (1 + s),  H_s = -(r - c) / (1 + s)²
+// These updates use the column-block-plus-one-column form (columnBlockUpdate.ts).
 import type { FilterSpec } from './FilterSettings.js';
 import { BoxMeasurementModel } from './BoxMeasurementModel.js';
 import type { FilterCamera } from './FilterCamera.js';
 import { EVENT_ODOMETRY, EVENT_TIGHT } from './FilterHistory.js';
 import { ProcessCoefficientCache, type ProcessNoise } from './ProcessCoefficients.js';
 import { predictLanding } from './predictLanding.js';
-import { landingStateDimension, VL_INDEX } from './landingState.js';
+import { deckScaleIndex, landingStateDimension, VL_INDEX } from './landingState.js';
 import type { UpdateStatus } from './UpdateResult.js';
 import { OutlineBoxModel, type DeckOutline } from './OutlineBoxModel.js';
 import { UpdateWorkspace } from '../filter/UpdateWorkspace.js';
-import { innovationCovarianceColumnBlock, updateJosephColumnBlock } from '../filter/columnBlockUpdate.js';
+import { innovationCovarianceColumnBlock, innovationCovarianceColumnBlockAndColumn, updateJosephColumnBlock } from '../filter/columnBlockUpdate.js';
 import { normalizedInnovationSquared } from '../filter/update.js';
 import { innovationCovariance3, normalizedInnovationSquared3, updateJoseph3 } from '../filter/blockUpdate3.js';
 import { allFinite, checkCovariance } from '../filter/checkCovariance.js';
@@ -30,6 +38,8 @@ const IDENTITY3 = new Float64Array([1, 0, 0, 0, 1, 0, 0, 0, 1]);
 
 export class LandingCore {
   readonly n: number;
+  /** Index of the deck-scale state s in x (the last), or -1 without it (deckScaleSigma 0). */
+  readonly scaleIndex: number;
   /** x then P in one array (views below), so the filter history saves a step with one copy. */
   readonly state: Float64Array;
   readonly x: Float64Array;
@@ -71,7 +81,9 @@ export class LandingCore {
   private readonly Houtline: Float64Array;
   private readonly Routline: Float64Array;
   private readonly gateOutline: number;
-  private readonly refineState = new Float64Array(6);
+  private readonly refineState: Float64Array;
+  /** Deck-scale state: H over [r, s] (3 x 4) for the flat tight and the loose update. */
+  private readonly Hscale = new Float64Array(12);
   private readonly refineMatrix = new Float64Array(9);
 
   /**
@@ -79,7 +91,10 @@ export class LandingCore {
    */
   constructor(spec: FilterSpec, camera: FilterCamera, targetSize: number, outline?: DeckOutline) {
     const singer = spec.carrierModel === 'singer';
-    this.n = landingStateDimension(singer);
+    const deckScale = (spec.deckScaleSigma ?? 0) > 0;
+    this.n = landingStateDimension(singer, deckScale);
+    this.scaleIndex = deckScaleIndex(singer, deckScale);
+    this.refineState = new Float64Array(this.n);
     this.state = new Float64Array(this.n + this.n * this.n);
     this.x = this.state.subarray(0, this.n);
     this.P = this.state.subarray(this.n);
@@ -96,11 +111,11 @@ export class LandingCore {
     this.varPixelFraction = spec.pixelNoiseFraction * spec.pixelNoiseFraction * spec.rScale;
     this.Rbox = new Float64Array([this.varPixel, 0, 0, 0, this.varPixel, 0, 0, 0, this.varSize]);
     const deck = outline ?? { deckLength: targetSize, deckWidth: targetSize, bodyHeight: 0 };
-    this.outline = (spec.boxModel ?? 'outline') === 'outline' ? new OutlineBoxModel(this.model.camera, deck, spec.boxTerms ?? 'centre-size', spec.headingMinSpeed ?? 1.5) : null;
+    this.outline = (spec.boxModel ?? 'outline') === 'outline' ? new OutlineBoxModel(this.model.camera, deck, spec.boxTerms ?? 'centre-size', spec.headingMinSpeed ?? 1.5, this.scaleIndex) : null;
     this.boxDim = this.outline ? this.outline.m : 3;
     this.wsOutline = new UpdateWorkspace(this.n, this.boxDim);
     this.hOutline = new Float64Array(this.boxDim);
-    this.Houtline = new Float64Array(6 * this.boxDim);
+    this.Houtline = new Float64Array((this.outline ? this.outline.columns : 6) * this.boxDim);
     this.Routline = new Float64Array(this.boxDim * this.boxDim);
     this.gateOutline = gateThreshold(spec.gateProbability, this.boxDim, spec.gateScale);
     const varOdometry = spec.odometryNoise * spec.odometryNoise * spec.rScale;
@@ -152,19 +167,22 @@ export class LandingCore {
       if (!Number.isFinite(q[0]!)) return this.fail('attitude-unknown');
       this.model.setAttitude(q);
       if (kind === EVENT_TIGHT) {
-        const problem = this.model.tight(x, this.h, this.Hb);
+        if (this.scaleIndex >= 0 && !(1 + x[this.scaleIndex]! > 0)) return this.fail('deck-scale-not-positive');
+        const problem = this.scaleIndex >= 0 ? this.model.tight(x, this.h, this.Hb, 1 + x[this.scaleIndex]!) : this.model.tight(x, this.h, this.Hb);
         if (problem) return this.fail(problem);
         y[0] = d0 - this.h[0]!;
         y[1] = d1 - this.h[1]!;
         y[2] = d2 - this.h[2]!;
         this.Rbox[0] = this.Rbox[4] = this.centreVariance(this.h[2]!);
         this.Rbox[8] = this.sizeVariance(this.h[2]!);
+        if (this.scaleIndex >= 0) return this.applyWithScale(this.Rbox, useGate);
       } else {
         const varCentre = this.centreVariance(d2);
         const problem = this.model.loose(d0, d1, d2, varCentre, varCentre, this.sizeVariance(d2), this.fix, this.Rfix);
         if (problem) return this.fail(problem);
         R = this.Rfix;
         Hb = IDENTITY3;
+        if (this.scaleIndex >= 0) return this.applyLooseWithScale(useGate);
         y[0] = this.fix[0]! - x[0]!;
         y[1] = this.fix[1]! - x[1]!;
         y[2] = this.fix[2]! - x[2]!;
@@ -222,7 +240,8 @@ export class LandingCore {
       y[3] = d3 - h[3]!;
       R[15] = this.sizeVariance(h[3]!);
     }
-    if (!innovationCovarianceColumnBlock(this.P, this.Houtline, 0, 6, R, this.n, m, ws)) {
+    const scaled = this.scaleIndex >= 0;
+    if (!(scaled ? innovationCovarianceColumnBlockAndColumn(this.P, this.Houtline, 0, 6, this.scaleIndex, R, this.n, m, ws) : innovationCovarianceColumnBlock(this.P, this.Houtline, 0, 6, R, this.n, m, ws))) {
       const event = checkCovariance(this.x, this.P, this.n, this.check);
       if (event) {
         this.lastReason = event;
@@ -244,6 +263,61 @@ export class LandingCore {
   }
 
   /**
+   * Flat tight update with the deck-scale state: h and the r block of H are in this.h and
+   * this.Hb (with L (1 + s)); H over [r, s] = [H_r, ∂h/∂s], ∂h/∂s = (0, 0, s_box / (1 + s)).
+   */
+  private applyWithScale(R: Float64Array, useGate: boolean): UpdateStatus {
+    const H = this.Hscale, Hb = this.Hb, h = this.h;
+    for (let a = 0; a < 3; a++) for (let j = 0; j < 3; j++) H[4 * a + j] = Hb[3 * a + j]!;
+    H[3] = 0;
+    H[7] = 0;
+    H[11] = h[2]! / (1 + this.x[this.scaleIndex]!);
+    return this.updateWithScale(R, useGate);
+  }
+
+  /**
+   * Loose update with the deck-scale state: z = fix (back-projected with the assumed L),
+   * h(x) = c + (r - c) / (1 + s), c = R_wb t_b; H_r = I / (1 + s), H_s = -(r - c) / (1 + s)².
+   */
+  private applyLooseWithScale(useGate: boolean): UpdateStatus {
+    const x = this.x, k1 = 1 + x[this.scaleIndex]!, H = this.Hscale, y = this.ws.y, B = this.model.Rwb, t = this.model.offset;
+    if (!(k1 > 0)) return this.fail('deck-scale-not-positive');
+    H.fill(0);
+    for (let i = 0; i < 3; i++) {
+      const c = B[3 * i]! * t[0]! + B[3 * i + 1]! * t[1]! + B[3 * i + 2]! * t[2]!;
+      const rel = x[i]! - c;
+      y[i] = this.fix[i]! - (c + rel / k1);
+      H[4 * i + i] = 1 / k1;
+      H[4 * i + 3] = -rel / (k1 * k1);
+    }
+    return this.updateWithScale(this.Rfix, useGate);
+  }
+
+  /** The 3-D update with H over [r, s] in this.Hscale, y already in ws.y. */
+  private updateWithScale(R: Float64Array, useGate: boolean): UpdateStatus {
+    const ws = this.ws;
+    if (!innovationCovarianceColumnBlockAndColumn(this.P, this.Hscale, 0, 3, this.scaleIndex, R, this.n, 3, ws)) {
+      const event = checkCovariance(this.x, this.P, this.n, this.check);
+      if (event) {
+        this.lastReason = event;
+        return 'diverged';
+      }
+      return this.fail('innovation-covariance-not-positive-definite');
+    }
+    this.lastNis = normalizedInnovationSquared(ws, 3);
+    if (useGate && this.lastNis > this.gate) {
+      this.lastReason = 'outside-gate';
+      return 'gated';
+    }
+    updateJosephColumnBlock(this.x, this.P, this.n, 3, ws);
+    if (!allFinite(this.state, this.state.length)) {
+      this.lastReason = this.nonFiniteEvent();
+      return 'diverged';
+    }
+    return 'accepted';
+  }
+
+  /**
    * Refine the loose fix in `fix` (r, m) so the outline model reproduces the box centre (u, v)
    * and size s = sqrt(w h): Gauss-Newton on r with the deck heading of carrier velocity vC,
    *   r ← r + H_r⁻¹ (z - h(r)),  z = [u, v, s]
@@ -256,7 +330,8 @@ export class LandingCore {
   refineFixWithOutline(u: number, v: number, w: number, h: number, vC: ArrayLike<number>): boolean {
     const outline = this.outline;
     if (!outline) return true;
-    const state = this.refineState, hv = this.hOutline, H = this.Houtline, m = outline.m;
+    // state: r, v_c, and (deck-scale state) s at its prior 0
+    const state = this.refineState, hv = this.hOutline, H = this.Houtline, m = outline.m, c = outline.columns;
     for (let i = 0; i < 3; i++) {
       state[i] = this.fix[i]!;
       state[3 + i] = vC[i]!;
@@ -269,8 +344,8 @@ export class LandingCore {
       const A = this.refineMatrix;
       for (let j = 0; j < 3; j++) {
         A[j] = H[j]!;
-        A[3 + j] = H[6 + j]!;
-        A[6 + j] = m === 4 ? (hv[3]! * H[12 + j]! + hv[2]! * H[18 + j]!) / (2 * Math.sqrt(hv[2]! * hv[3]!)) : H[12 + j]!;
+        A[3 + j] = H[c + j]!;
+        A[6 + j] = m === 4 ? (hv[3]! * H[2 * c + j]! + hv[2]! * H[3 * c + j]!) / (2 * Math.sqrt(hv[2]! * hv[3]!)) : H[2 * c + j]!;
       }
       if (m === 4) hs = Math.sqrt(hv[2]! * hv[3]!);
       const e0 = u - hv[0]!, e1 = v - hv[1]!, e2 = s - hs;

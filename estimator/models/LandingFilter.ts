@@ -100,6 +100,21 @@ export class LandingFilter {
     return this.innovationDim;
   }
 
+  /** Index of the deck-scale state s in x (the last), or -1 when the filter carries none (deckScaleSigma 0). */
+  get deckScaleIndex(): number {
+    return this.core.scaleIndex;
+  }
+
+  /**
+   * The deck-scale estimate: s (true deck = assumed deck x (1 + s)) and its 1 sigma sqrt(P_ss);
+   * NaN for both without the state or before initialization.
+   */
+  deckScale(): { value: number; sigma: number } {
+    const i = this.core.scaleIndex;
+    if (i < 0 || !this.initialized) return { value: Number.NaN, sigma: Number.NaN };
+    return { value: this.x[i]!, sigma: Math.sqrt(this.P[i * this.n + i]!) };
+  }
+
   /** The named divergence event, or null. After it every call returns 'diverged' until re-initialized. */
   get diverged(): string | null {
     return this.divergence;
@@ -152,6 +167,20 @@ export class LandingFilter {
     this.initialize(t, core.fix, vL, vL, { position: 1, velocity: sigma.velocity, accelBias: sigma.accelBias });
     const n = this.n;
     for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) this.P[i * n + j] = core.Rfix[3 * i + j]!;
+    const si = core.scaleIndex;
+    if (si >= 0) {
+      // The fix assumed the deck's size: r = c + (1 + s)(fix - c), c = R_wb t_b, so with s = 0 ± σ
+      // r takes (fix - c)(fix - c)ᵀ σ² more and covaries with s by (fix - c) σ².
+      const varS = this.P[si * n + si]!, B = core.model.Rwb, t = core.model.offset;
+      const d0 = core.fix[0]! - (B[0]! * t[0]! + B[1]! * t[1]! + B[2]! * t[2]!);
+      const d1 = core.fix[1]! - (B[3]! * t[0]! + B[4]! * t[1]! + B[5]! * t[2]!);
+      const d2 = core.fix[2]! - (B[6]! * t[0]! + B[7]! * t[1]! + B[8]! * t[2]!);
+      const d = [d0, d1, d2];
+      for (let i = 0; i < 3; i++) {
+        for (let j = 0; j < 3; j++) this.P[i * n + j] = this.P[i * n + j]! + d[i]! * d[j]! * varS;
+        this.P[i * n + si] = this.P[si * n + i] = d[i]! * varS;
+      }
+    }
     this.history.clear();
     this.history.push(t, this.force, this.attitude, this.state);
     return { status: 'accepted', nis: Number.NaN, dim: 3, reason: null };
@@ -389,10 +418,13 @@ export class LandingFilter {
     this.updatesSinceCheck = 0;
     const { coefficients, noise } = this.core;
     coefficients.clear();
-    if (this.n === 15) {
+    if (this.spec.carrierModel === 'singer') {
       const tau = noise.singerTau, sigma = noise.carrierAccelNoise;
       this.setDiagonal(12, Math.max((sigma * sigma * noise.qScale) / (2 * tau), 1e-12));
     }
+    // deck-scale state: prior 0 ± deckScaleSigma (x is already 0)
+    const si = this.core.scaleIndex;
+    if (si >= 0) this.P[si * this.n + si] = this.spec.deckScaleSigma! * this.spec.deckScaleSigma!;
   }
 
   private start(t: number, attitude: Float64Array): void {

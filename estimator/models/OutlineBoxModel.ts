@@ -13,6 +13,10 @@
 // Jacobian over [r, v_c] (6 columns), chain rule through the active corner of each edge:
 //   ∂(u_k, v_k)/∂r = J_k M,   ∂(u_k, v_k)/∂ψ = J_k M ∂d_k/∂ψ,  ∂d_k/∂ψ = (-sψ cx - cψ cy, cψ cx - sψ cy, 0)
 //   ∂s = (h ∂w + w ∂h) / (2 s)
+// Deck-scale state s (when the filter carries it, at x[scaleIndex]): the true outline is the
+// assumed one times (1 + s), so c_k ← (1 + s) c_k and d_k = (1 + s) R_z(ψ) c_k, giving one more
+// column  ∂(u_k, v_k)/∂s = J_k M R_z(ψ) c_k  (the corner offset before scaling), through the same
+// box rows as r and ψ. H is then m x 7 over [r, v_c, s].
 // Heading from the carrier velocity estimate (the deck is taken to point along travel):
 //   ψ = atan2(v_cy, v_cx),  ∂ψ/∂v_c = (-v_cy, v_cx, 0) / (v_cx² + v_cy²)
 // Below minSpeed the direction of v_c is mostly noise (σ_ψ ≈ σ_v / |v_c|): ψ is then the
@@ -51,10 +55,18 @@ export class OutlineBoxModel {
   private readonly uv: Float64Array;
   private readonly G: Float64Array;
   private readonly g: Float64Array;
-  /** Rows of the box terms over [r (3), ψ (1)]: m x 4. */
+  /** Per corner ∂pixel/∂s (2), deck-scale state only. */
+  private readonly gs: Float64Array;
+  /** Rows of the box terms over [r (3), ψ (1)] (and s): m x rowWidth. */
   private readonly rows: Float64Array;
+  private readonly rowWidth: number;
+  /** Columns of H: 6 over [r, v_c], or 7 over [r, v_c, s] with the deck-scale state. */
+  readonly columns: number;
 
-  constructor(readonly camera: PinholeCamera, readonly outline: DeckOutline, readonly terms: BoxTerms, readonly minSpeed: number) {
+  /**
+   * @param scaleIndex index of the deck-scale state s in x, or -1 (default) when the filter carries none
+   */
+  constructor(readonly camera: PinholeCamera, readonly outline: DeckOutline, readonly terms: BoxTerms, readonly minSpeed: number, readonly scaleIndex = -1) {
     for (const key of ['deckLength', 'deckWidth'] as const) {
       if (!(outline[key] > 0) || !Number.isFinite(outline[key])) throw new RangeError(`outline.${key} must be a positive number of metres, got ${outline[key]}`);
     }
@@ -70,12 +82,16 @@ export class OutlineBoxModel {
     this.uv = new Float64Array(2 * this.corners);
     this.G = new Float64Array(6 * this.corners);
     this.g = new Float64Array(2 * this.corners);
-    this.rows = new Float64Array(4 * this.m);
+    this.gs = new Float64Array(2 * this.corners);
+    this.rowWidth = scaleIndex >= 0 ? 5 : 4;
+    this.columns = scaleIndex >= 0 ? 7 : 6;
+    this.rows = new Float64Array(this.rowWidth * this.m);
   }
 
   /**
-   * h(x) into hOut (m) and H over [r, v_c] into H (m x 6, row-major).
-   * @param x filter state (r at 0..2, v_c at 3..5)
+   * h(x) into hOut (m) and H over [r, v_c] into H (m x 6, row-major; m x 7 over [r, v_c, s]
+   * with the deck-scale state).
+   * @param x filter state (r at 0..2, v_c at 3..5, s at scaleIndex)
    * @param M R_cb R_wbᵀ (world -> camera), o = R_cb t_b, Rwb the attitude (its yaw is the heading below minSpeed)
    * @returns false when a corner is behind the camera
    */
@@ -94,11 +110,15 @@ export class OutlineBoxModel {
       this.headingFromVelocity = false;
     }
     const c = Math.cos(this.heading), s = Math.sin(this.heading);
-    const { pCam, pixel, Jp, work, uv, G, g, deckCorners, camera } = this;
+    const { pCam, pixel, Jp, work, uv, G, g, gs, deckCorners, camera } = this;
     const r0 = x[0]!, r1 = x[1]!, r2 = x[2]!;
+    const scaled = this.scaleIndex >= 0;
+    const k1 = scaled ? 1 + x[this.scaleIndex]! : 1;
+    if (!(k1 > 0)) return false; // a deck of no size (s <= -1) has no image
     let a = 0, b = 0, lo = 0, hi = 0;
     for (let k = 0; k < this.corners; k++) {
-      const cx = deckCorners[3 * k]!, cy = deckCorners[3 * k + 1]!, cz = deckCorners[3 * k + 2]!;
+      // c_k (1 + s); the product is exact when the filter has no scale state (k1 = 1)
+      const cx = deckCorners[3 * k]! * k1, cy = deckCorners[3 * k + 1]! * k1, cz = deckCorners[3 * k + 2]! * k1;
       // d_k = R_z(ψ) c_k and ∂d_k/∂ψ
       const d0 = c * cx - s * cy, d1 = s * cx + c * cy;
       const e0 = -s * cx - c * cy, e1 = c * cx - s * cy;
@@ -119,6 +139,8 @@ export class OutlineBoxModel {
         G[6 * k + 3 * row + 1] = m1;
         G[6 * k + 3 * row + 2] = m2;
         g[2 * k + row] = m0 * e0 + m1 * e1;
+        // ∂/∂s = G R_z(ψ) c_k = G d_k / (1 + s)
+        if (scaled) gs[2 * k + row] = (m0 * d0 + m1 * d1 + m2 * cz) / k1;
       }
       if (uv[2 * k]! < uv[2 * a]!) a = k;
       if (uv[2 * k]! > uv[2 * b]!) b = k;
@@ -137,35 +159,38 @@ export class OutlineBoxModel {
       this.boxRows(j, du, dv, dw, dh, width, height);
     }
     this.boxRows(3, (g[2 * a]! + g[2 * b]!) / 2, (g[2 * lo + 1]! + g[2 * hi + 1]!) / 2, g[2 * b]! - g[2 * a]!, g[2 * hi + 1]! - g[2 * lo + 1]!, width, height);
+    if (scaled) this.boxRows(4, (gs[2 * a]! + gs[2 * b]!) / 2, (gs[2 * lo + 1]! + gs[2 * hi + 1]!) / 2, gs[2 * b]! - gs[2 * a]!, gs[2 * hi + 1]! - gs[2 * lo + 1]!, width, height);
     if (this.m === 4) {
       hOut[2] = width;
       hOut[3] = height;
     } else {
       hOut[2] = Math.sqrt(width * height);
     }
+    const c7 = this.columns, w = this.rowWidth;
     for (let i = 0; i < this.m; i++) {
-      H[6 * i] = R[4 * i]!;
-      H[6 * i + 1] = R[4 * i + 1]!;
-      H[6 * i + 2] = R[4 * i + 2]!;
+      H[c7 * i] = R[w * i]!;
+      H[c7 * i + 1] = R[w * i + 1]!;
+      H[c7 * i + 2] = R[w * i + 2]!;
       // ∂/∂v_c = ∂/∂ψ · ∂ψ/∂v_c
-      H[6 * i + 3] = R[4 * i + 3]! * dpsiX;
-      H[6 * i + 4] = R[4 * i + 3]! * dpsiY;
-      H[6 * i + 5] = 0;
+      H[c7 * i + 3] = R[w * i + 3]! * dpsiX;
+      H[c7 * i + 4] = R[w * i + 3]! * dpsiY;
+      H[c7 * i + 5] = 0;
+      if (scaled) H[c7 * i + 6] = R[w * i + 4]!;
     }
     return true;
   }
 
   /** Column j of the box-term rows from the edge derivatives (du, dv, dw, dh). */
   private boxRows(j: number, du: number, dv: number, dw: number, dh: number, width: number, height: number): void {
-    const R = this.rows;
+    const R = this.rows, w = this.rowWidth;
     R[j] = du;
-    R[4 + j] = dv;
+    R[w + j] = dv;
     if (this.m === 4) {
-      R[8 + j] = dw;
-      R[12 + j] = dh;
+      R[2 * w + j] = dw;
+      R[3 * w + j] = dh;
     } else {
       // s = sqrt(w h): ∂s = (h ∂w + w ∂h) / (2 s)
-      R[8 + j] = (height * dw + width * dh) / (2 * Math.sqrt(width * height));
+      R[2 * w + j] = (height * dw + width * dh) / (2 * Math.sqrt(width * height));
     }
   }
 }

@@ -11,7 +11,7 @@ import { OutlineBoxModel, type DeckOutline } from './OutlineBoxModel.js';
 import type { FilterCamera } from './FilterCamera.js';
 import { emptyProcessCoefficients, processCoefficients, type ProcessCoefficients } from './ProcessCoefficients.js';
 import { landingStateDimension, STANDARD_GRAVITY } from './landingState.js';
-import { validateFilterSpec } from './validateFilterSpec.js';
+import { FilterSpecError, validateFilterSpec } from './validateFilterSpec.js';
 import { gateThreshold } from '../filter/gate.js';
 import { rotationMatrixFromQuat } from '../frames/rotationMatrixFromQuat.js';
 import type { InitialSigma, UpdateResult } from './UpdateResult.js';
@@ -44,6 +44,9 @@ export class PlainLandingFilter {
 
   constructor(readonly spec: FilterSpec, camera: FilterCamera, readonly targetSize: number, outline?: DeckOutline) {
     validateFilterSpec(spec);
+    // the plain reference stays the 12/15-state formulation; the fast filter's deck-scale
+    // column is checked against finite differences instead (test/models/deckScale.test.ts)
+    if ((spec.deckScaleSigma ?? 0) > 0) throw new FilterSpecError('filter.deckScaleSigma', 'the plain reference filter has no deck-scale state: use LandingFilter, or deckScaleSigma 0');
     this.n = landingStateDimension(spec.carrierModel === 'singer');
     this.x = Matrix.zeros(this.n, 1);
     this.P = Matrix.zeros(this.n, this.n);

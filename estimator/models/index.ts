@@ -8,7 +8,7 @@ export { FilterHistory, EVENT_TIGHT, EVENT_LOOSE, EVENT_ODOMETRY, EVENTS_PER_STE
 export { processCoefficients, emptyProcessCoefficients } from './ProcessCoefficients.js';
 export type { ProcessCoefficients, ProcessNoise } from './ProcessCoefficients.js';
 export { predictLanding } from './predictLanding.js';
-export { R_INDEX, VC_INDEX, VL_INDEX, BA_INDEX, AC_INDEX, STANDARD_GRAVITY, landingStateDimension } from './landingState.js';
+export { R_INDEX, VC_INDEX, VL_INDEX, BA_INDEX, AC_INDEX, STANDARD_GRAVITY, landingStateDimension, deckScaleIndex } from './landingState.js';
 export { validateFilterSpec } from './validateFilterSpec.js';
 export { rejected } from './UpdateResult.js';
 export type { FilterSpec, CameraUpdateMode, CarrierModel } from './FilterSettings.js';

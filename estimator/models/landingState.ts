@@ -4,6 +4,9 @@
 //   x[6..8]   vL = lander velocity (m/s)
 //   x[9..11]  ba = accelerometer bias, body FLU (m/s²)
 //   x[12..14] aC = carrier acceleration (m/s²), Singer model only
+//   x[n - 1]  s  = deck scale factor - 1 (dimensionless), only with deckScaleSigma > 0: the true
+//                  deck outline is the assumed one times (1 + s); always the LAST state (index 12,
+//                  or 15 after the Singer acceleration)
 // P is n x n row-major in the same order.
 
 export const R_INDEX = 0;
@@ -15,7 +18,12 @@ export const AC_INDEX = 12;
 /** Standard gravity (m/s²); gravity in ENU is (0, 0, -G). */
 export const STANDARD_GRAVITY = 9.80665;
 
-/** State dimension for a carrier model. */
-export function landingStateDimension(singer: boolean): number {
-  return singer ? 15 : 12;
+/** State dimension for a carrier model, with or without the deck-scale state. */
+export function landingStateDimension(singer: boolean, deckScale = false): number {
+  return (singer ? 15 : 12) + (deckScale ? 1 : 0);
+}
+
+/** Index of the deck-scale state s (the last one), or -1 when the filter carries none. */
+export function deckScaleIndex(singer: boolean, deckScale: boolean): number {
+  return deckScale ? landingStateDimension(singer) : -1;
 }

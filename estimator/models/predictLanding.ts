@@ -12,17 +12,22 @@
 // lower triangle is left stale by the passes, then Q is added and the upper triangle mirrored,
 // so P stays exactly symmetric. Straight-line inner loops, no branches per entry (hot path:
 // one call per IMU step plus one per re-propagated step of every delayed box).
+// The deck-scale state s (last, n = 13 or 16) is a random constant: its row of F is a unit row and
+// its column is zero off the diagonal, so P_ss is unchanged and the cross-covariance P_xs only
+// needs the row pass (P_xs ← F P_xs), which the passes' loops over every column already do.
 // predictLanding runs these passes unrolled into straight-line code generated from the loops
 // below (predictLanding.generated.ts: bit-identical, about 1.4x faster); the loops are the
 // reference and serve any other state size.
 import type { ProcessCoefficients } from './ProcessCoefficients.js';
-import { predictConstantVelocity, predictSinger } from './predictLanding.generated.js';
+import { predictConstantVelocity, predictConstantVelocityDeckScale, predictSinger, predictSingerDeckScale } from './predictLanding.generated.js';
 import { predictLandingState } from './predictLandingState.js';
 
 /** Returns false when x or P became non-finite (NaN or ±Infinity anywhere). */
 export function predictLanding(x: Float64Array, P: Float64Array, n: number, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
   if (!c.singer && n === 12) return predictConstantVelocity(x, P, f, Rwb, c);
   if (c.singer && n === 15) return predictSinger(x, P, f, Rwb, c);
+  if (!c.singer && n === 13) return predictConstantVelocityDeckScale(x, P, f, Rwb, c);
+  if (c.singer && n === 16) return predictSingerDeckScale(x, P, f, Rwb, c);
   return predictLandingLoops(x, P, n, f, Rwb, c);
 }
 

@@ -32,5 +32,6 @@ export function validateFilterSpec(spec: FilterSpec): void {
   if (spec.boxModel !== undefined && spec.boxModel !== 'outline' && spec.boxModel !== 'flat') throw new FilterSpecError('filter.boxModel', `must be "outline" or "flat", got ${String(spec.boxModel)}`);
   if (spec.boxTerms !== undefined && spec.boxTerms !== 'centre-size' && spec.boxTerms !== 'centre-width-height') throw new FilterSpecError('filter.boxTerms', `must be "centre-size" or "centre-width-height", got ${String(spec.boxTerms)}`);
   if (spec.headingMinSpeed !== undefined && (!(spec.headingMinSpeed >= 0) || !Number.isFinite(spec.headingMinSpeed))) throw new FilterSpecError('filter.headingMinSpeed', `must be a non-negative number of m/s, got ${spec.headingMinSpeed}`);
+  if (spec.deckScaleSigma !== undefined && (!(spec.deckScaleSigma >= 0 && spec.deckScaleSigma <= 0.5) || !Number.isFinite(spec.deckScaleSigma))) throw new FilterSpecError('filter.deckScaleSigma', `must be a fraction from 0 to 0.5 (1 sigma of the deck size assumed; 0 = no scale state), got ${spec.deckScaleSigma}`);
   if (spec.carrierModel === 'singer' && (!(spec.singerTau > 0) || !Number.isFinite(spec.singerTau))) throw new FilterSpecError('filter.singerTau', `must be a positive number of seconds for the Singer model, got ${spec.singerTau}`);
 }

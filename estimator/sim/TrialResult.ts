@@ -61,6 +61,12 @@ export interface TrialResult {
   cause?: FailureCause | null;
   /** The cause and the events after it (time s, phase, true height above the deck m, value); [] when it landed. */
   causeChain?: FailureEvent[];
+  /**
+   * The filter's deck-scale estimate at the end of the trial (touchdown, or the last step):
+   * s (true deck = assumed deck x (1 + s)) and its 1 sigma. Present only when the filter carries
+   * the state (filter.deckScaleSigma > 0); null when the filter never started.
+   */
+  deckScaleEstimate?: { value: number; sigma: number } | null;
   /** Largest body rotation rate of any step (deg/s): at most lander.maxAttitudeRateDeg. */
   peakAttitudeRateDeg: number;
 }

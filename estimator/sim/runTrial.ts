@@ -92,11 +92,14 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   const believed = errors.believedCamera(scenario.camera);
   const targetSize = errors.believedTargetSize(carrierSpec);
   const filter = new LandingFilter(filterSpec, believed, targetSize, errors.believedOutline(carrierSpec));
+  // the flight-log layout's onboard estimate has the 12 or 15 states of the reference formulation
+  // (the deck-scale state, when carried, is not part of it)
+  const loggedX = filter.x.subarray(0, filter.deckScaleIndex >= 0 ? filter.deckScaleIndex : filter.n);
   const blind = blindHeight(believed, carrierSpec.deckLength, carrierSpec.deckWidth, detectorSpec.edgeMargin);
   // blind when the predicted outline leaves the image (the fixed figure `blind` only marks the attribution log)
   const supervisor = new LandingSupervisor(scenario.guidance, landerSpec, guidance);
   const forecast = new OutlineForecast(believed, dims, detectorSpec.edgeMargin);
-  const st = new TrialState(filter.n, filter.boxDim);
+  const st = new TrialState(filter.n, filter.boxDim, filter.deckScaleIndex);
   const log = options.attribution === false ? null : new FailureLog(scenario, blind);
   const scripted = landerSpec.wind.gusts && landerSpec.wind.gusts.length > 0 ? new ScriptedGusts(landerSpec.wind.gusts) : null;
   st.command.set(cs.velocity);
@@ -255,7 +258,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
       const nees = st.errors.add(x, filter.P, filter.n, st.rTrue, st.vCTrue, st.vLTrue);
       if (phase === 'descend' || phase === 'touchdown') st.addDescentNees(-st.rTrue[2]!, nees);
     }
-    if (recorder) recordStep(recorder, st, t, initialized ? filter : null);
+    if (recorder) recordStep(recorder, st, t, initialized ? filter : null, loggedX);
     if (onStep) onStep(st.row(t, phase, input.valid ? x : null, input.valid ? filter.P : null));
   }
 
@@ -271,6 +274,10 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     const attribution = attributeFailure(result.outcome === 'landed' ? [] : log.events(), result.outcome, touchdownTime ?? steps * dt);
     result.cause = attribution.cause;
     result.causeChain = attribution.causeChain;
+  }
+  if (filter.deckScaleIndex >= 0) {
+    const scale = filter.deckScale();
+    result.deckScaleEstimate = initialized && Number.isFinite(scale.value) ? scale : null;
   }
   return result;
 }
@@ -356,7 +363,7 @@ function enqueueFalseFrames(detector: Detector, pending: DetectorFrame[], head: 
 }
 
 /** Truth, and the estimate once the filter runs (null before), to the recorder. */
-function recordStep(recorder: TrialRecorder, st: TrialState, t: number, filter: LandingFilter | null): void {
+function recordStep(recorder: TrialRecorder, st: TrialState, t: number, filter: LandingFilter | null, loggedX: Float64Array): void {
   recorder.truth(t, st.rTrue, st.vCTrue, st.vLTrue);
-  if (filter) recorder.estimate(t, filter.x, st.diagonal(filter.P));
+  if (filter) recorder.estimate(t, loggedX, st.diagonal(filter.P));
 }

@@ -46,6 +46,11 @@ export interface TraceRow {
    * the outline is in the image (or it is behind the camera).
    */
   outline: Box | null;
+  /**
+   * Deck-scale estimate s (true deck = assumed x (1 + s)) and its 1 sigma; present only when the
+   * filter carries the state (filter.deckScaleSigma > 0), null before the first box.
+   */
+  deckScale?: { value: number; sigma: number } | null;
 }
 
 const AXES = ['x', 'y', 'z'];
@@ -58,15 +63,24 @@ export const TRACE_COLUMNS: readonly string[] = [
   'update', 'nis', 'nis_dim', 'outline_xMin', 'outline_yMin', 'outline_xMax', 'outline_yMax', 'updates',
 ];
 
+/** Columns appended when the filter carries the deck-scale state. */
+export const DECK_SCALE_COLUMNS: readonly string[] = ['est_deck_scale', 'sigma_deck_scale'];
+
+/** The CSV header of a trial: TRACE_COLUMNS, then DECK_SCALE_COLUMNS when the filter carries the deck-scale state. */
+export function traceColumns(deckScale: boolean): readonly string[] {
+  return deckScale ? [...TRACE_COLUMNS, ...DECK_SCALE_COLUMNS] : TRACE_COLUMNS;
+}
+
 const num = (v: number) => (Number.isFinite(v) ? String(Number(v.toPrecision(9))) : '');
 const cells = (t: RelativeTriple | null): string[] => (t ? [...t.r, ...t.vC, ...t.vL].map(num) : new Array<string>(9).fill(''));
 const corners = (b: Box | null): string[] => (b ? [b.xMin, b.yMin, b.xMax, b.yMax].map(num) : ['', '', '', '']);
 
-/** One CSV line (no newline); empty cells where there is no estimate, box, update or outline; the last update of a step when there are several. */
+/** One CSV line (no newline); empty cells where there is no estimate, box, update or outline; the last update of a step when there are several; the deck-scale cells when the row has them. */
 export function traceCsvLine(row: TraceRow): string {
+  const scale = row.deckScale === undefined ? [] : row.deckScale === null ? ['', ''] : [num(row.deckScale.value), num(row.deckScale.sigma)];
   return [
     num(row.t), row.phase, ...cells(row.truth), ...cells(row.estimate), ...cells(row.sigma), ...corners(row.box), ...row.command.map(num),
     row.update ?? '', row.nis === null ? '' : num(row.nis), row.nisDim === null ? '' : String(row.nisDim), ...corners(row.outline),
-    String(row.updates.length),
+    String(row.updates.length), ...scale,
   ].join(',');
 }

@@ -113,7 +113,8 @@ export class TrialState {
   private readonly descentNeesCount = new Float64Array(DESCENT_HEIGHT_BINS);
 
   /** @param boxDim dimension of the filter's box measurement (3, or 4 for centre-width-height) */
-  constructor(readonly n: number, readonly boxDim = 3) {
+  /** @param scaleIndex index of the filter's deck-scale state, or -1 without it */
+  constructor(readonly n: number, readonly boxDim = 3, readonly scaleIndex = -1) {
     this.pDiagonal = new Float64Array(n);
   }
 
@@ -240,6 +241,7 @@ export class TrialState {
       nis: last ? last.nis : null,
       nisDim: last ? last.dim : null,
       outline: this.haveOutline ? { ...this.outline } : null,
+      ...(this.scaleIndex >= 0 ? { deckScale: x && P ? { value: x[this.scaleIndex]!, sigma: Math.sqrt(P[this.scaleIndex * this.n + this.scaleIndex]!) } : null } : {}),
     };
   }
 

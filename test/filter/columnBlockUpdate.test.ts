@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { innovationCovarianceColumnBlock, updateJosephColumnBlock } from '../../estimator/filter/columnBlockUpdate.js';
+import { innovationCovarianceColumnBlock, innovationCovarianceColumnBlockAndColumn, updateJosephColumnBlock } from '../../estimator/filter/columnBlockUpdate.js';
 import { readFileSync } from 'node:fs';
 import { innovationCovariance3, normalizedInnovationSquared3, updateJoseph3, updateJoseph3Loops } from '../../estimator/filter/blockUpdate3.js';
 import { josephUpdateSource } from '../../estimator/codegen/josephUpdateSource.js';
@@ -48,6 +48,34 @@ describe('block-structured updates agree with the dense textbook Joseph update (
     expectAllClose(P, Pd, { abs: 1e-12 }, 'P');
   });
 
+  it('column block plus one column outside it (the deck-scale state), against the dense update', () => {
+    // H non-zero in columns 0..5 and 11 (the last state), m = 4
+    const m = 4, k = 6, extra = n - 1;
+    const s2 = RandomStream.fromKey([14, streamId('column block plus one')]);
+    const Hw = Float64Array.from({ length: m * (k + 1) }, () => s2.gaussian());
+    const Rm = new Float64Array(m * m);
+    for (let a = 0; a < m; a++) Rm[a * m + a] = 0.2 + 0.1 * a;
+    const H = new Float64Array(m * n);
+    for (let a = 0; a < m; a++) {
+      for (let j = 0; j < k; j++) H[a * n + j] = Hw[a * (k + 1) + j]!;
+      H[a * n + extra] = Hw[a * (k + 1) + k]!;
+    }
+    const yy = [0.2, -0.1, 0.3, 0.05];
+    const xe = x0.slice(), Pe = P0.slice(), wse = new UpdateWorkspace(n, m);
+    innovationCovariance(Pe, H, Rm, n, m, wse);
+    wse.y.set(yy);
+    const nisExpected = normalizedInnovationSquared(wse, m);
+    updateJoseph(xe, Pe, H, Rm, n, m, wse);
+    const x = x0.slice(), P = P0.slice(), ws = new UpdateWorkspace(n, m);
+    expect(innovationCovarianceColumnBlockAndColumn(P, Hw, 0, k, extra, Rm, n, m, ws)).toBe(true);
+    ws.y.set(yy);
+    expectClose(normalizedInnovationSquared(ws, m), nisExpected, { rel: 1e-12 }, 'NIS');
+    updateJosephColumnBlock(x, P, n, m, ws);
+    // 1e-12: same algebra, different operation order (P entries are O(1)).
+    expectAllClose(x, xe, { abs: 1e-12 }, 'x');
+    expectAllClose(P, Pe, { abs: 1e-12 }, 'P');
+  });
+
   it('unrolled 3 x 3 block, with exact symmetry', () => {
     const x = x0.slice(), P = P0.slice(), ws = new UpdateWorkspace(n, 3);
     expect(innovationCovariance3(P, Hb, col, R, n, ws)).toBe(true);
@@ -73,7 +101,7 @@ describe('block-structured updates agree with the dense textbook Joseph update (
 });
 
 describe('generated straight-line Joseph updates (josephUpdate.generated.ts)', () => {
-  for (const n of [12, 15]) {
+  for (const n of [12, 15, 13, 16]) {
     it(`gives the loops x, P, K and K S to the last bit for n = ${n}, for updates on any column block`, () => {
       const stream = RandomStream.fromKey([13, n, streamId('generated joseph')]);
       for (let trial = 0; trial < 200; trial++) {

@@ -3,6 +3,7 @@ import { readFileSync } from 'node:fs';
 import { predictLanding, predictLandingLoops } from '../../estimator/models/predictLanding.js';
 import { predictLandingSource } from '../../estimator/codegen/predictLandingSource.js';
 import { emptyProcessCoefficients, processCoefficients } from '../../estimator/models/ProcessCoefficients.js';
+import { landingStateDimension } from '../../estimator/models/landingState.js';
 import { rotationMatrixFromQuat } from '../../estimator/frames/rotationMatrixFromQuat.js';
 import { quatFromEulerDeg } from '../../estimator/frames/quatFromEulerDeg.js';
 import { RandomStream, streamId } from '../../estimator/random/RandomStream.js';
@@ -23,10 +24,17 @@ function randomSpd(n: number, stream: RandomStream): Float64Array {
   return P;
 }
 
-for (const singer of [false, true]) {
-  const n = singer ? 15 : 12;
-  describe(`predictLanding (${singer ? 'Singer, 15 states' : 'constant velocity, 12 states'})`, () => {
-    const stream = RandomStream.fromKey([99, singer ? 1 : 0, streamId('predict')]);
+const MODELS = [
+  { singer: false, deckScale: false },
+  { singer: true, deckScale: false },
+  { singer: false, deckScale: true },
+  { singer: true, deckScale: true },
+];
+
+for (const { singer, deckScale } of MODELS) {
+  const n = landingStateDimension(singer, deckScale);
+  describe(`predictLanding (${singer ? 'Singer' : 'constant velocity'}, ${n} states${deckScale ? ' with the deck scale' : ''})`, () => {
+    const stream = RandomStream.fromKey(deckScale ? [99, singer ? 1 : 0, n, streamId('predict')] : [99, singer ? 1 : 0, streamId('predict')]);
     const x0 = Float64Array.from({ length: n }, () => stream.gaussian());
     const P0 = randomSpd(n, stream);
     const dt = 0.01;
@@ -74,6 +82,28 @@ for (const singer of [false, true]) {
       expectAllClose(off, new Float64Array(n * n), { abs: 1e-9 }, 'no other Q entries');
     });
 
+    if (deckScale) {
+      it('keeps the deck scale a random constant: s and P_ss unchanged, P_xs ← F P_xs', () => {
+        const x = x0.slice(), P = P0.slice();
+        predictLanding(x, P, n, f, Rwb, c);
+        const s = n - 1;
+        expect(x[s]).toBe(x0[s]);
+        expect(P[s * n + s]).toBe(P0[s * n + s]);
+        // F P_xs by the central-difference F of the state map (affine: exact to round-off / h, 1e-9)
+        const h = 1e-5;
+        for (let i = 0; i < n - 1; i++) {
+          let expected = 0;
+          for (let k = 0; k < n; k++) {
+            const plus = x0.slice(), minus = x0.slice();
+            plus[k]! += h;
+            minus[k]! -= h;
+            expected += ((step(plus)[i]! - step(minus)[i]!) / (2 * h)) * P0[k * n + s]!;
+          }
+          expectClose(P[i * n + s]!, expected, { abs: 1e-9 }, `P_xs[${i}]`);
+        }
+      });
+    }
+
     it('keeps P exactly symmetric', () => {
       const x = x0.slice(), P = P0.slice();
       predictLanding(x, P, n, f, Rwb, c);
@@ -95,9 +125,9 @@ for (const singer of [false, true]) {
 }
 
 describe('generated straight-line predicts (predictLanding.generated.ts)', () => {
-  for (const singer of [false, true]) {
-    const n = singer ? 15 : 12;
-    it(`gives the loops' x and P to the last bit (${singer ? 'Singer' : 'constant velocity'}), on random covariances, attitudes and step lengths`, () => {
+  for (const { singer, deckScale } of MODELS) {
+    const n = landingStateDimension(singer, deckScale);
+    it(`gives the loops' x and P to the last bit (${singer ? 'Singer' : 'constant velocity'}, n = ${n}), on random covariances, attitudes and step lengths`, () => {
       const stream = RandomStream.fromKey([7, n, streamId('generated-predict')]);
       for (let trial = 0; trial < 200; trial++) {
         const P1 = randomSpd(n, stream), P2 = P1.slice();
@@ -112,7 +142,7 @@ describe('generated straight-line predicts (predictLanding.generated.ts)', () =>
       }
     });
 
-    it(`reports a non-finite P or x like the loops do (${singer ? 'Singer' : 'constant velocity'})`, () => {
+    it(`reports a non-finite P or x like the loops do (${singer ? 'Singer' : 'constant velocity'}, n = ${n})`, () => {
       const stream = RandomStream.fromKey([8, n, streamId('generated-predict')]);
       const c = processCoefficients(0.01, noise, emptyProcessCoefficients(singer));
       for (const index of [0, 5 * n + 7, 11 * n + 11, 3 * n + 10, n * n - 1]) {

@@ -148,7 +148,8 @@ export class LogReplayer {
 
   onboardRow(v: Float64Array): RowOutcome {
     if (!this.running) return this.idle;
-    const filter = this.filter, n = filter.n;
+    // the onboard estimate holds the reference formulation's states, never the deck-scale state
+    const filter = this.filter, n = filter.deckScaleIndex >= 0 ? filter.deckScaleIndex : filter.n;
     if (v.length - 1 < n) return 'state-size-differs';
     for (let i = 0; i < n; i++) {
       const d = Math.abs(filter.x[i]! - v[1 + i]!);

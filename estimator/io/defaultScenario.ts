@@ -120,6 +120,8 @@ export function defaultScenario(): Scenario {
       rScale: 1,
       gateScale: 1,
       historyLength: 0.3,
+      // no deck-scale state: a filter that assumes the deck's size exactly, as before the state existed
+      deckScaleSigma: 0,
     },
     guidance: {
       law: 'pid',

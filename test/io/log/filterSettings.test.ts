@@ -23,6 +23,11 @@ describe('filter settings', () => {
     }
   });
 
+  it('takes the deck-scale state (a fraction from 0 to 0.5), naming file, line and field when out of range', () => {
+    expect(parseFilterSettings('{ "deckScaleSigma": 0.05 }', 'settings.json', defaultFilterSpec()).deckScaleSigma).toBe(0.05);
+    expect(() => parseFilterSettings('{\n  "deckScaleSigma": 0.7\n}', 'settings.json', defaultFilterSpec())).toThrow('settings.json:2: deckScaleSigma: must be <= 0.5, got 0.7');
+  });
+
   it('reports JSON syntax errors by line and column, and non-objects', () => {
     expect(() => parseFilterSettings('{\n "qScale": 1,,\n}', 's.json', defaultFilterSpec())).toThrow(/^s\.json:2:\d+: /);
     expect(() => parseFilterSettings('[1, 2]', 's.json', defaultFilterSpec())).toThrow('s.json: expected an object of filter settings');

@@ -68,6 +68,23 @@ describe('record then replay', () => {
     expect(report.nisMean).toBe(result.nisMean);
   });
 
+  it('reproduces a filter with the deck-scale state (16 states: Singer and s), tight and loose', async () => {
+    for (const cameraUpdate of ['tight', 'loose'] as const) {
+      const s = scenario((x) => {
+        x.filter.carrierModel = 'singer';
+        x.filter.cameraUpdate = cameraUpdate;
+        x.filter.deckScaleSigma = 0.05;
+      });
+      const { result, report, files } = await recordAndReplay(s);
+      expect(report.filter.deckScaleSigma).toBe(0.05); // from the log's filter.json
+      // the onboard estimate keeps the layout's 15 states; s is the filter's own
+      expect(files.get('onboard.csv')!.split('\n')[0]!.split(',')).toHaveLength(1 + 2 * 15);
+      expect(report.onboard!.compared).toBeGreaterThan(1000);
+      expect(report.onboard!.maxStateDifference).toBe(0);
+      expect(report.nisMean).toBe(result.nisMean);
+    }
+  });
+
   it('reproduces a trial whose IMU (50 Hz) is slower than the filter loop (100 Hz)', async () => {
     const s = scenario((x) => {
       x.localization.imuRate = 50;

@@ -45,6 +45,8 @@ export function formatSummary(scenario: Scenario, seed: number, r: TrialResult):
     lines.push(`  contact    closing ${f(r.closingSpeed)} m/s, lateral ${f(r.lateralSpeed)} m/s, tilt ${f(r.tiltDeg, 1)} deg (limits ${env.maxClosingSpeed} m/s, ${env.maxLateralSpeed} m/s, ${env.maxTiltDeg} deg)`);
   }
   lines.push(`  estimate   position RMSE ${f(r.positionRmse, 3)} m, velocity RMSE ${f(r.velocityRmse, 3)} m/s, NEES ${f(r.neesMean)} (dim ${r.neesDim}), NIS ${f(r.nisMean)} (dim ${r.nisDim}, ${r.nisCount} updates)`);
+  const scale = r.deckScaleEstimate;
+  if (scale) lines.push(`  deck scale ${scale.value >= 0 ? '+' : ''}${f(100 * scale.value, 1)} % ± ${f(100 * scale.sigma, 1)} % (1 sigma): the deck the filter estimates against the one it assumes`);
   const descent = descentConsistency([r.neesByHeight], r.neesDim);
   if (descent) lines.push(`  descent    NEES by true height: ${consistencyWords(descent.verdict)} (inside its 95 % interval in ${descent.bins.filter((b) => b.verdict === 'consistent').length} of ${descent.bins.length} height bins; one trial, so a wide interval: judge an ensemble with alight sweep and summarize)`);
   lines.push(`  phases     ${PHASES.map((p) => `${p} ${f(r.phaseTimes[p], 1)} s`).join(', ')}`);

@@ -48,6 +48,27 @@ describe('alight simulate', () => {
     expect(stdout).toContain(SAFETY_CAUTION);
   });
 
+  it('shows the deck-scale estimate when the filter carries it: a summary line, two trace columns, a result field', async () => {
+    const scenario = JSON.parse(readFileSync(join(ROOT, 'data-demo/survey-rover.scenario.json'), 'utf8')) as { filter: Record<string, unknown> };
+    scenario.filter.deckScaleSigma = 0.05;
+    const file = join(dir, 'rover-scale.scenario.json'), trace = join(dir, 'trace-scale.csv');
+    writeFileSync(file, JSON.stringify(scenario, null, 2));
+    const text = await run(['simulate', file]);
+    expect(text.code).toBe(0);
+    expect(text.stdout).toMatch(/\n {2}deck scale [+-]\d+\.\d % ± \d+\.\d % \(1 sigma\)/);
+    const json = await run(['simulate', file, '--json', '--trace', trace]);
+    const result = JSON.parse(json.stdout) as { deckScaleEstimate: { value: number; sigma: number } };
+    expect(result.deckScaleEstimate.sigma).toBeGreaterThan(0);
+    expect(result.deckScaleEstimate.sigma).toBeLessThanOrEqual(0.05); // never above its prior
+    const lines = readFileSync(trace, 'utf8').trim().split('\n');
+    expect(lines[0]).toBe([...TRACE_COLUMNS, 'est_deck_scale', 'sigma_deck_scale'].join(','));
+    const last = lines[lines.length - 1]!.split(',');
+    expect(last).toHaveLength(TRACE_COLUMNS.length + 2);
+    expect(Number(last[TRACE_COLUMNS.length + 1])).toBeGreaterThan(0);
+    // without the state the summary has no such line
+    expect((await run(['simulate', 'data-demo/survey-rover.scenario.json'])).stdout).not.toContain('deck scale');
+  });
+
   it('writes a CSV trace with one row per step until touchdown', async () => {
     const trace = join(dir, 'trace.csv');
     const { code, stdout } = await run(['simulate', 'data-demo/survey-rover.scenario.json', '--trace', trace, '--json']);

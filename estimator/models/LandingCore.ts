@@ -254,6 +254,15 @@ export class LandingCore {
       this.lastReason = 'outside-gate';
       return 'gated';
     }
+    // with the deck-scale state a 3-D box takes the generated Joseph kernel (same U, S layout);
+    // without it the loops stay, so a filter without the state is unchanged to the bit
+    if (scaled && m === 3) {
+      if (!updateJoseph3(this.x, this.P, this.n, ws)) {
+        this.lastReason = this.nonFiniteEvent();
+        return 'diverged';
+      }
+      return 'accepted';
+    }
     updateJosephColumnBlock(this.x, this.P, this.n, m, ws);
     if (!allFinite(this.state, this.state.length)) {
       this.lastReason = this.nonFiniteEvent();
@@ -309,8 +318,8 @@ export class LandingCore {
       this.lastReason = 'outside-gate';
       return 'gated';
     }
-    updateJosephColumnBlock(this.x, this.P, this.n, 3, ws);
-    if (!allFinite(this.state, this.state.length)) {
+    // U (n x 3) and S as updateJoseph3 reads them: its generated kernel for 13 and 16 states
+    if (!updateJoseph3(this.x, this.P, this.n, ws)) {
       this.lastReason = this.nonFiniteEvent();
       return 'diverged';
     }

@@ -76,6 +76,23 @@ describe('block-structured updates agree with the dense textbook Joseph update (
     expectAllClose(P, Pe, { abs: 1e-12 }, 'P');
   });
 
+  it('column block plus one column, m = 3: the generated Joseph kernel (n = 13) agrees with the loops', () => {
+    const n13 = 13, s3 = RandomStream.fromKey([15, streamId('column block plus one')]);
+    const P13 = randomCovariance(n13, s3), x13 = Float64Array.from({ length: n13 }, () => s3.gaussian());
+    const Hw = Float64Array.from({ length: 3 * 4 }, () => s3.gaussian());
+    const ws1 = new UpdateWorkspace(n13, 3), ws2 = new UpdateWorkspace(n13, 3);
+    const x1 = x13.slice(), P1 = P13.slice(), x2 = x13.slice(), P2 = P13.slice();
+    expect(innovationCovarianceColumnBlockAndColumn(P1, Hw, 0, 3, 12, R, n13, 3, ws1)).toBe(true);
+    expect(innovationCovarianceColumnBlockAndColumn(P2, Hw, 0, 3, 12, R, n13, 3, ws2)).toBe(true);
+    ws1.y.set(y);
+    ws2.y.set(y);
+    expect(updateJoseph3(x1, P1, n13, ws1)).toBe(true);
+    updateJosephColumnBlock(x2, P2, n13, 3, ws2);
+    // 1e-12: same algebra, different operation order (P entries are O(1))
+    expectAllClose(x1, x2, { abs: 1e-12 }, 'x');
+    expectAllClose(P1, P2, { abs: 1e-12 }, 'P');
+  });
+
   it('unrolled 3 x 3 block, with exact symmetry', () => {
     const x = x0.slice(), P = P0.slice(), ws = new UpdateWorkspace(n, 3);
     expect(innovationCovariance3(P, Hb, col, R, n, ws)).toBe(true);

@@ -58,6 +58,7 @@ const INITIAL_SIGMA = { velocity: 1, accelBias: 0.2 };
 const PENDING = 4096;
 /** How far below the deck plane a first contact may be found (m): > one step's closing travel. */
 const CONTACT_DEPTH = 0.25;
+const TWO_PI = 2 * Math.PI;
 
 /**
  * Fly one trial. Fixed step dt = 1 / filter.rate; IMU samples every step whose time reaches
@@ -73,7 +74,9 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   const onStep = options.onStep;
   const recorder = options.recorder;
 
-  const carrier = createCarrierTrajectory(carrierSpec, carrierSpec.path.points);
+  // the swell and the traffic are met at a random moment of their cycles
+  const phaseStream = trialStream(key, 'carrier-phase');
+  const carrier = createCarrierTrajectory(carrierSpec, carrierSpec.path.points, { speed: TWO_PI * phaseStream.uniform(), heave: TWO_PI * phaseStream.uniform(), pitch: TWO_PI * phaseStream.uniform() });
   const cs = createCarrierState();
   carrier.stateAt(0, cs);
   const start = new Float64Array(3);

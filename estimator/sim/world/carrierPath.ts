@@ -93,18 +93,31 @@ export function planarPathFromSpec(spec: CarrierSpec['path']): PlanarPath {
  * about its lateral axis; an 'aircraft' carrier also banks and pitches with its acceleration
  * (thrust attitude), and its deckHeight is its altitude.
  */
-export function createCarrierTrajectory(spec: CarrierSpec, recordedRows?: number[][]): CarrierTrajectory {
-  const deck = new DeckMotion(spec);
+export function createCarrierTrajectory(spec: CarrierSpec, recordedRows?: number[][], phases: CarrierPhases = NO_PHASES): CarrierTrajectory {
+  const deck = new DeckMotion(spec, phases);
   if (spec.path.shape === 'recorded') {
     if (!recordedRows) throw new CarrierPathError('carrier.path.file', 'a recorded path needs its rows (t, x, y, z)');
     return new RecordedTrajectory(new RecordedPath(recordedRows), spec.deckHeight, deck);
   }
-  return new GeometricTrajectory(planarPathFromSpec(spec.path), spec, deck);
+  return new GeometricTrajectory(planarPathFromSpec(spec.path), spec, deck, phases.speed);
 }
 
 // Classes, not object literals with closures: a trial builds a new trajectory, and optimized
 // code that had inlined the previous trial's closure was thrown away at the first call
 // (V8 "wrong call target"); prototype methods are the same function in every trial.
+
+/**
+ * Where each periodic motion stands at t = 0 (rad): the speed variation, the heave and the
+ * pitch. A trial draws them, so the landings of a study meet the swell and the traffic at
+ * random moments, not every one at the same (which turned one phase's error into a bias).
+ */
+export interface CarrierPhases {
+  speed: number;
+  heave: number;
+  pitch: number;
+}
+
+export const NO_PHASES: CarrierPhases = Object.freeze({ speed: 0, heave: 0, pitch: 0 });
 
 /** Heave on z and the deck attitude: the tail every trajectory's stateAt shares. */
 class DeckMotion {
@@ -113,8 +126,12 @@ class DeckMotion {
   private readonly heaveAmplitude: number;
   private readonly pitchAmplitude: number;
   private readonly banks: boolean;
+  private readonly heavePhase: number;
+  private readonly pitchPhase: number;
 
-  constructor(spec: CarrierSpec) {
+  constructor(spec: CarrierSpec, phases: CarrierPhases) {
+    this.heavePhase = phases.heave;
+    this.pitchPhase = phases.pitch;
     const motion = spec.motion;
     this.heaveOmega = motion.heaveAmplitude !== 0 && motion.heavePeriod > 0 ? (2 * Math.PI) / motion.heavePeriod : 0;
     this.pitchOmega = motion.pitchAmplitudeDeg !== 0 && motion.pitchPeriod > 0 ? (2 * Math.PI) / motion.pitchPeriod : 0;
@@ -126,8 +143,8 @@ class DeckMotion {
   finish(t: number, out: CarrierState): CarrierState {
     const heaveAmplitude = this.heaveAmplitude, heaveOmega = this.heaveOmega;
     if (heaveAmplitude !== 0) {
-      // z += A sin(w t); z' = A w cos(w t); z'' = -A w^2 sin(w t)
-      const sin = Math.sin(heaveOmega * t), cos = Math.cos(heaveOmega * t);
+      // z += A sin(w t + phi); z' = A w cos(w t + phi); z'' = -A w^2 sin(w t + phi)
+      const sin = Math.sin(heaveOmega * t + this.heavePhase), cos = Math.cos(heaveOmega * t + this.heavePhase);
       out.position[2] = out.position[2]! + heaveAmplitude * sin;
       out.velocity[2] = out.velocity[2]! + heaveAmplitude * heaveOmega * cos;
       out.acceleration[2] = out.acceleration[2]! - heaveAmplitude * heaveOmega * heaveOmega * sin;
@@ -138,7 +155,7 @@ class DeckMotion {
     } else {
       q[0] = Math.cos(out.heading / 2); q[1] = 0; q[2] = 0; q[3] = Math.sin(out.heading / 2);
     }
-    if (this.pitchAmplitude !== 0) pitchQuaternionInPlace(q, this.pitchAmplitude * Math.sin(this.pitchOmega * t));
+    if (this.pitchAmplitude !== 0) pitchQuaternionInPlace(q, this.pitchAmplitude * Math.sin(this.pitchOmega * t + this.pitchPhase));
     return out;
   }
 }
@@ -173,10 +190,10 @@ class GeometricTrajectory implements CarrierTrajectory {
   private readonly point = createPlanarPoint();
   private readonly speed: ProfileSample = { s: 0, v: 0, a: 0 };
 
-  constructor(private readonly path: PlanarPath, spec: CarrierSpec, private readonly deck: DeckMotion) {
+  constructor(private readonly path: PlanarPath, spec: CarrierSpec, private readonly deck: DeckMotion, speedPhase: number) {
     this.pathLength = path.length;
     this.closed = path.closed;
-    this.profile = new SpeedProfileModel(spec.speed, spec.profile);
+    this.profile = new SpeedProfileModel(spec.speed, spec.profile, speedPhase);
     const rotation = spec.path.headingDeg * DEG;
     this.cr = Math.cos(rotation);
     this.sr = Math.sin(rotation);

@@ -12,8 +12,9 @@ export interface ProfileSample {
 }
 
 /**
- * Speed profile v(t) = g(t) (V + A sin(w t)), with the linear ramp g(t) = min(t / T, 1),
- * V the cruise speed, A the variation amplitude and w = 2 pi / period. t < 0 is treated as 0.
+ * Speed profile v(t) = g(t) (V + A sin(w t + phi)), with the linear ramp g(t) = min(t / T, 1),
+ * V the cruise speed, A the variation amplitude, w = 2 pi / period and phi the phase the trial
+ * starts at (a landing begins at any moment of the traffic's ebb and flow). t < 0 is treated as 0.
  * The ramp's end is a step in acceleration (a truck that stops accelerating), not in speed.
  * Requires A <= V so the carrier never reverses.
  */
@@ -23,8 +24,9 @@ export class SpeedProfileModel {
   private readonly amplitude: number;
   private readonly omega: number;
   private readonly distanceAtRampEnd: number;
+  private readonly phase: number;
 
-  constructor(cruiseSpeed: number, profile: SpeedProfile) {
+  constructor(cruiseSpeed: number, profile: SpeedProfile, phase = 0) {
     if (!(cruiseSpeed >= 0)) throw new CarrierPathError('carrier.speed', `must be >= 0 m/s, got ${cruiseSpeed}`);
     if (!(profile.rampTime >= 0)) throw new CarrierPathError('carrier.profile.rampTime', `must be >= 0 s, got ${profile.rampTime}`);
     if (!(profile.variation >= 0) || profile.variation > cruiseSpeed) {
@@ -35,14 +37,15 @@ export class SpeedProfileModel {
     this.ramp = profile.rampTime;
     this.amplitude = varies ? profile.variation : 0;
     this.omega = varies ? (2 * Math.PI) / profile.variationPeriod : 0;
+    this.phase = phase;
     this.distanceAtRampEnd = this.ramp > 0 ? this.rampDistance(this.ramp) : 0;
   }
 
-  // s(t) = V t^2 / (2T) + (A / T) (sin(w t) - w t cos(w t)) / w^2      for t <= T
+  // s(t) = V t^2 / (2T) + (A / T) (sin(w t + phi) - w t cos(w t + phi) - sin phi) / w^2      for t <= T
   private rampDistance(t: number): number {
-    const { cruise: V, ramp: T, amplitude: A, omega: w } = this;
+    const { cruise: V, ramp: T, amplitude: A, omega: w, phase: phi } = this;
     let s = (V * t * t) / (2 * T);
-    if (A > 0) s += (A / T) * (Math.sin(w * t) - w * t * Math.cos(w * t)) / (w * w);
+    if (A > 0) s += (A / T) * (Math.sin(w * t + phi) - w * t * Math.cos(w * t + phi) - Math.sin(phi)) / (w * w);
     return s;
   }
 
@@ -50,8 +53,8 @@ export class SpeedProfileModel {
   sample(t: number, out: ProfileSample): ProfileSample {
     const { cruise: V, ramp: T, amplitude: A, omega: w } = this;
     const time = t > 0 ? t : 0;
-    const sinWt = A > 0 ? Math.sin(w * time) : 0;
-    const cosWt = A > 0 ? Math.cos(w * time) : 1;
+    const sinWt = A > 0 ? Math.sin(w * time + this.phase) : 0;
+    const cosWt = A > 0 ? Math.cos(w * time + this.phase) : 1;
     if (time < T) {
       const g = time / T;
       out.s = this.rampDistance(time);
@@ -59,9 +62,9 @@ export class SpeedProfileModel {
       // a = (V + A sin wt) / T + g A w cos wt
       out.a = (V + A * sinWt) / T + g * A * w * cosWt;
     } else {
-      // s(t) = s(T) + V (t - T) + (A / w) (cos wT - cos wt)
+      // s(t) = s(T) + V (t - T) + (A / w) (cos(w T + phi) - cos(w t + phi))
       out.s = this.distanceAtRampEnd + V * (time - T);
-      if (A > 0) out.s += (A / w) * (Math.cos(w * T) - cosWt);
+      if (A > 0) out.s += (A / w) * (Math.cos(w * T + this.phase) - cosWt);
       out.v = V + A * sinWt;
       out.a = A * w * cosWt;
     }

@@ -65,6 +65,7 @@ export function defaultScenario(): Scenario {
       script: [],
     },
     localization: {
+      biasDraw: 'per-trial',
       attitudeBiasDeg: 0.3,
       attitudeNoiseDeg: 0.1,
       odometryRate: 20,

@@ -193,7 +193,15 @@ export interface DetectorSpec {
   script?: DetectorEvent[];
 }
 
+export type BiasDraw = 'per-trial' | 'fixed';
+
 export interface LocalizationSpec {
+  /**
+   * 'per-trial': every bias and calibration error below is a 1-sigma spread drawn per trial and
+   * per axis (zero mean across a study); 'fixed': the values as written, sign included.
+   * Optional in code (absent = 'per-trial'); the scenario schema fills it.
+   */
+  biasDraw?: BiasDraw;
   /** Attitude estimate error: constant bias (deg, per axis roll/pitch/yaw) and white noise (deg, 1 sigma). */
   attitudeBiasDeg: number;
   attitudeNoiseDeg: number;

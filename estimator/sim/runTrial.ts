@@ -285,8 +285,8 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   return result;
 }
 
-/** A subsystem's random stream: from the trial key and the stream's name alone. */
-function trialStream(key: TrialKey, name: string): RandomStream {
+/** A subsystem's random stream: from the trial key and the stream's name alone (recordTrial draws the same localization errors with it). */
+export function trialStream(key: TrialKey, name: string): RandomStream {
   return RandomStream.fromKey([key.seed, key.point, key.trial, streamId(name)]);
 }
 

@@ -2,9 +2,8 @@
 // sensors gave its filter (artefacts included: noise, dropouts, latency, false boxes, biased
 // IMU and odometry, attitude error), the simulator's truth and the filter's own estimates.
 // Browser-safe: the text goes to a LogTextSink (folderSink.node.ts writes files).
-import { RandomStream } from '../../random/RandomStream.js';
 import { withHistoryFor } from '../../sim/historyFor.js';
-import { runTrial, type TrialKey } from '../../sim/runTrial.js';
+import { runTrial, trialStream, type TrialKey } from '../../sim/runTrial.js';
 import type { Scenario } from '../../sim/Scenario.js';
 import type { TrialResult } from '../../sim/TrialResult.js';
 import { LocalizationError } from '../../sim/world/localizationError.js';
@@ -25,9 +24,9 @@ export interface RecordResult {
 
 export function recordTrial(scenario: Scenario, sink: LogTextSink, options: RecordOptions = {}): RecordResult {
   const key = options.key ?? { seed: scenario.seed, point: 0, trial: 0 };
-  // The believed camera and target size are deterministic functions of the spec (focal and
-  // size errors are fixed fractions): this instance's random stream is never drawn for them.
-  const errors = new LocalizationError(scenario.localization, RandomStream.fromKey([key.seed, key.point, key.trial, 0]));
+  // The believed camera, target size and outline carry this trial's drawn focal, size and
+  // misalignment errors: the same stream as the trial's own LocalizationError, so the same draws.
+  const errors = new LocalizationError(scenario.localization, trialStream(key, 'localization'));
   const recorder = new LogRecorder(sink, {
     camera: errors.believedCamera(scenario.camera),
     targetSize: errors.believedTargetSize(scenario.carrier),

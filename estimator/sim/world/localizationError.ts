@@ -25,6 +25,14 @@ export class LocalizationError {
   /** Integrated gyro error the attitude estimator has not yet corrected, per body axis (deg). */
   readonly gyroError = new Float64Array(3);
   private lastAttitudeTime = NaN;
+  /** This trial's biases per axis (roll, pitch, yaw / body x, y, z): drawn, or as written (LocalizationSpec.biasDraw). */
+  readonly attitudeBias = new Float64Array(3);
+  readonly accelBias = new Float64Array(3);
+  readonly gyroBias = new Float64Array(3);
+  readonly misalignment = new Float64Array(3);
+  /** This trial's focal and deck-size factors the filter is off by: 1 + error. */
+  readonly focalScale: number;
+  readonly sizeScale: number;
 
   /** One child stream per channel, so e.g. more IMU samples do not shift the odometry draws. */
   constructor(spec: LocalizationSpec, stream: RandomStream) {
@@ -32,8 +40,19 @@ export class LocalizationError {
     this.attitudeStream = RandomStream.childOf(stream);
     this.odometryStream = RandomStream.childOf(stream);
     this.imuStream = RandomStream.childOf(stream);
-    this.gyroStream = RandomStream.childOf(stream); // last: the channels above keep their draws
-    this.odometryBiasNow = Float64Array.of(spec.odometryBias, spec.odometryBias, spec.odometryBias);
+    this.gyroStream = RandomStream.childOf(stream); // after the channels above: they keep their draws
+    // per-trial biases: a 1-sigma spread drawn per axis (its own child stream, created last), or the values as written
+    const draw = spec.biasDraw === 'fixed' ? null : RandomStream.childOf(stream);
+    const pick = (value: number): number => (draw === null ? value : value * draw.gaussian());
+    for (let k = 0; k < 3; k++) {
+      this.attitudeBias[k] = pick(spec.attitudeBiasDeg);
+      this.accelBias[k] = pick(spec.accelBias);
+      this.gyroBias[k] = pick(spec.gyroBiasDegPerSec);
+      this.misalignment[k] = pick(spec.misalignmentDeg);
+    }
+    this.odometryBiasNow = Float64Array.of(pick(spec.odometryBias), pick(spec.odometryBias), pick(spec.odometryBias));
+    this.focalScale = 1 + pick(spec.focalError);
+    this.sizeScale = 1 + pick(spec.targetSizeError);
   }
 
   /**
@@ -45,30 +64,30 @@ export class LocalizationError {
    * It starts at its steady mean b τ (the estimator has run long before the trial).
    */
   attitude(qTrue: ArrayLike<number>, out: Float64Array, t = NaN): Float64Array {
-    const { attitudeBiasDeg: bias, attitudeNoiseDeg: noise } = this.spec;
+    const noise = this.spec.attitudeNoiseDeg, bias = this.attitudeBias;
     this.stepGyroError(t);
     const g = this.gyroError;
     const rng = this.attitudeStream;
-    const roll = bias + noise * rng.gaussian() + g[0]!, pitch = bias + noise * rng.gaussian() + g[1]!, yaw = bias + noise * rng.gaussian() + g[2]!;
+    const roll = bias[0]! + noise * rng.gaussian() + g[0]!, pitch = bias[1]! + noise * rng.gaussian() + g[1]!, yaw = bias[2]! + noise * rng.gaussian() + g[2]!;
     quatFromEulerDeg(roll, pitch, yaw, this.error);
     quatMultiply(qTrue, this.error, out);
     return out;
   }
 
   private stepGyroError(t: number): void {
-    const { gyroBiasDegPerSec: b, gyroNoiseDegPerSqrtSec: sigma, attitudeCorrectionTime: tau } = this.spec;
-    const g = this.gyroError;
+    const { gyroNoiseDegPerSqrtSec: sigma, attitudeCorrectionTime: tau } = this.spec;
+    const g = this.gyroError, b = this.gyroBias;
     if (Number.isNaN(this.lastAttitudeTime) || Number.isNaN(t)) {
-      if (Number.isNaN(this.lastAttitudeTime)) g.fill(b * tau);
+      if (Number.isNaN(this.lastAttitudeTime)) for (let k = 0; k < 3; k++) g[k] = b[k]! * tau;
       this.lastAttitudeTime = t;
       return;
     }
     const dt = t - this.lastAttitudeTime;
     this.lastAttitudeTime = t;
-    if (!(dt > 0) || (b === 0 && sigma === 0)) return;
+    if (!(dt > 0) || (b[0] === 0 && b[1] === 0 && b[2] === 0 && sigma === 0)) return;
     const decay = Math.exp(-dt / tau);
     const walk = sigma * Math.sqrt((tau / 2) * -Math.expm1((-2 * dt) / tau));
-    for (let k = 0; k < 3; k++) g[k] = g[k]! * decay + b * tau * (1 - decay) + walk * this.gyroStream.gaussian();
+    for (let k = 0; k < 3; k++) g[k] = g[k]! * decay + b[k]! * tau * (1 - decay) + walk * this.gyroStream.gaussian();
   }
 
   /**
@@ -93,8 +112,8 @@ export class LocalizationError {
 
   /** Accelerometer reading (body FLU, m/s^2): f + accelBias + accelNoise n per axis. */
   specificForce(fTrue: ArrayLike<number>, out: Float64Array): Float64Array {
-    const { accelBias: bias, accelNoise: noise } = this.spec;
-    for (let k = 0; k < 3; k++) out[k] = fTrue[k]! + bias + noise * this.imuStream.gaussian();
+    const noise = this.spec.accelNoise, bias = this.accelBias;
+    for (let k = 0; k < 3; k++) out[k] = fTrue[k]! + bias[k]! + noise * this.imuStream.gaussian();
     return out;
   }
 
@@ -103,10 +122,10 @@ export class LocalizationError {
     return tCapture + this.spec.clockOffset;
   }
 
-  /** The mount as it really is: misalignmentDeg added about each axis (roll, pitch, yaw). */
+  /** The mount as it really is: this trial's misalignment added about each axis (roll, pitch, yaw). */
   trueMount(mount: CameraMount): CameraMount {
-    const m = this.spec.misalignmentDeg;
-    return cameraMount({ offset: mount.offset, rollDeg: mount.rollDeg + m, pitchDeg: mount.pitchDeg + m, yawDeg: mount.yawDeg + m });
+    const m = this.misalignment;
+    return cameraMount({ offset: mount.offset, rollDeg: mount.rollDeg + m[0]!, pitchDeg: mount.pitchDeg + m[1]!, yawDeg: mount.yawDeg + m[2]! });
   }
 
   /** The camera as it really is: the spec's intrinsics and distortion, misaligned mount. */
@@ -115,21 +134,21 @@ export class LocalizationError {
     return pinholeCamera({ fx: k.fx, fy: k.fy, cx: k.cx, cy: k.cy, width: camera.width, height: camera.height, distortion: camera.distortion }, this.trueMount(camera.mount));
   }
 
-  /** The camera as the filter believes it: focal lengths scaled by (1 + focalError), nominal mount. */
+  /** The camera as the filter believes it: focal lengths scaled by this trial's focal factor (1 + focalError), nominal mount. */
   believedCamera(camera: CameraSpec): FilterCamera {
     const k = intrinsicsFromSpec(camera);
-    const scale = 1 + this.spec.focalError;
+    const scale = this.focalScale;
     return pinholeCamera({ fx: k.fx * scale, fy: k.fy * scale, cx: k.cx, cy: k.cy, width: camera.width, height: camera.height, distortion: camera.distortion }, camera.mount);
   }
 
-  /** Deck outline the filter assumes (m): every dimension scaled by (1 + targetSizeError). */
+  /** Deck outline the filter assumes (m): every dimension scaled by this trial's size factor (1 + targetSizeError, drawn or as written). */
   believedOutline(carrier: Pick<CarrierSpec, 'deckLength' | 'deckWidth' | 'bodyHeight'>): DeckOutline {
-    const scale = 1 + this.spec.targetSizeError;
+    const scale = this.sizeScale;
     return { deckLength: carrier.deckLength * scale, deckWidth: carrier.deckWidth * scale, bodyHeight: carrier.bodyHeight * scale };
   }
 
-  /** Target size the filter assumes (m): sqrt(deckLength deckWidth) (1 + targetSizeError). */
+  /** Target size the filter assumes (m): sqrt(deckLength deckWidth) times this trial's size factor. */
   believedTargetSize(carrier: Pick<CarrierSpec, 'deckLength' | 'deckWidth'>): number {
-    return Math.sqrt(carrier.deckLength * carrier.deckWidth) * (1 + this.spec.targetSizeError);
+    return Math.sqrt(carrier.deckLength * carrier.deckWidth) * this.sizeScale;
   }
 }

@@ -7,6 +7,7 @@ import { LocalizationError } from '../../../estimator/sim/world/localizationErro
 import { expectClose } from '../../helpers/expectClose.js';
 
 const perfect: LocalizationSpec = {
+  biasDraw: 'fixed', // the mechanics below use each error as written
   attitudeBiasDeg: 0, attitudeNoiseDeg: 0, odometryRate: 10, odometryBias: 0, odometryNoise: 0, odometryDrift: 0,
   imuRate: 200, accelNoise: 0, accelBias: 0, misalignmentDeg: 0, focalError: 0, targetSizeError: 0, clockOffset: 0,
   gyroBiasDegPerSec: 0, gyroNoiseDegPerSqrtSec: 0, attitudeCorrectionTime: 1,
@@ -121,5 +122,39 @@ describe('LocalizationError', () => {
     const loc = make({ targetSizeError: -0.1, clockOffset: 0.015 });
     expectClose(loc.believedTargetSize({ deckLength: 4, deckWidth: 1 }), 1.8, { rel: 1e-15 }, 'size'); // sqrt(4) * 0.9
     expectClose(loc.cameraTimestamp(2), 2.015, { abs: 1e-15 }, 'stamp');
+  });
+
+  it('biasDraw per-trial: each bias is drawn per trial and per axis with the spec as 1 sigma (zero mean), and the noise channels keep their draws', () => {
+    const spec = { biasDraw: 'per-trial' as const, attitudeBiasDeg: 0.3, accelBias: 0.05, misalignmentDeg: 0.4, odometryBias: 0.05, focalError: 0.01, targetSizeError: 0.08, gyroBiasDegPerSec: 0.1 };
+    const trials = 4000;
+    const sums = { att: [0, 0, 0], att2: [0, 0, 0], size: 0, size2: 0, odo: 0, odo2: 0, cross: 0 };
+    for (let seed = 1; seed <= trials; seed++) {
+      const loc = make(spec, seed);
+      for (let k = 0; k < 3; k++) {
+        sums.att[k]! += loc.attitudeBias[k]!;
+        sums.att2[k]! += loc.attitudeBias[k]! ** 2;
+      }
+      sums.cross += loc.attitudeBias[0]! * loc.attitudeBias[1]!;
+      sums.size += loc.sizeScale - 1;
+      sums.size2 += (loc.sizeScale - 1) ** 2;
+      sums.odo += loc.odometryBiasNow[2]!;
+      sums.odo2 += loc.odometryBiasNow[2]! ** 2;
+    }
+    // 4000 draws: the mean's sd is sigma / 63, the sd's relative sd about 1.1 %; 5 sd margins
+    for (let k = 0; k < 3; k++) {
+      expect(Math.abs(sums.att[k]! / trials)).toBeLessThan((5 * 0.3) / Math.sqrt(trials));
+      expectClose(Math.sqrt(sums.att2[k]! / trials), 0.3, { rel: 0.06 }, `attitude bias sd, axis ${k}`);
+    }
+    expect(Math.abs(sums.cross / trials)).toBeLessThan((5 * 0.09) / Math.sqrt(trials)); // axes independent
+    expectClose(Math.sqrt(sums.size2 / trials), 0.08, { rel: 0.06 }, 'size error sd');
+    expect(Math.abs(sums.size / trials)).toBeLessThan((5 * 0.08) / Math.sqrt(trials));
+    expectClose(Math.sqrt(sums.odo2 / trials), 0.05, { rel: 0.06 }, 'odometry bias sd');
+    // the bias stream is made after the noise channels': a drawn and a fixed bias see the same noise
+    const fixed = make({ ...spec, biasDraw: 'fixed' }, 7), drawn = make(spec, 7);
+    const fa = new Float64Array(3), fb = new Float64Array(3);
+    fixed.specificForce([0, 0, 9.8], fa);
+    drawn.specificForce([0, 0, 9.8], fb);
+    for (let k = 0; k < 3; k++) expectClose(fa[k]! - fixed.accelBias[k]!, fb[k]! - drawn.accelBias[k]!, { abs: 1e-12 }, `noise draw ${k}`);
+    expect(fixed.accelBias[0]).toBe(0.05);
   });
 });

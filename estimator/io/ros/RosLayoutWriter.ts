@@ -50,6 +50,10 @@ export class RosLayoutWriter {
   private readonly q = new Float64Array(4);
   private readonly qScratch = new Float64Array(4);
   private readonly v = new Float64Array(3);
+  /** A reference sample [t, p, v] and views of its position and velocity. */
+  private readonly sample = new Float64Array(7);
+  private readonly samplePosition = this.sample.subarray(1, 4);
+  private readonly sampleVelocity = this.sample.subarray(4, 7);
 
   constructor(sink: LogTextSink, context: RosLayoutContext) {
     this.context = context;
@@ -129,9 +133,9 @@ export class RosLayoutWriter {
         const frameId: string = msg.header.frame_id;
         if (this.truthFrame === null) this.truthFrame = frameId;
         else if (frameId !== this.truthFrame) throw new RecordingError(`${this.at(role, topic)}: reference in frame "${frameId}" but the other reference topic is in "${this.truthFrame}": both must share one world frame`);
-        const sample = new Float64Array(7); // kept by the pairing until its partner comes
+        const sample = this.sample; // the pairing copies it
         sample[0] = stampSeconds(msg.header.stamp, origin);
-        odometryState(msg, this.qScratch, sample.subarray(1, 4), sample.subarray(4, 7));
+        odometryState(msg, this.qScratch, this.samplePosition, this.sampleVelocity);
         if (role === 'truthLander') this.truth!.lander(sample);
         else this.truth!.carrier(sample);
         return;

@@ -15,6 +15,8 @@ import { LOG_FILE_HEADERS } from './logFileHeaders.js';
 /** Receives file text in order: write() may be called many times per file. */
 export interface LogTextSink {
   write(file: string, text: string): void;
+  /** The same as write() for text already encoded as UTF-8 (optional; the bytes are only valid during the call). */
+  writeBytes?(file: string, bytes: Uint8Array): void;
   /** Called once at the end: flush and close everything. */
   close(): void;
 }

@@ -9,14 +9,20 @@ export function folderSink(folder: string): LogTextSink {
   // file systems (/proc), and the plain one reports the real error.
   if (!existsSync(folder)) mkdirSync(folder, { recursive: !existsSync(dirname(folder)) });
   const fds = new Map<string, number>();
+  const fdOf = (file: string): number => {
+    let fd = fds.get(file);
+    if (fd === undefined) {
+      fd = openSync(join(folder, file), 'w');
+      fds.set(file, fd);
+    }
+    return fd;
+  };
   return {
     write(file, text) {
-      let fd = fds.get(file);
-      if (fd === undefined) {
-        fd = openSync(join(folder, file), 'w');
-        fds.set(file, fd);
-      }
-      writeSync(fd, text);
+      writeSync(fdOf(file), text);
+    },
+    writeBytes(file, bytes) {
+      writeSync(fdOf(file), bytes);
     },
     close() {
       for (const fd of fds.values()) closeSync(fd);

@@ -1,6 +1,6 @@
 // Decoded ROS messages -> rows of the flight-log layout, by the role each topic plays in the map.
 // Keeps the per-stream counts of the report (messages, rows, left out and why), the rows out of
-// time order, and the truth pairing; writes through LayoutRows (64 kB pieces to a LogTextSink).
+// time order, and the truth pairing; writes through LayoutRows (256 kB pieces to a LogTextSink).
 // Browser-safe: no file access here.
 import type { LogTextSink } from '../log/LogRecorder.js';
 import type { IngestRole, IngestStream } from './IngestReport.js';

@@ -1,12 +1,13 @@
 // The message loop of a conversion: every message of `topics`, in the recording's order, decoded
 // (by a FixedLayoutReader where the type allows, else by the library's reader from aligned
-// bytes) and handed to a RosLayoutWriter. Shared by the main thread and the
-// worker thread of a two-thread conversion, so each output file comes from this same code.
+// bytes) and handed to a RosLayoutWriter. One MessageConverter serves both ways messages come:
+// straight from the recording (convertMessages, one thread) and in batches from the thread that
+// reads the recording (the worker of a two-thread conversion), so each file comes from this code.
 import type { MessageReader } from '@foxglove/rosmsg2-serialization';
 import { parse } from '@foxglove/rosmsg';
 import { AlignedBytes, sameAfterStamp } from './AlignedBytes.js';
 import { FixedLayoutReader } from './FixedLayoutReader.js';
-import type { RecordedMessage, Recording } from './openRecording.node.js';
+import type { RecordedChannel, RecordedMessage, Recording } from './openRecording.node.js';
 import { RecordingError } from './RecordingError.js';
 import type { RosLayoutWriter } from './RosLayoutWriter.js';
 import type { Decoded } from './rosMessages.js';
@@ -22,41 +23,67 @@ export interface MessageLoop {
   firstCamera: Uint8Array;
 }
 
-/** Run the loop; on any error the layout's files are closed and the error goes up. */
+/** Decodes one message at a time and hands it to the layout. Hot path: fixed-layout types allocate nothing here. */
+export class MessageConverter {
+  private readonly topicById: Map<number, string>;
+  private readonly fast: Map<string, FixedLayoutReader | null>;
+  private readonly aligned = new AlignedBytes();
+  private readonly decoders: ReadonlyMap<string, MessageReader>;
+  private readonly layout: RosLayoutWriter;
+  private readonly firstCamera: Uint8Array;
+  /** Log time of the last message handed in (for the message about a damaged recording). */
+  lastLogTime = 0n;
+
+  constructor(channels: ReadonlyMap<string, RecordedChannel>, topics: readonly string[], decoders: ReadonlyMap<string, MessageReader>, layout: RosLayoutWriter, firstCamera: Uint8Array) {
+    this.topicById = new Map(topics.map((t) => [channels.get(t)!.id, t]));
+    this.fast = new Map(topics.map((t) => [t, fixedLayoutReaderFor(channels.get(t)!.schemaData)]));
+    this.decoders = decoders;
+    this.layout = layout;
+    this.firstCamera = firstCamera;
+  }
+
+  message(channelId: number, logTime: bigint, data: Uint8Array): void {
+    this.lastLogTime = logTime;
+    const topic = this.topicById.get(channelId)!;
+    const layout = this.layout;
+    // Every frame brings a camera info, nearly always the same: compare bytes, decode none.
+    if (layout.cameraOnly(topic) && sameAfterStamp(data, this.firstCamera)) {
+      layout.sameCamera();
+      return;
+    }
+    let msg: Decoded = this.fast.get(topic)?.read(data) ?? null;
+    if (msg === null) {
+      try {
+        msg = this.decoders.get(topic)!.readMessage(this.aligned.place(data));
+      } catch (error) {
+        layout.undecodable(topic, logTime, error as Error);
+        return;
+      }
+    }
+    layout.message(topic, msg, logTime);
+  }
+
+  /** The error for damage the container library found (a checksum, a cut chunk), saying where. */
+  damaged(name: string, reason: string): RecordingError {
+    return new RecordingError(`${name}: the recording is damaged after log time ${this.lastLogTime} ns (${reason})`);
+  }
+}
+
+/** Run the loop on one thread; on any error the layout's files are closed and the error goes up. */
 export async function convertMessages({ name, recording, topics, decoders, layout, firstCamera }: MessageLoop): Promise<void> {
-  const topicById = new Map(topics.map((t) => [recording.channels.get(t)!.id, t]));
-  const aligned = new AlignedBytes();
-  const fast = new Map(topics.map((t) => [t, fixedLayoutReaderFor(recording.channels.get(t)!.schemaData)]));
+  const converter = new MessageConverter(recording.channels, topics, decoders, layout, firstCamera);
   try {
     const iterator = recording.messages(topics);
-    let lastLogTime = 0n;
     for (;;) {
       let step: IteratorResult<RecordedMessage>;
       try {
         step = await iterator.next();
       } catch (error) {
-        // The container library found damage (a checksum, a cut chunk): say where.
-        throw new RecordingError(`${name}: the recording is damaged after log time ${lastLogTime} ns (${(error as Error).message})`);
+        throw converter.damaged(name, (error as Error).message);
       }
       if (step.done) break;
       const message = step.value;
-      lastLogTime = message.logTime;
-      const topic = topicById.get(message.channelId)!;
-      // Every frame brings a camera info, nearly always the same: compare bytes, decode none.
-      if (layout.cameraOnly(topic) && sameAfterStamp(message.data, firstCamera)) {
-        layout.sameCamera();
-        continue;
-      }
-      let msg: Decoded = fast.get(topic)?.read(message.data) ?? null;
-      if (msg === null) {
-        try {
-          msg = decoders.get(topic)!.readMessage(aligned.place(message.data));
-        } catch (error) {
-          layout.undecodable(topic, message.logTime, error as Error);
-          continue;
-        }
-      }
-      layout.message(topic, msg, message.logTime);
+      converter.message(message.channelId, message.logTime, message.data);
     }
   } catch (error) {
     layout.abort(); // the sink's files are closed before the error goes up

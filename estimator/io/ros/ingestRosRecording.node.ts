@@ -8,8 +8,8 @@ import type { MessageReader } from '@foxglove/rosmsg2-serialization';
 import { folderSink } from '../log/folderSink.node.js';
 import type { LogTextSink } from '../log/LogRecorder.js';
 import { LOG_FORMAT, LOG_VERSION } from '../log/parseLogCamera.js';
+import { convertInWorker, ingestWorkerPath, type PartResult } from './convertInWorker.node.js';
 import { convertMessages } from './convertMessages.js';
-import type { PartResult } from './convertPart.node.js';
 import type { IngestReport } from './IngestReport.js';
 import { openRecording, RecordingOpenError, type Recording } from './openRecording.node.js';
 import type { RosMap } from './parseRosMap.js';
@@ -17,7 +17,6 @@ import { checkRoute, decoderFor, ROLE_WORDS, routesOf, type Route } from './reco
 import { RecordingError } from './RecordingError.js';
 import { RosLayoutWriter } from './RosLayoutWriter.js';
 import { cameraFromInfo, MessageContentError, shortTypeName, type Decoded, type RosCamera } from './rosMessages.js';
-import { ingestWorkerPath, runParts, splitRoutes } from './twoParts.node.js';
 
 export { RecordingError } from './RecordingError.js';
 export type { IngestReport, IngestRole, IngestStream } from './IngestReport.js';
@@ -80,9 +79,9 @@ async function onePass(recording: Recording, name: string, map: RosMap, sink: Lo
 
 /**
  * Convert the recording at `path` into the log folder `folder`. With `threads` 2 (the default)
- * and an indexed recording, the mapped topics are split in two parts of about equal message
- * counts, one converted in a worker thread: each file still comes from one pass over its
- * messages, so the folder is byte for byte what ingestRosRecording writes.
+ * and an indexed recording, this thread reads the recording and a worker thread converts the
+ * messages (convertInWorker): the same code in the same order, so the folder is byte for byte
+ * what ingestRosRecording writes.
  */
 export async function ingestRosRecordingToFolder(path: string, map: RosMap, folder: string, options: IngestOptions & { threads?: number } = {}): Promise<IngestReport> {
   const started = performance.now();
@@ -91,14 +90,13 @@ export async function ingestRosRecordingToFolder(path: string, map: RosMap, fold
   try {
     const sink = folderSink(folder);
     const prepared = await prepare(recording, name, map, sink);
-    const parts = (options.threads ?? 2) >= 2 && recording.indexed ? splitRoutes(prepared.routes, recording.messageCounts) : null;
-    const worker = parts ? ingestWorkerPath() : null;
-    if (parts === null || worker === null) return await onePass(recording, name, map, sink, prepared, started);
-    sink.close(); // camera.json and filter.json are written; each part opens its own files
-    const job = { path, name, map, types: [...prepared.types], camera: prepared.camera, origin: prepared.origin, folder, firstCamera: prepared.firstCamera };
-    const results = await runParts(worker, { ...job, routes: parts[0] }, { ...job, routes: parts[1] });
-    const streams = Object.fromEntries(prepared.routes.map((r) => [r.role, results[0].streams[r.role] ?? results[1].streams[r.role]]));
-    return report(recording, name, map, prepared, { streams, files: { ...results[0].files, ...results[1].files }, warnings: [...results[0].warnings, ...results[1].warnings] }, 2, started);
+    const worker = (options.threads ?? 2) >= 2 && recording.indexed ? ingestWorkerPath() : null;
+    if (worker === null) return await onePass(recording, name, map, sink, prepared, started);
+    sink.close(); // camera.json and filter.json are written; the worker opens the CSV files
+    const channels = prepared.topics.map((t) => recording.channels.get(t)!);
+    const job = { name, map, routes: prepared.routes, types: [...prepared.types], camera: prepared.camera, origin: prepared.origin, folder, firstCamera: prepared.firstCamera, channels };
+    const result = await convertInWorker(worker, job, recording, prepared.topics);
+    return report(recording, name, map, prepared, result, 2, started);
   } finally {
     await recording.close();
   }

@@ -185,14 +185,16 @@ async function smallRecording(name: string, extra: (w: RosRecordingWriter) => Pr
 const smallMap = (boxes: Record<string, unknown>) =>
   parseRosMap(JSON.stringify({ format: 'alight-ros-map', version: 1, camera: { topic: '/camera/camera_info' }, targetSize: 2, boxes, imu: { topic: '/imu/data' } }), 'map.json');
 
-function ingestError(path: string, map = smallMap({ topic: '/boxes' })): Promise<string> {
-  return ingestRosRecording(path, map, folderSink(join(dir, `bad-${serial++}`)), { name: 'flight.mcap' }).then(
-    () => 'no error',
-    (error) => {
-      expect(error).toBeInstanceOf(RecordingError);
-      return (error as Error).message;
-    },
-  );
+/** The message a recording is refused with, the same on one thread and on two (the worker's errors come back as RecordingErrors). */
+async function ingestError(path: string, map = smallMap({ topic: '/boxes' })): Promise<string> {
+  const refusal = (error: unknown) => {
+    expect(error).toBeInstanceOf(RecordingError);
+    return (error as Error).message;
+  };
+  const one = await ingestRosRecording(path, map, folderSink(join(dir, `bad-${serial++}`)), { name: 'flight.mcap' }).then(() => 'no error', refusal);
+  const two = await ingestRosRecordingToFolder(path, map, join(dir, `bad-${serial++}`), { name: 'flight.mcap' }).then(() => 'no error', refusal);
+  expect(two).toBe(one);
+  return one;
 }
 
 describe('ingestRosRecording: recordings it refuses, by name', () => {

@@ -3,12 +3,12 @@
 // SHA-256 sums of the folder the conversion wrote before it (commit dc25826: every message decoded
 // by the library's MessageReader), on one thread and on two.
 import { createHash } from 'node:crypto';
-import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { folderSink } from '../../../estimator/io/log/folderSink.node.js';
-import { ingestRosRecording, ingestRosRecordingToFolder } from '../../../estimator/io/ros/ingestRosRecording.node.js';
+import { ingestRosRecording, ingestRosRecordingToFolder, RecordingError } from '../../../estimator/io/ros/ingestRosRecording.node.js';
 import { parseRosMap } from '../../../estimator/io/ros/parseRosMap.js';
 import { writeSyntheticRecording } from './syntheticRecording.js';
 
@@ -44,5 +44,24 @@ describe('alight ingest output, byte for byte', () => {
       expect(readdirSync(folder).sort()).toEqual(Object.keys(BEFORE));
       for (const file of Object.keys(BEFORE)) expect(sha256(join(folder, file)), `${folder}/${file}`).toBe(BEFORE[file]);
     }
+  });
+
+  it('stops on damage in a later chunk with the same message on one thread and on two (the reading thread forwards it)', async () => {
+    const recording = join(dir, 'damaged.mcap');
+    await writeSyntheticRecording(recording, { duration: 20 }); // 5.4 MB: two 4 MB chunks
+    const bytes = readFileSync(recording);
+    const g = Buffer.alloc(8);
+    g.writeDoubleLE(9.81);
+    const at = bytes.indexOf(g, 4.5e6); // an IMU message in the second chunk
+    expect(at).toBeGreaterThan(4.5e6);
+    bytes[at + 7] ^= 0x01; // 9.81 becomes another number: the chunk's checksum no longer matches
+    writeFileSync(recording, bytes);
+    const mapPath = join(__dirname, '../../../data-demo/ros/flight.map.json');
+    const map = parseRosMap(readFileSync(mapPath, 'utf8'), mapPath);
+    const refusal = (error: unknown) => (error instanceof RecordingError ? error.message : `not a RecordingError: ${String(error)}`);
+    const one = await ingestRosRecording(recording, map, folderSink(join(dir, 'damaged-one')), { name: NAME }).then(() => 'no error', refusal);
+    const two = await ingestRosRecordingToFolder(recording, map, join(dir, 'damaged-two'), { name: NAME }).then(() => 'no error', refusal);
+    expect(one).toMatch(/^synthetic-20s\.mcap: the recording is damaged after log time \d+ ns \(Incorrect chunk CRC/);
+    expect(two).toBe(one);
   });
 });

@@ -12,6 +12,9 @@ export interface HorizontalEstimate {
   vcy: number;
   vlx: number;
   vly: number;
+  /** Estimated carrier horizontal acceleration (m/s^2): the Singer state, 0 for a constant-velocity carrier model. */
+  acx: number;
+  acy: number;
 }
 
 export interface HorizontalGuidance {

@@ -1,6 +1,7 @@
 // LQR on the relative double integrator, per horizontal axis (gains from lqrGain, i.e. the
 // discrete Riccati equation). Allocation-free after construction.
-//   a = kr r + kv (vC - vL)              desired lander acceleration (m/s^2), |a| <= maxAccel
+//   a = kr r + kv (vC - vL) + aC         desired lander acceleration (m/s^2), |a| <= maxAccel;
+//                                        aC the estimated carrier acceleration (r'' = aC - aL)
 //   v_cmd = vL + tau a                   velocity command a first-order lag tau turns into a
 // |v_cmd| <= maxSpeed. The carrier's velocity enters through the relative rate, so no
 // separate feed-forward is needed (guidance.feedForward only affects the PID law).
@@ -29,8 +30,8 @@ export class LqrGuidance implements HorizontalGuidance {
   reset(): void {}
 
   command(e: HorizontalEstimate, _dt: number, out: Float64Array): void {
-    out[0] = this.kr * e.rx + this.kv * (e.vcx - e.vlx);
-    out[1] = this.kr * e.ry + this.kv * (e.vcy - e.vly);
+    out[0] = this.kr * e.rx + this.kv * (e.vcx - e.vlx) + e.acx;
+    out[1] = this.kr * e.ry + this.kv * (e.vcy - e.vly) + e.acy;
     limitNorm2(out, this.maxAccel);
     out[0] = e.vlx + this.tau * out[0]!;
     out[1] = e.vly + this.tau * out[1]!;

@@ -15,6 +15,7 @@ import { FailureLog } from './attribution/FailureLog.js';
 import { createGuidance } from './guidance.js';
 import { AttitudeHistory, attitudeHistorySize } from './AttitudeHistory.js';
 import { ImuHistory } from '../models/ImuHistory.js';
+import { AC_INDEX } from '../models/landingState.js';
 import { OutlineForecast } from './OutlineForecast.js';
 import { NadirGimbal } from './world/NadirGimbal.js';
 import { withHistoryFor } from './historyFor.js';
@@ -124,7 +125,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
   const imuSamples = new ImuHistory(attitudeHistorySize(filterSpec.historyLength, localization.imuRate));
   const pending: DetectorFrame[] = new Array<DetectorFrame>(PENDING);
   let pendingHead = 0, pendingCount = 0;
-  const input: SupervisorInput = { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, valid: false, height: 0, vcz: 0, unseenFor: Infinity, lastSeen: -Infinity, diverged: false, blind: false, confirmed: false };
+  const input: SupervisorInput = { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, acx: 0, acy: 0, valid: false, height: 0, vcz: 0, unseenFor: Infinity, lastSeen: -Infinity, diverged: false, blind: false, confirmed: false };
 
   const steps = Math.round(scenario.duration * filterSpec.rate);
   const imuPeriod = 1 / localization.imuRate, odometryPeriod = 1 / localization.odometryRate;
@@ -231,6 +232,7 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     input.rx = x[0]!; input.ry = x[1]!; input.height = -x[2]!;
     input.vcx = x[3]!; input.vcy = x[4]!; input.vcz = x[5]!;
     input.vlx = x[6]!; input.vly = x[7]!;
+    if (filter.n >= AC_INDEX + 3) { input.acx = x[AC_INDEX]!; input.acy = x[AC_INDEX + 1]!; }
     input.lastSeen = lastSeen;
     input.unseenFor = t - lastSeen;
     input.blind = input.valid && forecast.leaving(x, qFilter, st.heading[0]!, st.heading[1]!);

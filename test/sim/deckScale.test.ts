@@ -25,6 +25,7 @@ interface Descent {
 function descend(deckScaleSigma: number, seed: number): Descent {
   const scenario: Scenario = defaultScenario();
   // the filter assumes a deck 1 / 1.08 of the true one: true = assumed x 1.08, s = +0.08
+  scenario.localization.biasDraw = 'fixed'; // the errors as written: this exact deck-size error, the others as the default has them
   scenario.localization.targetSizeError = 1 / 1.08 - 1;
   // the same filter with and without the state: size noise near the detector's own 3 % (not the
   // 10 % the default carries to cover a deck-size error as if it were white), a carrier that

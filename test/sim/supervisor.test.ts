@@ -15,7 +15,7 @@ class Still implements HorizontalGuidance {
 }
 
 function input(over: Partial<SupervisorInput>): SupervisorInput {
-  return { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, valid: true, height: 6, vcz: 0, unseenFor: 0, lastSeen: 0, diverged: false, blind: false, confirmed: true, ...over };
+  return { rx: 0, ry: 0, vcx: 0, vcy: 0, vlx: 0, vly: 0, acx: 0, acy: 0, valid: true, height: 6, vcz: 0, unseenFor: 0, lastSeen: 0, diverged: false, blind: false, confirmed: true, ...over };
 }
 
 describe('LandingSupervisor', () => {

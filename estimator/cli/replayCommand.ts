@@ -75,6 +75,8 @@ export function formatReplay(r: ReplayReport): string {
   const diverged = r.divergences.length > 0 ? `; diverged: ${r.divergences.map((d) => `${d.event} at ${f(d.time)} s`).join(', ')}` : '';
   const restarts = r.restarts > 0 ? `; ${r.restarts} restart${r.restarts === 1 ? '' : 's'}` : '';
   lines.push(r.start === null ? '  filter     never started (no usable box)' : `  filter     ${f(r.start)} s to ${f(r.end)} s, ${r.filterSteps} IMU steps${diverged}${restarts}`);
+  const scale = r.deckScaleEstimate;
+  if (scale) lines.push(`  deck scale ${scale.value >= 0 ? '+' : ''}${f(100 * scale.value, 1)} % ± ${f(100 * scale.sigma, 1)} % (1 sigma) at the end: the deck the filter estimates against the one it assumes`);
   lines.push(nisLine('NIS boxes', r.boxes));
   lines.push(nisLine('NIS odom', r.odometry));
   lines.push(`  gate       ${r.gateRejections} rejections`);

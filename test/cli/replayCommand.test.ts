@@ -70,6 +70,20 @@ describe('alight replay', () => {
     expect(last.slice(13).every((v) => v > 0)).toBe(true); // variances
   });
 
+  it('alight replay --filter with the deck-scale state shows its estimate (text, --json) and writes its column with --out', async () => {
+    writeFileSync(join(dir, 'scale.json'), '{ "deckScaleSigma": 0.05 }');
+    const json = JSON.parse((await run('replay', 'flight', '--json', '--filter', 'scale.json', '--out', 'est-scale.csv')).out);
+    expect(json.filter.deckScaleSigma).toBe(0.05);
+    expect(json.deckScaleEstimate.sigma).toBeGreaterThan(0);
+    expect(json.deckScaleEstimate.sigma).toBeLessThanOrEqual(0.05); // never above its prior
+    const header = readFileSync(join(dir, 'est-scale.csv'), 'utf8').split('\n')[0]!.split(',');
+    expect(header).toHaveLength(1 + 2 * 13);
+    expect([header[13], header[26]]).toEqual(['deck_scale', 'P_deck_scale']);
+    expect((await run('replay', 'flight', '--filter', 'scale.json')).out).toMatch(/\n {2}deck scale [+-]\d+\.\d % ± \d+\.\d % \(1 sigma\) at the end/);
+    expect((await run('replay', 'flight')).out).not.toContain('deck scale');
+    expect('deckScaleEstimate' in JSON.parse((await run('replay', 'flight', '--json')).out)).toBe(false);
+  });
+
   it('alight replay --filter applies a partial FilterSpec and refuses a bad one with file, line and field', async () => {
     writeFileSync(join(dir, 'good.json'), '{ "rScale": 2, "gateScale": 1.5 }');
     const good = JSON.parse((await run('replay', 'flight', '--json', '--filter', 'good.json')).out);

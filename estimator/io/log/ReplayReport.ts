@@ -95,5 +95,11 @@ export interface ReplayReport {
   divergence: string | null;
   divergences: { time: number; event: string }[];
   restarts: number;
+  /**
+   * The filter's deck-scale estimate at the end of the replay: s (true deck = assumed x (1 + s))
+   * and its 1 sigma. Present only when the settings carry the state (filter.deckScaleSigma > 0);
+   * null when the filter never started.
+   */
+  deckScaleEstimate?: { value: number; sigma: number } | null;
   caution: string;
 }

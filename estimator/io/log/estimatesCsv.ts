@@ -3,9 +3,13 @@
 // the same double that was written (what makes record -> replay exact).
 import { STATE_COLUMNS } from './logStreams.js';
 
-/** Header line for an n-state filter (12, or 15 with the Singer carrier acceleration). */
+/**
+ * Header line for an n-state filter: 12, or 15 with the Singer carrier acceleration; 13 or 16
+ * with the deck-scale state, whose column (last) is `deck_scale`.
+ */
 export function estimatesHeader(n: number): string {
-  const names = STATE_COLUMNS.slice(0, n);
+  const deckScale = n === 13 || n === 16;
+  const names: string[] = deckScale ? [...STATE_COLUMNS.slice(0, n - 1), 'deck_scale'] : STATE_COLUMNS.slice(0, n);
   return ['time', ...names, ...names.map((c) => `P_${c}`)].join(',');
 }
 

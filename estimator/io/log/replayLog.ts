@@ -174,6 +174,7 @@ function report(source: LogSource, spec: FilterSpec, level: number, readers: Log
     divergence: r.divergences.length > 0 ? r.divergences[0]!.event : null,
     divergences: r.divergences,
     restarts: r.restarts,
+    ...(r.filter.deckScaleIndex >= 0 ? { deckScaleEstimate: r.started ? r.filter.deckScale() : null } : {}),
     caution: SAFETY_CAUTION,
   };
 }

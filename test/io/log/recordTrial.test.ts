@@ -82,6 +82,8 @@ describe('record then replay', () => {
       expect(report.onboard!.compared).toBeGreaterThan(1000);
       expect(report.onboard!.maxStateDifference).toBe(0);
       expect(report.nisMean).toBe(result.nisMean);
+      // the estimate the replay ends with is the trial's at touchdown (same filter, same last step)
+      expect(report.deckScaleEstimate).toEqual(result.deckScaleEstimate);
     }
   });
 

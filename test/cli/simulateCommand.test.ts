@@ -66,7 +66,10 @@ describe('alight simulate', () => {
     expect(last).toHaveLength(TRACE_COLUMNS.length + 2);
     expect(Number(last[TRACE_COLUMNS.length + 1])).toBeGreaterThan(0);
     // without the state the summary has no such line
-    expect((await run(['simulate', 'data-demo/survey-rover.scenario.json'])).stdout).not.toContain('deck scale');
+    scenario.filter.deckScaleSigma = 0;
+    const plainFile = join(dir, 'rover-no-scale.scenario.json');
+    writeFileSync(plainFile, JSON.stringify(scenario, null, 2));
+    expect((await run(['simulate', plainFile])).stdout).not.toContain('deck scale');
   });
 
   it('writes a CSV trace with one row per step until touchdown', async () => {
@@ -75,9 +78,9 @@ describe('alight simulate', () => {
     expect(code).toBe(0);
     const touchdown = (JSON.parse(stdout) as { touchdownTime: number }).touchdownTime;
     const lines = readFileSync(trace, 'utf8').trim().split('\n');
-    expect(lines[0]).toBe(TRACE_COLUMNS.join(','));
+    expect(lines[0]).toBe([...TRACE_COLUMNS, 'est_deck_scale', 'sigma_deck_scale'].join(',')); // the rover carries the deck-scale state
     expect(lines.length - 1).toBe(Math.round(touchdown * 100) - 1); // the contact step itself is judged, not traced
-    expect(lines[1]!.split(',')).toHaveLength(TRACE_COLUMNS.length);
+    expect(lines[1]!.split(',')).toHaveLength(TRACE_COLUMNS.length + 2);
     expect(lines[1]!.split(',')[1]).toBe('acquire');
     // the appended columns: camera updates with their NIS, and the true outline of captured frames
     const rows = lines.slice(1).map((l) => l.split(','));

@@ -78,9 +78,9 @@ describe('alight simulate', () => {
     expect(code).toBe(0);
     const touchdown = (JSON.parse(stdout) as { touchdownTime: number }).touchdownTime;
     const lines = readFileSync(trace, 'utf8').trim().split('\n');
-    expect(lines[0]).toBe([...TRACE_COLUMNS, 'est_deck_scale', 'sigma_deck_scale'].join(',')); // the rover carries the deck-scale state
+    expect(lines[0]).toBe(TRACE_COLUMNS.join(','));
     expect(lines.length - 1).toBe(Math.round(touchdown * 100) - 1); // the contact step itself is judged, not traced
-    expect(lines[1]!.split(',')).toHaveLength(TRACE_COLUMNS.length + 2);
+    expect(lines[1]!.split(',')).toHaveLength(TRACE_COLUMNS.length);
     expect(lines[1]!.split(',')[1]).toBe('acquire');
     // the appended columns: camera updates with their NIS, and the true outline of captured frames
     const rows = lines.slice(1).map((l) => l.split(','));

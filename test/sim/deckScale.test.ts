@@ -6,7 +6,6 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { defaultScenario } from '../../estimator/io/defaultScenario.js';
 import { loadScenario } from '../../estimator/io/loadScenario.js';
-import { setPath } from '../../estimator/io/scenarioPath.js';
 import { runTrial } from '../../estimator/sim/runTrial.js';
 import type { Scenario } from '../../estimator/sim/Scenario.js';
 import { DECK_SCALE_COLUMNS, TRACE_COLUMNS, traceColumns, traceCsvLine, type TraceRow } from '../../estimator/sim/trace.js';

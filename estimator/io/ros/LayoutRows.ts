@@ -1,10 +1,11 @@
 // Buffered rows for the files of a flight log, handed to a LogTextSink (folderSink writes them
 // into a folder) in pieces of about 256 kB, so memory stays bounded however long the recording.
 // A file is created with its header when its first row comes (or by ensure()).
-// Hot path: add() copies each row's characters into the file's reused byte buffer and allocates
-// nothing. Rows went through string concatenation before: the sink then flattened and encoded
-// every 64 kB string, which cost more than formatting the numbers. Rows are numbers, so ASCII;
-// any other character is encoded as UTF-8 all the same. Browser-safe.
+// Hot path: a row of numbers goes value by value (start, next, end), each number's shortest
+// round-trip text (String(x), as a template literal gives it) copied into the file's reused byte
+// buffer: no row string is built, joined or encoded. Rows went through string concatenation
+// before: the sink then flattened and encoded every 64 kB string, which cost more than
+// formatting the numbers. add() takes any text line (UTF-8 outside ASCII). Browser-safe.
 import type { LogTextSink } from '../log/LogRecorder.js';
 
 /** Bytes buffered per file before they go to the sink. */
@@ -17,6 +18,10 @@ interface FileRows {
   length: number;
 }
 
+/** Room for one number's text: the longest is 24 characters ("-2.2250738585072014e-308") and a comma. */
+const NUMBER_ROOM = 32;
+const COMMA = 44;
+const LINE_END = 10;
 const encoder = new TextEncoder();
 const decoder = new TextDecoder();
 
@@ -26,6 +31,8 @@ export class LayoutRows {
   private readonly headers: Readonly<Record<string, string>>;
   /** Rows written per file. */
   readonly rows = new Map<string, number>();
+  /** The file of the row being written (between start and end). */
+  private current: FileRows | null = null;
 
   constructor(sink: LogTextSink, headers: Readonly<Record<string, string>>) {
     this.sink = sink;
@@ -49,6 +56,39 @@ export class LayoutRows {
     const rows = this.files.get(file) ?? this.ensure(file);
     this.append(rows, line);
     this.rows.set(file, this.rows.get(file)! + 1);
+  }
+
+  /** Start a row of `file` with its first value; next() adds the others, end() closes it. */
+  start(file: string, value: number): this {
+    const rows = this.files.get(file) ?? this.ensure(file);
+    this.current = rows;
+    this.rows.set(file, this.rows.get(file)! + 1);
+    this.number(rows, value);
+    return this;
+  }
+
+  /** The next value of the row, after a comma. */
+  next(value: number): this {
+    const rows = this.current!;
+    rows.bytes[rows.length++] = COMMA; // number() left room for it
+    this.number(rows, value);
+    return this;
+  }
+
+  /** Close the row. */
+  end(): void {
+    const rows = this.current!;
+    rows.bytes[rows.length++] = LINE_END;
+    this.current = null;
+  }
+
+  /** Copy a number's text; the buffer keeps room for a comma or line end after it (a row may span two pieces: the file is the same). */
+  private number(rows: FileRows, value: number): void {
+    if (rows.length + NUMBER_ROOM > rows.bytes.length) this.flush(rows);
+    const text = String(value), bytes = rows.bytes;
+    let n = rows.length;
+    for (let i = 0; i < text.length; i++) bytes[n++] = text.charCodeAt(i);
+    rows.length = n;
   }
 
   private append(rows: FileRows, line: string): void {

@@ -67,7 +67,7 @@ export class RosLayoutWriter {
       this.streams[route.role] = { topic: route.topic, type: context.types.get(route.topic)!.recorded, messages: 0, rows: 0, left: {} };
     }
     this.truth = map.truth
-      ? new TruthPairing(map.truth.maxGap, (t, r, vC, vL) => this.write('truthLander', 'truth.csv', t, `${t},${r[0]},${r[1]},${r[2]},${vC[0]},${vC[1]},${vC[2]},${vL[0]},${vL[1]},${vL[2]}`))
+      ? new TruthPairing(map.truth.maxGap, (t, r, vC, vL) => this.row('truthLander', 'truth.csv', t).next(r[0]!).next(r[1]!).next(r[2]!).next(vC[0]!).next(vC[1]!).next(vC[2]!).next(vL[0]!).next(vL[1]!).next(vL[2]!).end())
       : null;
   }
 
@@ -114,17 +114,17 @@ export class RosLayoutWriter {
       }
       case 'imu': {
         const t = stampSeconds(msg.header.stamp, origin), f = imuSpecificForce(msg, map.imu.body, this.f);
-        return this.write(role, 'imu.csv', t, `${t},${f[0]},${f[1]},${f[2]}`);
+        return this.row(role, 'imu.csv', t).next(f[0]!).next(f[1]!).next(f[2]!).end();
       }
       case 'attitude': {
         if (this.attitudeWorld === null && type !== 'sensor_msgs/Imu') this.attitudeWorld = msg.header.frame_id;
         const t = stampSeconds(msg.header.stamp, origin), q = attitudeOf(type, msg, map.attitude, this.q);
-        return this.write(role, 'attitude.csv', t, `${t},${q[0]},${q[1]},${q[2]},${q[3]}`);
+        return this.row(role, 'attitude.csv', t).next(q[0]!).next(q[1]!).next(q[2]!).next(q[3]!).end();
       }
       case 'odometry': {
         if (this.odometryWorld === null) this.odometryWorld = msg.header.frame_id;
         const t = stampSeconds(msg.header.stamp, origin), v = velocityOf(type, msg, map.odometry!, this.qScratch, this.v);
-        return this.write(role, 'odometry.csv', t, `${t},${v[0]},${v[1]},${v[2]}`);
+        return this.row(role, 'odometry.csv', t).next(v[0]!).next(v[1]!).next(v[2]!).end();
       }
       case 'boxes':
         return this.boxes(topic, type, msg, logTime);
@@ -142,7 +142,7 @@ export class RosLayoutWriter {
       }
       case 'resets': {
         const t = msg.header?.stamp ? stampSeconds(msg.header.stamp, origin) : logTimeSeconds(logTime, origin);
-        return this.write(role, 'resets.csv', t, String(t));
+        return this.row(role, 'resets.csv', t).end();
       }
     }
   }
@@ -158,7 +158,7 @@ export class RosLayoutWriter {
     }
     const arrival = map.boxes.arrival === 'receive' ? logTimeSeconds(logTime, origin) : capture;
     const emit = (xMin: number, yMin: number, xMax: number, yMax: number, score: number) =>
-      this.write('boxes', 'boxes.csv', capture, `${capture},${arrival},${xMin},${yMin},${xMax},${yMax},${score}`, arrival);
+      this.row('boxes', 'boxes.csv', capture, arrival).next(arrival).next(xMin).next(yMin).next(xMax).next(yMax).next(score).end();
     if (map.boxes.corners) cornerBoxes(msg, map.boxes.corners, map.boxes.list, map.boxes.score, this.shift, emit, this.boxCounts);
     else detectionBoxes(type, msg, map.boxes.classId, this.shift, emit, this.boxCounts);
   }
@@ -172,11 +172,12 @@ export class RosLayoutWriter {
     s.left[reason] = (s.left[reason] ?? 0) + n;
   }
 
-  private write(role: IngestRole, file: LogFile, t: number, line: string, orderTime = t): void {
+  /** Start a row of `file` at time `t` (its first column); the caller adds the other values and ends it. */
+  private row(role: IngestRole, file: LogFile, t: number, orderTime = t): LayoutRows {
     if (orderTime < (this.lastTime[file] ?? -Infinity)) this.unordered[file] = (this.unordered[file] ?? 0) + 1;
     this.lastTime[file] = orderTime;
-    this.rows.add(file, line);
     this.streams[role]!.rows++;
+    return this.rows.start(file, t);
   }
 
   /** Close the files after a failure (nothing more is counted). */

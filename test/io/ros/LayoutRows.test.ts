@@ -43,4 +43,20 @@ describe('LayoutRows', () => {
     expect(sink.files.get('notes.csv')).toBe(['note', ...lines].join('\n') + '\n');
     expect(sink.pieces).toBeGreaterThan(2);
   });
+
+  it('writes a row of numbers value by value as the template literal would, rows crossing a piece boundary included', () => {
+    const sink = memorySink(true);
+    const rows = new LayoutRows(sink, { 'truth.csv': 't,a,b,c' });
+    const values = [0.1 + 0.2, -0, Number.NaN, -Infinity, 1e21, 5e-324, -2.2250738585072014e-308, 123456789.125, 2 ** 53 + 2];
+    const expected: string[] = ['t,a,b,c'];
+    for (let k = 0; k < 20_000; k++) { // about 2 MB: rows end up split across 256 kB pieces
+      const [t, a, b, c] = [k / 3, values[k % values.length]!, values[(k + 1) % values.length]!, values[(k + 4) % values.length]!];
+      rows.start('truth.csv', t).next(a).next(b).next(c).end();
+      expected.push(`${t},${a},${b},${c}`);
+    }
+    rows.close();
+    expect(sink.files.get('truth.csv')).toBe(expected.join('\n') + '\n');
+    expect(rows.rows.get('truth.csv')).toBe(20_000);
+    expect(sink.pieces).toBeGreaterThan(2);
+  });
 });

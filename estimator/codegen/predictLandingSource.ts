@@ -119,18 +119,18 @@ function predictFunction(singer: boolean, deckScale: boolean): string {
   }
   lines.push('  // process noise Q (upper triangle)');
   for (let a = 0; a < 3; a++) {
-    const r = a, vc = 3 + a, vl = 6 + a, ba = 9 + a;
-    write(r * n + r, `${read(r * n + r)} + Qrr`);
-    write(r * n + vc, `${read(r * n + vc)} + QrVc`);
+    const r = a, vc = 3 + a, vl = 6 + a, ba = 9 + a, z = a === 2 ? 'Z' : '';
+    write(r * n + r, `${read(r * n + r)} + Qrr${z}`);
+    write(r * n + vc, `${read(r * n + vc)} + QrVc${z}`);
     write(r * n + vl, `${read(r * n + vl)} + QrVl`);
-    write(vc * n + vc, `${read(vc * n + vc)} + QVcVc`);
+    write(vc * n + vc, `${read(vc * n + vc)} + QVcVc${z}`);
     write(vl * n + vl, `${read(vl * n + vl)} + QVlVl`);
     write(ba * n + ba, `${read(ba * n + ba)} + QBaBa`);
     if (singer) {
       const ac = 12 + a;
-      write(r * n + ac, `${read(r * n + ac)} + QrAc`);
-      write(vc * n + ac, `${read(vc * n + ac)} + QVcAc`);
-      write(ac * n + ac, `${read(ac * n + ac)} + QAcAc`);
+      write(r * n + ac, `${read(r * n + ac)} + QrAc${z}`);
+      write(vc * n + ac, `${read(vc * n + ac)} + QVcAc${z}`);
+      write(ac * n + ac, `${read(ac * n + ac)} + QAcAc${z}`);
     }
   }
   lines.push('  // changed entries of the upper triangle, and their mirrors');
@@ -147,13 +147,13 @@ function predictFunction(singer: boolean, deckScale: boolean): string {
   if (deckScale) changed.push(`P[${n * n - 1}]!`);
   const terms: string[] = [];
   for (let k = 0; k < changed.length; k += 8) terms.push(changed.slice(k, k + 8).map((name) => `${name} * 0`).join(' + '));
-  const singerLocals = singer ? '\n  const alpha = c.alpha, beta = c.beta, e = c.e, QrAc = c.QrAc, QVcAc = c.QVcAc, QAcAc = c.QAcAc;' : '';
+  const singerLocals = singer ? '\n  const alpha = c.alpha, beta = c.beta, e = c.e, QrAc = c.QrAc, QVcAc = c.QVcAc, QAcAc = c.QAcAc, QrAcZ = c.QrAcZ, QVcAcZ = c.QVcAcZ, QAcAcZ = c.QAcAcZ;' : '';
   return `
 /** predictLanding(x, P, ${n}, f, Rwb, c) for c.singer = ${singer}${deckScale ? ' with the deck-scale state' : ''}; false when x or P became non-finite. */
 export function ${singer ? 'predictSinger' : 'predictConstantVelocity'}${deckScale ? 'DeckScale' : ''}(x: Float64Array, P: Float64Array, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
   const dt = c.dt, h2 = 0.5 * dt * dt;
   const R00 = Rwb[0]!, R01 = Rwb[1]!, R02 = Rwb[2]!, R10 = Rwb[3]!, R11 = Rwb[4]!, R12 = Rwb[5]!, R20 = Rwb[6]!, R21 = Rwb[7]!, R22 = Rwb[8]!;
-  const Qrr = c.Qrr, QrVc = c.QrVc, QrVl = c.QrVl, QVcVc = c.QVcVc, QVlVl = c.QVlVl, QBaBa = c.QBaBa;
+  const Qrr = c.Qrr, QrVc = c.QrVc, QrVl = c.QrVl, QVcVc = c.QVcVc, QVlVl = c.QVlVl, QBaBa = c.QBaBa, QrrZ = c.QrrZ, QrVcZ = c.QrVcZ, QVcVcZ = c.QVcVcZ;
   predictLandingState(x, f, Rwb, c);${singerLocals}
 ${lines.join('\n')}
   let finite = ${terms.join('\n    + ')};

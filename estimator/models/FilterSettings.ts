@@ -28,6 +28,13 @@ export interface FilterSpec {
   carrierModel: CarrierModel;
   /** Carrier acceleration noise (m/s^2 / sqrt(Hz)) and Singer time constant (s). */
   carrierAccelNoise: number;
+  /**
+   * The carrier's vertical (Up) acceleration noise (m/s^2 / sqrt(Hz); default carrierAccelNoise):
+   * a ground carrier barely moves vertically and a boat heaves, while both may turn and change
+   * speed. Left as free as the horizontal axes, the carrier's vertical velocity absorbs the box's
+   * growth and the range and deck scale are poorly pinned by the lander's metric motion.
+   */
+  carrierVerticalAccelNoise?: number;
   singerTau: number;
   /** Accelerometer noise density assumed (m/s^2 / sqrt(Hz)) and bias random walk (m/s^3 / sqrt(Hz)). */
   accelNoise: number;

@@ -100,7 +100,7 @@ export class LandingCore {
     this.P = this.state.subarray(this.n);
     this.check = new Float64Array(this.n * this.n);
     this.model = new BoxMeasurementModel(camera, targetSize);
-    this.noise = { carrierAccelNoise: spec.carrierAccelNoise, singerTau: spec.singerTau, accelNoise: spec.accelNoise, accelBiasWalk: spec.accelBiasWalk, qScale: spec.qScale };
+    this.noise = { carrierAccelNoise: spec.carrierAccelNoise, carrierVerticalAccelNoise: spec.carrierVerticalAccelNoise, singerTau: spec.singerTau, accelNoise: spec.accelNoise, accelBiasWalk: spec.accelBiasWalk, qScale: spec.qScale };
     this.coefficients = new ProcessCoefficientCache(singer, this.noise);
     this.ws = new UpdateWorkspace(this.n, 3);
     this.lastWorkspace = this.ws;

@@ -419,8 +419,10 @@ export class LandingFilter {
     const { coefficients, noise } = this.core;
     coefficients.clear();
     if (this.spec.carrierModel === 'singer') {
-      const tau = noise.singerTau, sigma = noise.carrierAccelNoise;
+      const tau = noise.singerTau, sigma = noise.carrierAccelNoise, sz = noise.carrierVerticalAccelNoise ?? sigma;
       this.setDiagonal(12, Math.max((sigma * sigma * noise.qScale) / (2 * tau), 1e-12));
+      // the vertical axis: its stationary variance from its own density
+      this.P[14 * this.n + 14] = Math.max((sz * sz * noise.qScale) / (2 * tau), 1e-12);
     }
     // deck-scale state: prior 0 ± deckScaleSigma (x is already 0)
     const si = this.core.scaleIndex;

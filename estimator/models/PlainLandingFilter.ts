@@ -66,7 +66,8 @@ export class PlainLandingFilter {
     const diag = [sigma.position, sigma.velocity, sigma.velocity, sigma.accelBias].flatMap((s) => [s * s, s * s, s * s]);
     if (this.n === 15) {
       const variance = Math.max((this.spec.carrierAccelNoise ** 2 * this.spec.qScale) / (2 * this.spec.singerTau), 1e-12);
-      diag.push(variance, variance, variance);
+      const sz = this.spec.carrierVerticalAccelNoise ?? this.spec.carrierAccelNoise;
+      diag.push(variance, variance, Math.max((sz ** 2 * this.spec.qScale) / (2 * this.spec.singerTau), 1e-12));
     }
     this.P = Matrix.diag(diag);
     this.time = t;
@@ -82,7 +83,7 @@ export class PlainLandingFilter {
     const Rwb = new Matrix(3, 3);
     const R = rotationMatrixFromQuat(this.attitude);
     for (let i = 0; i < 9; i++) Rwb.set(Math.floor(i / 3), i % 3, R[i]!);
-    const c = processCoefficients(dt, { carrierAccelNoise: this.spec.carrierAccelNoise, singerTau: this.spec.singerTau, accelNoise: this.spec.accelNoise, accelBiasWalk: this.spec.accelBiasWalk, qScale: this.spec.qScale }, this.coefficients);
+    const c = processCoefficients(dt, { carrierAccelNoise: this.spec.carrierAccelNoise, carrierVerticalAccelNoise: this.spec.carrierVerticalAccelNoise, singerTau: this.spec.singerTau, accelNoise: this.spec.accelNoise, accelBiasWalk: this.spec.accelBiasWalk, qScale: this.spec.qScale }, this.coefficients);
     const n = this.n;
     const F = Matrix.eye(n, n);
     block(F, 0, 3, dt);
@@ -107,6 +108,15 @@ export class PlainLandingFilter {
       block(Q, 3, 12, c.QVcAc);
       block(Q, 12, 3, c.QVcAc);
       block(Q, 12, 12, c.QAcAc);
+    }
+    // the carrier's vertical axis (z) from its own noise density
+    symmetric(Q, 2, 2, c.QrrZ);
+    symmetric(Q, 2, 5, c.QrVcZ);
+    symmetric(Q, 5, 5, c.QVcVcZ);
+    if (n === 15) {
+      symmetric(Q, 2, 14, c.QrAcZ);
+      symmetric(Q, 5, 14, c.QVcAcZ);
+      symmetric(Q, 14, 14, c.QAcAcZ);
     }
     // Nonlinear state step: a_L = R_wb (f - ba) + g.
     const bias = this.x.subMatrix(9, 11, 0, 0);
@@ -213,4 +223,10 @@ export class PlainLandingFilter {
   private symmetrize(): void {
     this.P = this.P.add(this.P.transpose()).mul(0.5);
   }
+}
+
+/** Q[i][j] = Q[j][i] = value. */
+function symmetric(Q: Matrix, i: number, j: number, value: number): void {
+  Q.set(i, j, value);
+  Q.set(j, i, value);
 }

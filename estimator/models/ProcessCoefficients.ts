@@ -12,6 +12,9 @@
 //   (integrand smooth: exact to round-off at filter step sizes).
 // q_w = σ²/τ² where σ = carrierAccelNoise, so the Singer acceleration has the same
 // low-frequency spectral density as the white-noise model and tends to it as τ → 0.
+// The carrier's vertical axis (z, Up) may have its own density σ_z (carrierVerticalAccelNoise,
+// default σ): a ground carrier barely moves vertically, a boat heaves. Its carrier blocks are the
+// same formulas with q_cz = σ_z² in place of q_c (the *Z fields); every other block is isotropic.
 
 export interface ProcessCoefficients {
   dt: number;
@@ -30,16 +33,25 @@ export interface ProcessCoefficients {
   QAcAc: number;
   QVlVl: number;
   QBaBa: number;
+  /** The carrier blocks of the vertical axis (z), from carrierVerticalAccelNoise. */
+  QrrZ: number;
+  QrVcZ: number;
+  QrAcZ: number;
+  QVcVcZ: number;
+  QVcAcZ: number;
+  QAcAcZ: number;
 }
 
 export function emptyProcessCoefficients(singer: boolean): ProcessCoefficients {
-  return { dt: Number.NaN, singer, alpha: 0, beta: 0, e: 1, Qrr: 0, QrVc: 0, QrVl: 0, QrAc: 0, QVcVc: 0, QVcAc: 0, QAcAc: 0, QVlVl: 0, QBaBa: 0 };
+  return { dt: Number.NaN, singer, alpha: 0, beta: 0, e: 1, Qrr: 0, QrVc: 0, QrVl: 0, QrAc: 0, QVcVc: 0, QVcAc: 0, QAcAc: 0, QVlVl: 0, QBaBa: 0, QrrZ: 0, QrVcZ: 0, QrAcZ: 0, QVcVcZ: 0, QVcAcZ: 0, QAcAcZ: 0 };
 }
 
 /** Noise densities of the model (continuous PSDs, before qScale). */
 export interface ProcessNoise {
   /** Carrier acceleration noise density σ (m/s² / sqrt(Hz)). */
   carrierAccelNoise: number;
+  /** The carrier's vertical acceleration noise density σ_z (m/s² / sqrt(Hz)); default σ. */
+  carrierVerticalAccelNoise?: number;
   /** Singer time constant τ (s); ignored for constant velocity. */
   singerTau: number;
   /** Accelerometer noise density (m/s² / sqrt(Hz)). */
@@ -59,21 +71,24 @@ export function processCoefficients(dt: number, noise: ProcessNoise, out: Proces
   if (out.dt === dt) return out;
   out.dt = dt;
   const qc = noise.carrierAccelNoise * noise.carrierAccelNoise * noise.qScale;
+  const sz = noise.carrierVerticalAccelNoise ?? noise.carrierAccelNoise;
+  const qcz = sz * sz * noise.qScale;
   const qa = noise.accelNoise * noise.accelNoise * noise.qScale;
   const qb = noise.accelBiasWalk * noise.accelBiasWalk * noise.qScale;
   const dt2 = dt * dt, dt3 = dt2 * dt;
-  out.Qrr = (qa * dt3) / 3;
   out.QrVl = (-qa * dt2) / 2;
   out.QVlVl = qa * dt;
   out.QBaBa = qb * dt;
   if (!out.singer) {
-    out.Qrr += (qc * dt3) / 3;
+    out.Qrr = (qa * dt3) / 3 + (qc * dt3) / 3;
     out.QrVc = (qc * dt2) / 2;
     out.QVcVc = qc * dt;
+    out.QrrZ = (qa * dt3) / 3 + (qcz * dt3) / 3;
+    out.QrVcZ = (qcz * dt2) / 2;
+    out.QVcVcZ = qcz * dt;
     return out;
   }
   const tau = noise.singerTau;
-  const qw = qc / (tau * tau);
   const oneMinusE = -Math.expm1(-dt / tau);
   out.e = 1 - oneMinusE;
   out.beta = tau * oneMinusE;
@@ -87,12 +102,19 @@ export function processCoefficients(dt: number, noise: ProcessNoise, out: Proces
     rr += w * gr * gr; rv += w * gr * gv; ra += w * gr * ga;
     vv += w * gv * gv; va += w * gv * ga; aa += w * ga * ga;
   }
-  out.Qrr += qw * rr;
+  const qw = qc / (tau * tau), qwz = qcz / (tau * tau);
+  out.Qrr = (qa * dt3) / 3 + qw * rr;
   out.QrVc = qw * rv;
   out.QrAc = qw * ra;
   out.QVcVc = qw * vv;
   out.QVcAc = qw * va;
   out.QAcAc = qw * aa;
+  out.QrrZ = (qa * dt3) / 3 + qwz * rr;
+  out.QrVcZ = qwz * rv;
+  out.QrAcZ = qwz * ra;
+  out.QVcVcZ = qwz * vv;
+  out.QVcAcZ = qwz * va;
+  out.QAcAcZ = qwz * aa;
   return out;
 }
 

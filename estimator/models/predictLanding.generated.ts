@@ -7,7 +7,7 @@ import { predictLandingState } from './predictLandingState.js';
 export function predictConstantVelocity(x: Float64Array, P: Float64Array, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
   const dt = c.dt, h2 = 0.5 * dt * dt;
   const R00 = Rwb[0]!, R01 = Rwb[1]!, R02 = Rwb[2]!, R10 = Rwb[3]!, R11 = Rwb[4]!, R12 = Rwb[5]!, R20 = Rwb[6]!, R21 = Rwb[7]!, R22 = Rwb[8]!;
-  const Qrr = c.Qrr, QrVc = c.QrVc, QrVl = c.QrVl, QVcVc = c.QVcVc, QVlVl = c.QVlVl, QBaBa = c.QBaBa;
+  const Qrr = c.Qrr, QrVc = c.QrVc, QrVl = c.QrVl, QVcVc = c.QVcVc, QVlVl = c.QVlVl, QBaBa = c.QBaBa, QrrZ = c.QrrZ, QrVcZ = c.QrVcZ, QVcVcZ = c.QVcVcZ;
   predictLandingState(x, f, Rwb, c);
   // row pass
   const p108 = P[108]!;
@@ -321,10 +321,10 @@ export function predictConstantVelocity(x: Float64Array, P: Float64Array, f: Arr
   const v162 = p52 + QVcVc;
   const v163 = v145 + QVlVl;
   const v164 = p130 + QBaBa;
-  const v165 = v113 + Qrr;
-  const v166 = v35 + QrVc;
+  const v165 = v113 + QrrZ;
+  const v166 = v35 + QrVcZ;
   const v167 = v116 + QrVl;
-  const v168 = p65 + QVcVc;
+  const v168 = p65 + QVcVcZ;
   const v169 = v152 + QVlVl;
   const v170 = p143 + QBaBa;
   // changed entries of the upper triangle, and their mirrors
@@ -407,9 +407,9 @@ export function predictConstantVelocity(x: Float64Array, P: Float64Array, f: Arr
 export function predictSinger(x: Float64Array, P: Float64Array, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
   const dt = c.dt, h2 = 0.5 * dt * dt;
   const R00 = Rwb[0]!, R01 = Rwb[1]!, R02 = Rwb[2]!, R10 = Rwb[3]!, R11 = Rwb[4]!, R12 = Rwb[5]!, R20 = Rwb[6]!, R21 = Rwb[7]!, R22 = Rwb[8]!;
-  const Qrr = c.Qrr, QrVc = c.QrVc, QrVl = c.QrVl, QVcVc = c.QVcVc, QVlVl = c.QVlVl, QBaBa = c.QBaBa;
+  const Qrr = c.Qrr, QrVc = c.QrVc, QrVl = c.QrVl, QVcVc = c.QVcVc, QVlVl = c.QVlVl, QBaBa = c.QBaBa, QrrZ = c.QrrZ, QrVcZ = c.QrVcZ, QVcVcZ = c.QVcVcZ;
   predictLandingState(x, f, Rwb, c);
-  const alpha = c.alpha, beta = c.beta, e = c.e, QrAc = c.QrAc, QVcAc = c.QVcAc, QAcAc = c.QAcAc;
+  const alpha = c.alpha, beta = c.beta, e = c.e, QrAc = c.QrAc, QVcAc = c.QVcAc, QAcAc = c.QAcAc, QrAcZ = c.QrAcZ, QVcAcZ = c.QVcAcZ, QAcAcZ = c.QAcAcZ;
   // row pass
   const p135 = P[135]!;
   const p150 = P[150]!;
@@ -1000,15 +1000,15 @@ export function predictSinger(x: Float64Array, P: Float64Array, f: ArrayLike<num
   const v357 = v286 + QrAc;
   const v358 = v307 + QVcAc;
   const v359 = v337 + QAcAc;
-  const v360 = v290 + Qrr;
-  const v361 = v293 + QrVc;
+  const v360 = v290 + QrrZ;
+  const v361 = v293 + QrVcZ;
   const v362 = v233 + QrVl;
-  const v363 = v311 + QVcVc;
+  const v363 = v311 + QVcVcZ;
   const v364 = v269 + QVlVl;
   const v365 = p176 + QBaBa;
-  const v366 = v296 + QrAc;
-  const v367 = v314 + QVcAc;
-  const v368 = v341 + QAcAc;
+  const v366 = v296 + QrAcZ;
+  const v367 = v314 + QVcAcZ;
+  const v368 = v341 + QAcAcZ;
   // changed entries of the upper triangle, and their mirrors
   P[0] = v342;
   P[1] = P[15] = v271;
@@ -1150,7 +1150,7 @@ export function predictSinger(x: Float64Array, P: Float64Array, f: ArrayLike<num
 export function predictConstantVelocityDeckScale(x: Float64Array, P: Float64Array, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
   const dt = c.dt, h2 = 0.5 * dt * dt;
   const R00 = Rwb[0]!, R01 = Rwb[1]!, R02 = Rwb[2]!, R10 = Rwb[3]!, R11 = Rwb[4]!, R12 = Rwb[5]!, R20 = Rwb[6]!, R21 = Rwb[7]!, R22 = Rwb[8]!;
-  const Qrr = c.Qrr, QrVc = c.QrVc, QrVl = c.QrVl, QVcVc = c.QVcVc, QVlVl = c.QVlVl, QBaBa = c.QBaBa;
+  const Qrr = c.Qrr, QrVc = c.QrVc, QrVl = c.QrVl, QVcVc = c.QVcVc, QVlVl = c.QVlVl, QBaBa = c.QBaBa, QrrZ = c.QrrZ, QrVcZ = c.QrVcZ, QVcVcZ = c.QVcVcZ;
   predictLandingState(x, f, Rwb, c);
   // row pass
   const p117 = P[117]!;
@@ -1485,10 +1485,10 @@ export function predictConstantVelocityDeckScale(x: Float64Array, P: Float64Arra
   const v171 = p56 + QVcVc;
   const v172 = v154 + QVlVl;
   const v173 = p140 + QBaBa;
-  const v174 = v122 + Qrr;
-  const v175 = v35 + QrVc;
+  const v174 = v122 + QrrZ;
+  const v175 = v35 + QrVcZ;
   const v176 = v125 + QrVl;
-  const v177 = p70 + QVcVc;
+  const v177 = p70 + QVcVcZ;
   const v178 = v161 + QVlVl;
   const v179 = p154 + QBaBa;
   // changed entries of the upper triangle, and their mirrors
@@ -1578,9 +1578,9 @@ export function predictConstantVelocityDeckScale(x: Float64Array, P: Float64Arra
 export function predictSingerDeckScale(x: Float64Array, P: Float64Array, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
   const dt = c.dt, h2 = 0.5 * dt * dt;
   const R00 = Rwb[0]!, R01 = Rwb[1]!, R02 = Rwb[2]!, R10 = Rwb[3]!, R11 = Rwb[4]!, R12 = Rwb[5]!, R20 = Rwb[6]!, R21 = Rwb[7]!, R22 = Rwb[8]!;
-  const Qrr = c.Qrr, QrVc = c.QrVc, QrVl = c.QrVl, QVcVc = c.QVcVc, QVlVl = c.QVlVl, QBaBa = c.QBaBa;
+  const Qrr = c.Qrr, QrVc = c.QrVc, QrVl = c.QrVl, QVcVc = c.QVcVc, QVlVl = c.QVlVl, QBaBa = c.QBaBa, QrrZ = c.QrrZ, QrVcZ = c.QrVcZ, QVcVcZ = c.QVcVcZ;
   predictLandingState(x, f, Rwb, c);
-  const alpha = c.alpha, beta = c.beta, e = c.e, QrAc = c.QrAc, QVcAc = c.QVcAc, QAcAc = c.QAcAc;
+  const alpha = c.alpha, beta = c.beta, e = c.e, QrAc = c.QrAc, QVcAc = c.QVcAc, QAcAc = c.QAcAc, QrAcZ = c.QrAcZ, QVcAcZ = c.QVcAcZ, QAcAcZ = c.QAcAcZ;
   // row pass
   const p144 = P[144]!;
   const p160 = P[160]!;
@@ -2210,15 +2210,15 @@ export function predictSingerDeckScale(x: Float64Array, P: Float64Array, f: Arra
   const v378 = v304 + QrAc;
   const v379 = v325 + QVcAc;
   const v380 = v355 + QAcAc;
-  const v381 = v308 + Qrr;
-  const v382 = v311 + QrVc;
+  const v381 = v308 + QrrZ;
+  const v382 = v311 + QrVcZ;
   const v383 = v251 + QrVl;
-  const v384 = v329 + QVcVc;
+  const v384 = v329 + QVcVcZ;
   const v385 = v287 + QVlVl;
   const v386 = p187 + QBaBa;
-  const v387 = v314 + QrAc;
-  const v388 = v332 + QVcAc;
-  const v389 = v359 + QAcAc;
+  const v387 = v314 + QrAcZ;
+  const v388 = v332 + QVcAcZ;
+  const v389 = v359 + QAcAcZ;
   // changed entries of the upper triangle, and their mirrors
   P[0] = v363;
   P[1] = P[16] = v289;

@@ -73,19 +73,20 @@ export function predictLandingLoops(x: Float64Array, P: Float64Array, n: number,
   }
   if (c.singer) singerColumns(P, n, c.alpha, c.beta, c.e);
   // Q (upper triangle) then mirror.
+  // (the carrier blocks of axis z from the vertical noise: the *Z coefficients)
   for (let a = 0; a < 3; a++) {
-    const r = a, vc = 3 + a, vl = 6 + a, ba = 9 + a;
-    P[r * n + r] = P[r * n + r]! + c.Qrr;
-    P[r * n + vc] = P[r * n + vc]! + c.QrVc;
+    const r = a, vc = 3 + a, vl = 6 + a, ba = 9 + a, z = a === 2;
+    P[r * n + r] = P[r * n + r]! + (z ? c.QrrZ : c.Qrr);
+    P[r * n + vc] = P[r * n + vc]! + (z ? c.QrVcZ : c.QrVc);
     P[r * n + vl] = P[r * n + vl]! + c.QrVl;
-    P[vc * n + vc] = P[vc * n + vc]! + c.QVcVc;
+    P[vc * n + vc] = P[vc * n + vc]! + (z ? c.QVcVcZ : c.QVcVc);
     P[vl * n + vl] = P[vl * n + vl]! + c.QVlVl;
     P[ba * n + ba] = P[ba * n + ba]! + c.QBaBa;
     if (c.singer) {
       const ac = 12 + a;
-      P[r * n + ac] = P[r * n + ac]! + c.QrAc;
-      P[vc * n + ac] = P[vc * n + ac]! + c.QVcAc;
-      P[ac * n + ac] = P[ac * n + ac]! + c.QAcAc;
+      P[r * n + ac] = P[r * n + ac]! + (z ? c.QrAcZ : c.QrAc);
+      P[vc * n + ac] = P[vc * n + ac]! + (z ? c.QVcAcZ : c.QVcAc);
+      P[ac * n + ac] = P[ac * n + ac]! + (z ? c.QAcAcZ : c.QAcAc);
     }
   }
   let finite = 0;

@@ -29,7 +29,8 @@ describe('PlainLandingFilter and LandingFilter give the same state to 1e-9', () 
   for (const [carrierModel, cameraUpdate, box] of cases) {
     it(`${carrierModel}, ${cameraUpdate} camera update${box.boxModel ? `, ${box.boxModel} ${box.boxTerms ?? 'centre-size'}` : ''}, 2000 IMU steps with boxes and odometry`, () => {
       // the Singer cases also carry box noise in proportion to the box size (sizeNoiseFraction, pixelNoiseFraction)
-      const spec = filterSpec({ carrierModel, cameraUpdate, ...box, ...(carrierModel === 'singer' ? { sizeNoiseFraction: 0.05, pixelNoiseFraction: 0.02 } : {}) });
+      // and a carrier vertical noise of its own
+      const spec = filterSpec({ carrierModel, cameraUpdate, ...box, ...(carrierModel === 'singer' ? { sizeNoiseFraction: 0.05, pixelNoiseFraction: 0.02, carrierVerticalAccelNoise: 0.9 } : {}) });
       const fast = new LandingFilter(spec, camera, targetSize, deck);
       const plain = new PlainLandingFilter(spec, camera, targetSize, deck);
       const sigma = { position: 1, velocity: 0.5, accelBias: 0.1 };

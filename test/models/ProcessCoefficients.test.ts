@@ -40,6 +40,26 @@ describe('processCoefficients', () => {
   });
 });
 
+describe('carrier vertical acceleration noise', () => {
+  const base = { carrierAccelNoise: 0.5, singerTau: 2, accelNoise: 0.1, accelBiasWalk: 0.01, qScale: 1.3 };
+  for (const singer of [false, true]) {
+    it(`${singer ? 'Singer' : 'constant velocity'}: the z blocks are the horizontal formulas with sigma_z; absent, they equal the horizontal blocks to the bit`, () => {
+      const withZ = processCoefficients(0.02, { ...base, carrierVerticalAccelNoise: 0.05 }, emptyProcessCoefficients(singer));
+      // the z blocks of sigma 0.5 / sigma_z 0.05 are the horizontal blocks of a carrier whose noise is 0.05
+      const small = processCoefficients(0.02, { ...base, carrierAccelNoise: 0.05 }, emptyProcessCoefficients(singer));
+      const pairs = [['QrrZ', 'Qrr'], ['QrVcZ', 'QrVc'], ['QVcVcZ', 'QVcVc'], ['QrAcZ', 'QrAc'], ['QVcAcZ', 'QVcAc'], ['QAcAcZ', 'QAcAc']] as const;
+      for (const [z, h] of pairs) expect(withZ[z]).toBe(small[h]);
+      // horizontal blocks untouched by sigma_z; the lander's share of Q_rr is in both
+      const plain = processCoefficients(0.02, base, emptyProcessCoefficients(singer));
+      for (const [z, h] of pairs) {
+        expect(withZ[h]).toBe(plain[h]);
+        expect(plain[z]).toBe(plain[h]); // default sigma_z = sigma: the very same numbers
+      }
+      expect(withZ.QrVcZ).toBeLessThan(plain.QrVc / 50); // 100x smaller density, 100x smaller carrier blocks
+    });
+  }
+});
+
 describe('ProcessCoefficientCache', () => {
   const noise = { carrierAccelNoise: 0.4, singerTau: 1.5, accelNoise: 0.06, accelBiasWalk: 0.003, qScale: 1.7 };
 

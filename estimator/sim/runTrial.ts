@@ -235,7 +235,10 @@ export function runTrial(scenario: Scenario, options: TrialOptions = {}): TrialR
     if (filter.n >= AC_INDEX + 3) { input.acx = x[AC_INDEX]!; input.acy = x[AC_INDEX + 1]!; }
     input.lastSeen = lastSeen;
     input.unseenFor = t - lastSeen;
-    input.blind = input.valid && forecast.leaving(x, qFilter, st.heading[0]!, st.heading[1]!);
+    // forecast only in the descent (projecting the outline every step cost a tenth of a trial's
+    // time, bench trial.cpuMs 29.7 -> 26.6 ms): only the descent acts on it, and at trailing height
+    // the deck is far inside the image
+    input.blind = input.valid && (phase === 'descend' || phase === 'touchdown') && forecast.leaving(x, qFilter, st.heading[0]!, st.heading[1]!);
     // truth judges the estimate while boxes are expected (blind, it only dead-reckons towards contact)
     if (input.valid && !input.blind) {
       const named = st.watchEstimate(t, x, filter.P);

@@ -61,6 +61,36 @@ export function innovationCovarianceColumnBlockAndColumn(P: ArrayLike<number>, H
   return invertSymmetricPositiveDefinite(S, m, ws.Sinv, ws.chol);
 }
 
+/**
+ * innovationCovarianceColumnBlock for H non-zero in two blocks of consecutive columns: k from
+ * `col` and k2 from `col2` (a measurement that also sees trailing constant states, such as the
+ * pointing biases and the deck scale): Hb is m x (k + k2) row-major, the second block last.
+ *   U = P[:, cols] Hbᵀ,  S = Hb U[cols, :] + R
+ */
+export function innovationCovarianceColumnBlocks(P: ArrayLike<number>, Hb: ArrayLike<number>, col: number, k: number, col2: number, k2: number, R: ArrayLike<number>, n: number, m: number, ws: UpdateWorkspace): boolean {
+  const { U, S } = ws;
+  const width = k + k2;
+  for (let i = 0; i < n; i++) {
+    const row = i * n + col, row2 = i * n + col2;
+    for (let a = 0; a < m; a++) {
+      let sum = 0;
+      for (let j = 0; j < k; j++) sum += P[row + j]! * Hb[a * width + j]!;
+      for (let j = 0; j < k2; j++) sum += P[row2 + j]! * Hb[a * width + k + j]!;
+      U[i * m + a] = sum;
+    }
+  }
+  for (let a = 0; a < m; a++) {
+    for (let b = a; b < m; b++) {
+      let sum = R[a * m + b]!;
+      for (let j = 0; j < k; j++) sum += Hb[a * width + j]! * U[(col + j) * m + b]!;
+      for (let j = 0; j < k2; j++) sum += Hb[a * width + k + j]! * U[(col2 + j) * m + b]!;
+      S[a * m + b] = sum;
+      S[b * m + a] = sum;
+    }
+  }
+  return invertSymmetricPositiveDefinite(S, m, ws.Sinv, ws.chol);
+}
+
 /** x ← x + K y and P ← P - K Uᵀ - U Kᵀ + (K S) Kᵀ; needs innovationCovarianceColumnBlock and ws.y. */
 export function updateJosephColumnBlock(x: Float64Array, P: Float64Array, n: number, m: number, ws: UpdateWorkspace): void {
   gain(ws, n, m);

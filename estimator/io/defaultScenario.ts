@@ -123,6 +123,7 @@ export function defaultScenario(): Scenario {
       historyLength: 0.3,
       // no deck-scale state: a filter that assumes the deck's size exactly, as before the state existed
       deckScaleSigma: 0,
+      pointingBiasSigmaDeg: 0,
     },
     guidance: {
       law: 'pid',

@@ -1,7 +1,8 @@
 // The box measurement models built on the camera the filter believes in (FilterCamera.ts).
 // Tight: z = [u, v, s], h(x) = boxMeasurement(p_cam), p_cam = R_cb (R_wbᵀ r - t_b), so
 //   H_r = ∂h/∂p_cam · R_cb R_wbᵀ  (only the r block of H is non-zero; with the deck-scale state
-//   L becomes L (1 + s) and H gains ∂s_box/∂s, see LandingCore).
+//   L becomes L (1 + s) and H gains ∂s_box/∂s, see LandingCore; with pointing states δ the camera
+//   point is turned, p' = (I + [δ]×) p, so H_r = ∂h/∂p' (I + [δ]×) R_cb R_wbᵀ and H_δ = ∂h/∂p' ∂p'/∂δ).
 // Loose: back-project the box to p_cam, r_z = R_wb (R_cbᵀ p_cam + t_b), with covariance
 //   R_r = C J R_box Jᵀ Cᵀ, J = ∂p_cam/∂(u, v, s), C = R_wb R_cbᵀ (camera -> world); then H = [I 0 …].
 // Preallocated; the methods allocate nothing.
@@ -11,6 +12,13 @@ import { boxMeasurement, boxMeasurementJacobian, relativePositionFromMeasurement
 import { UndistortionError } from '../camera/distortion.js';
 import { cameraFromBody } from '../frames/cameraFromBody.js';
 import { rotationMatrixFromQuat } from '../frames/rotationMatrixFromQuat.js';
+
+/** Pointing-bias states for the tight model: δ (rad) in, ∂h/∂δ (3 x 2, row-major) out. */
+export interface PointingBias {
+  dx: number;
+  dy: number;
+  readonly H: Float64Array;
+}
 
 /** Why a box could not be turned into a measurement. */
 export type CameraModelProblem = 'target-behind-camera' | 'undistortion-failed' | null;
@@ -32,6 +40,7 @@ export class BoxMeasurementModel {
   private readonly J = new Float64Array(9);
   private readonly work = new Float64Array(13);
   private readonly tmp = new Float64Array(9);
+  private readonly turned = new Float64Array(9);
 
   constructor(camera: FilterCamera, readonly targetSize: number) {
     validateCamera(camera);
@@ -57,10 +66,28 @@ export class BoxMeasurementModel {
    * Tight model: h into hOut [u, v, s], r block of H (3x3) into Hb. `scale` = 1 + s multiplies the
    * target size (deck-scale state): s_box = sqrt(fx fy) L (1 + s) / Z, so ∂s_box/∂s = s_box / (1 + s).
    */
-  tight(r: ArrayLike<number>, hOut: Float64Array, Hb: Float64Array, scale = 1): CameraModelProblem {
-    const M = this.Rcw, p = this.pCam, R = this.Rcb, t = this.offset;
+  tight(r: ArrayLike<number>, hOut: Float64Array, Hb: Float64Array, scale = 1, pointing: PointingBias | null = null): CameraModelProblem {
+    let M = this.Rcw;
+    const p = this.pCam, R = this.Rcb, t = this.offset;
     for (let i = 0; i < 3; i++) {
       p[i] = M[3 * i]! * r[0]! + M[3 * i + 1]! * r[1]! + M[3 * i + 2]! * r[2]! - (R[3 * i]! * t[0]! + R[3 * i + 1]! * t[1]! + R[3 * i + 2]! * t[2]!);
+    }
+    if (pointing) {
+      // p' = (I + [δ]×) p, δ = (δx, δy, 0); ∂p'/∂δx = (0, -p_z, p_y), ∂p'/∂δy = (p_z, 0, -p_x)
+      const dx = pointing.dx, dy = pointing.dy, p0 = p[0]!, p1 = p[1]!, p2 = p[2]!;
+      const D = this.tmp; // ∂p'/∂δ, 3 x 2 row-major
+      D[0] = 0; D[1] = p2; D[2] = -p2; D[3] = 0; D[4] = p1; D[5] = -p0;
+      p[0] = p0 + dy * p2;
+      p[1] = p1 - dx * p2;
+      p[2] = p2 - dy * p0 + dx * p1;
+      // (I + [δ]×) M for the r block
+      const A = this.turned, B = this.Rcw;
+      for (let j = 0; j < 3; j++) {
+        A[j] = B[j]! + dy * B[6 + j]!;
+        A[3 + j] = B[3 + j]! - dx * B[6 + j]!;
+        A[6 + j] = B[6 + j]! - dy * B[j]! + dx * B[3 + j]!;
+      }
+      M = A;
     }
     if (!(p[2]! > MIN_DEPTH)) return 'target-behind-camera';
     const L = this.targetSize * scale;
@@ -69,6 +96,12 @@ export class BoxMeasurementModel {
     boxMeasurementJacobian(this.camera, L, p, J, this.work);
     for (let i = 0; i < 3; i++) {
       for (let j = 0; j < 3; j++) Hb[3 * i + j] = J[3 * i]! * M[j]! + J[3 * i + 1]! * M[3 + j]! + J[3 * i + 2]! * M[6 + j]!;
+    }
+    if (pointing) {
+      const D = this.tmp, Hd = pointing.H;
+      for (let i = 0; i < 3; i++) {
+        for (let e = 0; e < 2; e++) Hd[2 * i + e] = J[3 * i]! * D[e]! + J[3 * i + 1]! * D[2 + e]! + J[3 * i + 2]! * D[4 + e]!;
+      }
     }
     return null;
   }

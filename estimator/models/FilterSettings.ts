@@ -71,6 +71,15 @@ export interface FilterSpec {
    * sigma, observable from the lander's metric motion (IMU, odometry) against the box growing.
    */
   deckScaleSigma?: number;
+  /**
+   * Pointing-bias states (default 0 = none): 1 sigma (deg) of the angle by which the camera really
+   * points off where the filter believes, per camera axis (x and y): attitude bias, gyro bias times
+   * the attitude estimator's correction time and mount misalignment together, constant over a
+   * trial. When > 0 the filter carries two more states δ (rad), random constants with prior
+   * 0 ± this sigma, before s (landingState.ts); both tight box models turn the predicted camera
+   * point by δ. The loose update has no such column (refused).
+   */
+  pointingBiasSigmaDeg?: number;
   /** History kept for delayed boxes (s). */
   historyLength: number;
 }

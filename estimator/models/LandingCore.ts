@@ -17,17 +17,20 @@
 //                  offset in the world: p_cam scales with the target size for a given box), so
 //                  H_r = I / (1 + s),  H_s = -(r - c) / (1 + s)²
 // These updates use the column-block-plus-one-column form (columnBlockUpdate.ts).
+// Pointing-bias states δ (pointingBiasSigmaDeg > 0; before s): both tight models turn the camera
+// point, p' = (I + [δ]×) p (BoxMeasurementModel.ts, OutlineBoxModel.ts), so H gains two columns
+// next to s's; the update takes the two-column-block form (innovationCovarianceColumnBlocks).
 import type { FilterSpec } from './FilterSettings.js';
-import { BoxMeasurementModel } from './BoxMeasurementModel.js';
+import { BoxMeasurementModel, type PointingBias } from './BoxMeasurementModel.js';
 import type { FilterCamera } from './FilterCamera.js';
 import { EVENT_ODOMETRY, EVENT_TIGHT } from './FilterHistory.js';
 import { ProcessCoefficientCache, type ProcessNoise } from './ProcessCoefficients.js';
 import { predictLanding } from './predictLanding.js';
-import { deckScaleIndex, landingStateDimension, VL_INDEX } from './landingState.js';
+import { deckScaleIndex, landingStateDimension, pointingIndex, POINTING_STATES, VL_INDEX } from './landingState.js';
 import type { UpdateStatus } from './UpdateResult.js';
 import { OutlineBoxModel, type DeckOutline } from './OutlineBoxModel.js';
 import { UpdateWorkspace } from '../filter/UpdateWorkspace.js';
-import { innovationCovarianceColumnBlock, innovationCovarianceColumnBlockAndColumn, updateJosephColumnBlock } from '../filter/columnBlockUpdate.js';
+import { innovationCovarianceColumnBlock, innovationCovarianceColumnBlockAndColumn, innovationCovarianceColumnBlocks, updateJosephColumnBlock } from '../filter/columnBlockUpdate.js';
 import { normalizedInnovationSquared } from '../filter/update.js';
 import { innovationCovariance3, normalizedInnovationSquared3, updateJoseph3 } from '../filter/blockUpdate3.js';
 import { allFinite, checkCovariance } from '../filter/checkCovariance.js';
@@ -40,6 +43,14 @@ export class LandingCore {
   readonly n: number;
   /** Index of the deck-scale state s in x (the last), or -1 without it (deckScaleSigma 0). */
   readonly scaleIndex: number;
+  /** Index of δx (δy follows) in x, or -1 without pointing states (pointingBiasSigmaDeg 0). */
+  readonly pointingIndex: number;
+  /** Trailing constant states the box sees (δ, then s): their first index and count (0 = none). */
+  private readonly extraIndex: number;
+  private readonly extraCount: number;
+  private readonly pointing: PointingBias | null;
+  /** Flat tight update with pointing states: H over [r, δ (, s)] (3 x (3 + extraCount)). */
+  private readonly Hextra: Float64Array;
   /** x then P in one array (views below), so the filter history saves a step with one copy. */
   readonly state: Float64Array;
   readonly x: Float64Array;
@@ -92,8 +103,14 @@ export class LandingCore {
   constructor(spec: FilterSpec, camera: FilterCamera, targetSize: number, outline?: DeckOutline) {
     const singer = spec.carrierModel === 'singer';
     const deckScale = (spec.deckScaleSigma ?? 0) > 0;
-    this.n = landingStateDimension(singer, deckScale);
-    this.scaleIndex = deckScaleIndex(singer, deckScale);
+    const pointing = (spec.pointingBiasSigmaDeg ?? 0) > 0;
+    this.n = landingStateDimension(singer, deckScale, pointing);
+    this.scaleIndex = deckScaleIndex(singer, deckScale, pointing);
+    this.pointingIndex = pointingIndex(singer, pointing);
+    this.extraIndex = pointing ? this.pointingIndex : this.scaleIndex;
+    this.extraCount = (pointing ? POINTING_STATES : 0) + (deckScale ? 1 : 0);
+    this.pointing = pointing ? { dx: 0, dy: 0, H: new Float64Array(6) } : null;
+    this.Hextra = new Float64Array(3 * (3 + this.extraCount));
     this.refineState = new Float64Array(this.n);
     this.state = new Float64Array(this.n + this.n * this.n);
     this.x = this.state.subarray(0, this.n);
@@ -111,7 +128,7 @@ export class LandingCore {
     this.varPixelFraction = spec.pixelNoiseFraction * spec.pixelNoiseFraction * spec.rScale;
     this.Rbox = new Float64Array([this.varPixel, 0, 0, 0, this.varPixel, 0, 0, 0, this.varSize]);
     const deck = outline ?? { deckLength: targetSize, deckWidth: targetSize, bodyHeight: 0 };
-    this.outline = (spec.boxModel ?? 'outline') === 'outline' ? new OutlineBoxModel(this.model.camera, deck, spec.boxTerms ?? 'centre-size', spec.headingMinSpeed ?? 1.5, this.scaleIndex) : null;
+    this.outline = (spec.boxModel ?? 'outline') === 'outline' ? new OutlineBoxModel(this.model.camera, deck, spec.boxTerms ?? 'centre-size', spec.headingMinSpeed ?? 1.5, this.scaleIndex, this.pointingIndex) : null;
     this.boxDim = this.outline ? this.outline.m : 3;
     this.wsOutline = new UpdateWorkspace(this.n, this.boxDim);
     this.hOutline = new Float64Array(this.boxDim);
@@ -168,6 +185,7 @@ export class LandingCore {
       this.model.setAttitude(q);
       if (kind === EVENT_TIGHT) {
         if (this.scaleIndex >= 0 && !(1 + x[this.scaleIndex]! > 0)) return this.fail('deck-scale-not-positive');
+        if (this.pointing) return this.applyFlatWithPointing(d0, d1, d2, useGate);
         const problem = this.scaleIndex >= 0 ? this.model.tight(x, this.h, this.Hb, 1 + x[this.scaleIndex]!) : this.model.tight(x, this.h, this.Hb);
         if (problem) return this.fail(problem);
         y[0] = d0 - this.h[0]!;
@@ -241,7 +259,10 @@ export class LandingCore {
       R[15] = this.sizeVariance(h[3]!);
     }
     const scaled = this.scaleIndex >= 0;
-    if (!(scaled ? innovationCovarianceColumnBlockAndColumn(this.P, this.Houtline, 0, 6, this.scaleIndex, R, this.n, m, ws) : innovationCovarianceColumnBlock(this.P, this.Houtline, 0, 6, R, this.n, m, ws))) {
+    const ok = this.pointing
+      ? innovationCovarianceColumnBlocks(this.P, this.Houtline, 0, 6, this.extraIndex, this.extraCount, R, this.n, m, ws)
+      : scaled ? innovationCovarianceColumnBlockAndColumn(this.P, this.Houtline, 0, 6, this.scaleIndex, R, this.n, m, ws) : innovationCovarianceColumnBlock(this.P, this.Houtline, 0, 6, R, this.n, m, ws);
+    if (!ok) {
       const event = checkCovariance(this.x, this.P, this.n, this.check);
       if (event) {
         this.lastReason = event;
@@ -256,7 +277,7 @@ export class LandingCore {
     }
     // with the deck-scale state a 3-D box takes the generated Joseph kernel (same U, S layout);
     // without it the loops stay, so a filter without the state is unchanged to the bit
-    if (scaled && m === 3) {
+    if ((scaled || this.pointing) && m === 3) {
       if (!updateJoseph3(this.x, this.P, this.n, ws)) {
         this.lastReason = this.nonFiniteEvent();
         return 'diverged';
@@ -265,6 +286,51 @@ export class LandingCore {
     }
     updateJosephColumnBlock(this.x, this.P, this.n, m, ws);
     if (!allFinite(this.state, this.state.length)) {
+      this.lastReason = this.nonFiniteEvent();
+      return 'diverged';
+    }
+    return 'accepted';
+  }
+
+  /**
+   * Flat tight update with the pointing states (and the deck-scale state when carried):
+   * h = box of p' = (I + [δ]×) p with L (1 + s); H over [r, δ, s] = [H_r, H_δ, ∂h/∂s].
+   */
+  private applyFlatWithPointing(d0: number, d1: number, d2: number, useGate: boolean): UpdateStatus {
+    const x = this.x, pointing = this.pointing!, si = this.scaleIndex, h = this.h, Hb = this.Hb, H = this.Hextra, y = this.ws.y;
+    pointing.dx = x[this.pointingIndex]!;
+    pointing.dy = x[this.pointingIndex + 1]!;
+    const k1 = si >= 0 ? 1 + x[si]! : 1;
+    const problem = this.model.tight(x, h, Hb, k1, pointing);
+    if (problem) return this.fail(problem);
+    y[0] = d0 - h[0]!;
+    y[1] = d1 - h[1]!;
+    y[2] = d2 - h[2]!;
+    const R = this.Rbox;
+    R[0] = R[4] = this.centreVariance(h[2]!);
+    R[8] = this.sizeVariance(h[2]!);
+    const w = 3 + this.extraCount, Hd = pointing.H;
+    for (let a = 0; a < 3; a++) {
+      for (let j = 0; j < 3; j++) H[w * a + j] = Hb[3 * a + j]!;
+      H[w * a + 3] = Hd[2 * a]!;
+      H[w * a + 4] = Hd[2 * a + 1]!;
+      if (si >= 0) H[w * a + 5] = a === 2 ? h[2]! / k1 : 0;
+    }
+    const ws = this.ws;
+    if (!innovationCovarianceColumnBlocks(this.P, H, 0, 3, this.extraIndex, this.extraCount, R, this.n, 3, ws)) {
+      const event = checkCovariance(this.x, this.P, this.n, this.check);
+      if (event) {
+        this.lastReason = event;
+        return 'diverged';
+      }
+      return this.fail('innovation-covariance-not-positive-definite');
+    }
+    this.lastNis = normalizedInnovationSquared(ws, 3);
+    if (useGate && this.lastNis > this.gate) {
+      this.lastReason = 'outside-gate';
+      return 'gated';
+    }
+    if (!updateJoseph3(this.x, this.P, this.n, ws)) {
       this.lastReason = this.nonFiniteEvent();
       return 'diverged';
     }

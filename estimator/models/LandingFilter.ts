@@ -115,6 +115,18 @@ export class LandingFilter {
     return { value: this.x[i]!, sigma: Math.sqrt(this.P[i * this.n + i]!) };
   }
 
+  /** Index of the pointing state δx in x (δy follows), or -1 when the filter carries none (pointingBiasSigmaDeg 0). */
+  get pointingIndex(): number {
+    return this.core.pointingIndex;
+  }
+
+  /** The pointing-bias estimate (deg) about the camera's x and y axes and their 1 sigma; NaN without the states or before initialization. */
+  pointingBias(): { x: number; y: number; sigmaX: number; sigmaY: number } {
+    const i = this.core.pointingIndex, n = this.n, deg = 180 / Math.PI;
+    if (i < 0 || !this.initialized) return { x: Number.NaN, y: Number.NaN, sigmaX: Number.NaN, sigmaY: Number.NaN };
+    return { x: this.x[i]! * deg, y: this.x[i + 1]! * deg, sigmaX: Math.sqrt(this.P[i * n + i]!) * deg, sigmaY: Math.sqrt(this.P[(i + 1) * n + i + 1]!) * deg };
+  }
+
   /** The named divergence event, or null. After it every call returns 'diverged' until re-initialized. */
   get diverged(): string | null {
     return this.divergence;
@@ -179,6 +191,26 @@ export class LandingFilter {
       for (let i = 0; i < 3; i++) {
         for (let j = 0; j < 3; j++) this.P[i * n + j] = this.P[i * n + j]! + d[i]! * d[j]! * varS;
         this.P[i * n + si] = this.P[si * n + i] = d[i]! * varS;
+      }
+    }
+    const pi = core.pointingIndex;
+    if (pi >= 0) {
+      // The fix assumed the camera points as believed: with the turn δ the camera point of the deck
+      // is p = p' - δ × p' (first order), so r = fix - Mᵀ (δ × p'), M = R_cb R_wbᵀ, p' = M fix - o:
+      // r takes A Σ_δ Aᵀ more and covaries with δ by A Σ_δ, A = -Mᵀ ∂(δ × p')/∂δ.
+      const varD = this.P[pi * n + pi]!, M = core.model.Rcw, o = core.model.offsetCam, f = core.fix;
+      const p0 = M[0]! * f[0]! + M[1]! * f[1]! + M[2]! * f[2]! - o[0]!;
+      const p1 = M[3]! * f[0]! + M[4]! * f[1]! + M[5]! * f[2]! - o[1]!;
+      const p2 = M[6]! * f[0]! + M[7]! * f[1]! + M[8]! * f[2]! - o[2]!;
+      // ∂(δ × p)/∂δx = (0, -p_z, p_y), ∂(δ × p)/∂δy = (p_z, 0, -p_x); A column e = -Mᵀ that
+      const A = [0, 0, 0, 0, 0, 0];
+      for (let i = 0; i < 3; i++) {
+        A[2 * i] = -(M[3 + i]! * -p2 + M[6 + i]! * p1);
+        A[2 * i + 1] = -(M[i]! * p2 + M[6 + i]! * -p0);
+      }
+      for (let i = 0; i < 3; i++) {
+        for (let j = 0; j < 3; j++) this.P[i * n + j] = this.P[i * n + j]! + (A[2 * i]! * A[2 * j]! + A[2 * i + 1]! * A[2 * j + 1]!) * varD;
+        for (let e = 0; e < 2; e++) this.P[i * n + pi + e] = this.P[(pi + e) * n + i] = A[2 * i + e]! * varD;
       }
     }
     this.history.clear();
@@ -427,6 +459,12 @@ export class LandingFilter {
     // deck-scale state: prior 0 ± deckScaleSigma (x is already 0)
     const si = this.core.scaleIndex;
     if (si >= 0) this.P[si * this.n + si] = this.spec.deckScaleSigma! * this.spec.deckScaleSigma!;
+    // pointing states: prior 0 ± pointingBiasSigmaDeg per axis (rad)
+    const pi = this.core.pointingIndex;
+    if (pi >= 0) {
+      const sigma = (this.spec.pointingBiasSigmaDeg! * Math.PI) / 180;
+      for (let e = 0; e < 2; e++) this.P[(pi + e) * this.n + pi + e] = sigma * sigma;
+    }
   }
 
   private start(t: number, attitude: Float64Array): void {

@@ -17,6 +17,13 @@
 // assumed one times (1 + s), so c_k ← (1 + s) c_k and d_k = (1 + s) R_z(ψ) c_k, giving one more
 // column  ∂(u_k, v_k)/∂s = J_k M R_z(ψ) c_k  (the corner offset before scaling), through the same
 // box rows as r and ψ. H is then m x 7 over [r, v_c, s].
+// Pointing-bias states δ = (δx, δy) (when the filter carries them, at x[pointingIndex]): the camera
+// really looks δ (rad, small angles about the camera's x and y axes) off where the filter believes
+// (attitude and gyro bias, mount misalignment), so every camera point is turned by δ to first order:
+//   p'_k = (I + [δ]×) p_k,  δ = (δx, δy, 0)
+// and H gains, through the same box rows, ∂p'_k/∂δx = (0, -p_kz, p_ky), ∂p'_k/∂δy = (p_kz, 0, -p_kx)
+// (p_k before the turn); the r column becomes J_k (I + [δ]×) M. H is m x 8 over [r, v_c, δ], or
+// m x 9 over [r, v_c, δ, s] with both.
 // Heading from the carrier velocity estimate (the deck is taken to point along travel):
 //   ψ = atan2(v_cy, v_cx),  ∂ψ/∂v_c = (-v_cy, v_cx, 0) / (v_cx² + v_cy²)
 // Below minSpeed the direction of v_c is mostly noise (σ_ψ ≈ σ_v / |v_c|): ψ is then the
@@ -57,16 +64,22 @@ export class OutlineBoxModel {
   private readonly g: Float64Array;
   /** Per corner ∂pixel/∂s (2), deck-scale state only. */
   private readonly gs: Float64Array;
+  /** Per corner ∂pixel/∂δx (2) and ∂pixel/∂δy (2), pointing states only. */
+  private readonly gp: Float64Array;
+  /** (I + [δ]×) M and (I + [δ]×) o of the evaluation (pointing states only). */
+  private readonly Mturned = new Float64Array(9);
+  private readonly oTurned = new Float64Array(3);
   /** Rows of the box terms over [r (3), ψ (1)] (and s): m x rowWidth. */
   private readonly rows: Float64Array;
   private readonly rowWidth: number;
-  /** Columns of H: 6 over [r, v_c], or 7 over [r, v_c, s] with the deck-scale state. */
+  /** Columns of H: 6 over [r, v_c], then 2 for δ (pointing states), then 1 for s (deck-scale state). */
   readonly columns: number;
 
   /**
    * @param scaleIndex index of the deck-scale state s in x, or -1 (default) when the filter carries none
+   * @param pointingIndex index of δx (δy follows) in x, or -1 (default) when the filter carries no pointing states
    */
-  constructor(readonly camera: PinholeCamera, readonly outline: DeckOutline, readonly terms: BoxTerms, readonly minSpeed: number, readonly scaleIndex = -1) {
+  constructor(readonly camera: PinholeCamera, readonly outline: DeckOutline, readonly terms: BoxTerms, readonly minSpeed: number, readonly scaleIndex = -1, readonly pointingIndex = -1) {
     for (const key of ['deckLength', 'deckWidth'] as const) {
       if (!(outline[key] > 0) || !Number.isFinite(outline[key])) throw new RangeError(`outline.${key} must be a positive number of metres, got ${outline[key]}`);
     }
@@ -83,14 +96,16 @@ export class OutlineBoxModel {
     this.G = new Float64Array(6 * this.corners);
     this.g = new Float64Array(2 * this.corners);
     this.gs = new Float64Array(2 * this.corners);
-    this.rowWidth = scaleIndex >= 0 ? 5 : 4;
-    this.columns = scaleIndex >= 0 ? 7 : 6;
+    this.gp = new Float64Array(4 * this.corners);
+    const extra = (pointingIndex >= 0 ? 2 : 0) + (scaleIndex >= 0 ? 1 : 0);
+    this.rowWidth = 4 + extra;
+    this.columns = 6 + extra;
     this.rows = new Float64Array(this.rowWidth * this.m);
   }
 
   /**
-   * h(x) into hOut (m) and H over [r, v_c] into H (m x 6, row-major; m x 7 over [r, v_c, s]
-   * with the deck-scale state).
+   * h(x) into hOut (m) and H over [r, v_c] into H (m x 6, row-major; then the columns of δ and s
+   * when the filter carries them: m x columns).
    * @param x filter state (r at 0..2, v_c at 3..5, s at scaleIndex)
    * @param M R_cb R_wbᵀ (world -> camera), o = R_cb t_b, Rwb the attitude (its yaw is the heading below minSpeed)
    * @returns false when a corner is behind the camera
@@ -110,7 +125,26 @@ export class OutlineBoxModel {
       this.headingFromVelocity = false;
     }
     const c = Math.cos(this.heading), s = Math.sin(this.heading);
-    const { pCam, pixel, Jp, work, uv, G, g, gs, deckCorners, camera } = this;
+    const { pCam, pixel, Jp, work, uv, G, g, gs, gp, deckCorners, camera } = this;
+    const pointing = this.pointingIndex >= 0;
+    const Mn = M, on = o; // the believed (nominal) camera: p_k before the turn by δ
+    let dx = 0, dy = 0;
+    if (pointing) {
+      // (I + [δ]×) with δ = (δx, δy, 0): rows (1, 0, δy), (0, 1, -δx), (-δy, δx, 1)
+      dx = x[this.pointingIndex]!;
+      dy = x[this.pointingIndex + 1]!;
+      const A = this.Mturned, b = this.oTurned;
+      for (let j = 0; j < 3; j++) {
+        A[j] = Mn[j]! + dy * Mn[6 + j]!;
+        A[3 + j] = Mn[3 + j]! - dx * Mn[6 + j]!;
+        A[6 + j] = Mn[6 + j]! - dy * Mn[j]! + dx * Mn[3 + j]!;
+      }
+      b[0] = on[0]! + dy * on[2]!;
+      b[1] = on[1]! - dx * on[2]!;
+      b[2] = on[2]! - dy * on[0]! + dx * on[1]!;
+      M = A;
+      o = b;
+    }
     const r0 = x[0]!, r1 = x[1]!, r2 = x[2]!;
     const scaled = this.scaleIndex >= 0;
     const k1 = scaled ? 1 + x[this.scaleIndex]! : 1;
@@ -142,6 +176,17 @@ export class OutlineBoxModel {
         // ∂/∂s = G R_z(ψ) c_k = G d_k / (1 + s)
         if (scaled) gs[2 * k + row] = (m0 * d0 + m1 * d1 + m2 * cz) / k1;
       }
+      if (pointing) {
+        // p_k before the turn, then ∂pixel/∂δ = J_k ∂p'_k/∂δ
+        const q0 = Mn[0]! * w0 + Mn[1]! * w1 + Mn[2]! * w2 - on[0]!;
+        const q1 = Mn[3]! * w0 + Mn[4]! * w1 + Mn[5]! * w2 - on[1]!;
+        const q2 = Mn[6]! * w0 + Mn[7]! * w1 + Mn[8]! * w2 - on[2]!;
+        for (let row = 0; row < 2; row++) {
+          const j0 = Jp[3 * row]!, j1 = Jp[3 * row + 1]!, j2 = Jp[3 * row + 2]!;
+          gp[4 * k + row] = -j1 * q2 + j2 * q1; // (0, -p_z, p_y)
+          gp[4 * k + 2 + row] = j0 * q2 - j2 * q0; // (p_z, 0, -p_x)
+        }
+      }
       if (uv[2 * k]! < uv[2 * a]!) a = k;
       if (uv[2 * k]! > uv[2 * b]!) b = k;
       if (uv[2 * k + 1]! < uv[2 * lo + 1]!) lo = k;
@@ -159,7 +204,14 @@ export class OutlineBoxModel {
       this.boxRows(j, du, dv, dw, dh, width, height);
     }
     this.boxRows(3, (g[2 * a]! + g[2 * b]!) / 2, (g[2 * lo + 1]! + g[2 * hi + 1]!) / 2, g[2 * b]! - g[2 * a]!, g[2 * hi + 1]! - g[2 * lo + 1]!, width, height);
-    if (scaled) this.boxRows(4, (gs[2 * a]! + gs[2 * b]!) / 2, (gs[2 * lo + 1]! + gs[2 * hi + 1]!) / 2, gs[2 * b]! - gs[2 * a]!, gs[2 * hi + 1]! - gs[2 * lo + 1]!, width, height);
+    if (pointing) {
+      for (let e = 0; e < 2; e++) {
+        const o2 = 2 * e;
+        this.boxRows(4 + e, (gp[4 * a + o2]! + gp[4 * b + o2]!) / 2, (gp[4 * lo + o2 + 1]! + gp[4 * hi + o2 + 1]!) / 2, gp[4 * b + o2]! - gp[4 * a + o2]!, gp[4 * hi + o2 + 1]! - gp[4 * lo + o2 + 1]!, width, height);
+      }
+    }
+    const sRow = pointing ? 6 : 4;
+    if (scaled) this.boxRows(sRow, (gs[2 * a]! + gs[2 * b]!) / 2, (gs[2 * lo + 1]! + gs[2 * hi + 1]!) / 2, gs[2 * b]! - gs[2 * a]!, gs[2 * hi + 1]! - gs[2 * lo + 1]!, width, height);
     if (this.m === 4) {
       hOut[2] = width;
       hOut[3] = height;
@@ -175,7 +227,11 @@ export class OutlineBoxModel {
       H[c7 * i + 3] = R[w * i + 3]! * dpsiX;
       H[c7 * i + 4] = R[w * i + 3]! * dpsiY;
       H[c7 * i + 5] = 0;
-      if (scaled) H[c7 * i + 6] = R[w * i + 4]!;
+      if (pointing) {
+        H[c7 * i + 6] = R[w * i + 4]!;
+        H[c7 * i + 7] = R[w * i + 5]!;
+      }
+      if (scaled) H[c7 * i + c7 - 1] = R[w * i + sRow]!;
     }
     return true;
   }

@@ -46,6 +46,7 @@ export class PlainLandingFilter {
     validateFilterSpec(spec);
     // the plain reference stays the 12/15-state formulation; the fast filter's deck-scale
     // column is checked against finite differences instead (test/models/deckScale.test.ts)
+    if ((spec.pointingBiasSigmaDeg ?? 0) > 0) throw new FilterSpecError('filter.pointingBiasSigmaDeg', 'the plain reference filter has no pointing-bias states: use LandingFilter, or pointingBiasSigmaDeg 0');
     if ((spec.deckScaleSigma ?? 0) > 0) throw new FilterSpecError('filter.deckScaleSigma', 'the plain reference filter has no deck-scale state: use LandingFilter, or deckScaleSigma 0');
     this.n = landingStateDimension(spec.carrierModel === 'singer');
     this.x = Matrix.zeros(this.n, 1);

@@ -14,11 +14,13 @@ export function predictLandingSource(): string {
 // predictLandingLoops (predictLanding.ts) unrolled for each model; see the generator.
 import type { ProcessCoefficients } from './ProcessCoefficients.js';
 import { predictLandingState } from './predictLandingState.js';
-${predictFunction(false, false)}${predictFunction(true, false)}${predictFunction(false, true)}${predictFunction(true, true)}`;
+${predictFunction(false, false)}${predictFunction(true, false)}${predictFunction(false, true)}${predictFunction(true, true)}${predictFunction(false, false, 2)}${predictFunction(true, false, 2)}${predictFunction(false, true, 2)}${predictFunction(true, true, 2)}`;
 }
 
-function predictFunction(singer: boolean, deckScale: boolean): string {
-  const n = (singer ? 15 : 12) + (deckScale ? 1 : 0);
+/** @param pointing number of pointing-bias states (constants before s, like s only seen by the row pass) */
+function predictFunction(singer: boolean, deckScale: boolean, pointing = 0): string {
+  const constants = (deckScale ? 1 : 0) + pointing;
+  const n = (singer ? 15 : 12) + constants;
   const lines: string[] = [];
   const cell = new Map<number, string>(); // P index -> local holding its current value
   let counter = 0;
@@ -144,13 +146,13 @@ function predictFunction(singer: boolean, deckScale: boolean): string {
     }
   }
   // P_ss is never changed by the step; the loops still test every diagonal entry, so this does too
-  if (deckScale) changed.push(`P[${n * n - 1}]!`);
+  for (let c = n - constants; c < n; c++) changed.push(`P[${c * n + c}]!`);
   const terms: string[] = [];
   for (let k = 0; k < changed.length; k += 8) terms.push(changed.slice(k, k + 8).map((name) => `${name} * 0`).join(' + '));
   const singerLocals = singer ? '\n  const alpha = c.alpha, beta = c.beta, e = c.e, QrAc = c.QrAc, QVcAc = c.QVcAc, QAcAc = c.QAcAc, QrAcZ = c.QrAcZ, QVcAcZ = c.QVcAcZ, QAcAcZ = c.QAcAcZ;' : '';
   return `
-/** predictLanding(x, P, ${n}, f, Rwb, c) for c.singer = ${singer}${deckScale ? ' with the deck-scale state' : ''}; false when x or P became non-finite. */
-export function ${singer ? 'predictSinger' : 'predictConstantVelocity'}${deckScale ? 'DeckScale' : ''}(x: Float64Array, P: Float64Array, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
+/** predictLanding(x, P, ${n}, f, Rwb, c) for c.singer = ${singer}${pointing ? ' with the pointing states' : ''}${deckScale ? ' with the deck-scale state' : ''}; false when x or P became non-finite. */
+export function ${singer ? 'predictSinger' : 'predictConstantVelocity'}${pointing ? 'Pointing' : ''}${deckScale ? 'DeckScale' : ''}(x: Float64Array, P: Float64Array, f: ArrayLike<number>, Rwb: Float64Array, c: ProcessCoefficients): boolean {
   const dt = c.dt, h2 = 0.5 * dt * dt;
   const R00 = Rwb[0]!, R01 = Rwb[1]!, R02 = Rwb[2]!, R10 = Rwb[3]!, R11 = Rwb[4]!, R12 = Rwb[5]!, R20 = Rwb[6]!, R21 = Rwb[7]!, R22 = Rwb[8]!;
   const Qrr = c.Qrr, QrVc = c.QrVc, QrVl = c.QrVl, QVcVc = c.QVcVc, QVlVl = c.QVlVl, QBaBa = c.QBaBa, QrrZ = c.QrrZ, QrVcZ = c.QrVcZ, QVcVcZ = c.QVcVcZ;

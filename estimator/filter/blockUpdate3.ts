@@ -7,7 +7,7 @@
 // For n = 12 and 15 (the landing filters; 13 and 16 with the deck-scale state) updateJoseph3 runs generated straight-line code
 // (josephUpdate.generated.ts), bit-identical to the loops, which stay for other n.
 import type { UpdateWorkspace } from './UpdateWorkspace.js';
-import { updateJoseph12, updateJoseph13, updateJoseph15, updateJoseph16 } from './josephUpdate.generated.js';
+import { updateJoseph12, updateJoseph13, updateJoseph14, updateJoseph15, updateJoseph16, updateJoseph17, updateJoseph18 } from './josephUpdate.generated.js';
 
 /** U, S, S⁻¹ (3x3, row-major in ws) for H = [0 … Hb … 0]. False when S is not positive definite. */
 export function innovationCovariance3(P: Float64Array, Hb: Float64Array, col: number, R: Float64Array, n: number, ws: UpdateWorkspace): boolean {
@@ -55,6 +55,9 @@ export function updateJoseph3(x: Float64Array, P: Float64Array, n: number, ws: U
   if (n === 15) return updateJoseph15(x, P, ws);
   if (n === 13) return updateJoseph13(x, P, ws);
   if (n === 16) return updateJoseph16(x, P, ws);
+  if (n === 14) return updateJoseph14(x, P, ws);
+  if (n === 17) return updateJoseph17(x, P, ws);
+  if (n === 18) return updateJoseph18(x, P, ws);
   return updateJoseph3Loops(x, P, n, ws);
 }
 

@@ -19,7 +19,7 @@
 // below (predictLanding.generated.ts: bit-identical, about 1.4x faster); the loops are the
 // reference and serve any other state size.
 import type { ProcessCoefficients } from './ProcessCoefficients.js';
-import { predictConstantVelocity, predictConstantVelocityDeckScale, predictSinger, predictSingerDeckScale } from './predictLanding.generated.js';
+import { predictConstantVelocity, predictConstantVelocityDeckScale, predictConstantVelocityPointing, predictConstantVelocityPointingDeckScale, predictSinger, predictSingerDeckScale, predictSingerPointing, predictSingerPointingDeckScale } from './predictLanding.generated.js';
 import { predictLandingState } from './predictLandingState.js';
 
 /** Returns false when x or P became non-finite (NaN or ±Infinity anywhere). */
@@ -28,6 +28,11 @@ export function predictLanding(x: Float64Array, P: Float64Array, n: number, f: A
   if (c.singer && n === 15) return predictSinger(x, P, f, Rwb, c);
   if (!c.singer && n === 13) return predictConstantVelocityDeckScale(x, P, f, Rwb, c);
   if (c.singer && n === 16) return predictSingerDeckScale(x, P, f, Rwb, c);
+  // with the two pointing states (and s)
+  if (!c.singer && n === 14) return predictConstantVelocityPointing(x, P, f, Rwb, c);
+  if (!c.singer && n === 15) return predictConstantVelocityPointingDeckScale(x, P, f, Rwb, c);
+  if (c.singer && n === 17) return predictSingerPointing(x, P, f, Rwb, c);
+  if (c.singer && n === 18) return predictSingerPointingDeckScale(x, P, f, Rwb, c);
   return predictLandingLoops(x, P, n, f, Rwb, c);
 }
 

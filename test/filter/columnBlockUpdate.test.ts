@@ -118,7 +118,7 @@ describe('block-structured updates agree with the dense textbook Joseph update (
 });
 
 describe('generated straight-line Joseph updates (josephUpdate.generated.ts)', () => {
-  for (const n of [12, 15, 13, 16]) {
+  for (const n of [12, 15, 13, 16, 14, 17, 18]) {
     it(`gives the loops x, P, K and K S to the last bit for n = ${n}, for updates on any column block`, () => {
       const stream = RandomStream.fromKey([13, n, streamId('generated joseph')]);
       for (let trial = 0; trial < 200; trial++) {

@@ -26,16 +26,21 @@ function randomSpd(n: number, stream: RandomStream): Float64Array {
 }
 
 const MODELS = [
-  { singer: false, deckScale: false },
-  { singer: true, deckScale: false },
-  { singer: false, deckScale: true },
-  { singer: true, deckScale: true },
+  { singer: false, deckScale: false, pointing: false },
+  { singer: true, deckScale: false, pointing: false },
+  { singer: false, deckScale: true, pointing: false },
+  { singer: true, deckScale: true, pointing: false },
+  // the two pointing-bias states (random constants before s)
+  { singer: false, deckScale: false, pointing: true },
+  { singer: true, deckScale: false, pointing: true },
+  { singer: false, deckScale: true, pointing: true },
+  { singer: true, deckScale: true, pointing: true },
 ];
 
-for (const { singer, deckScale } of MODELS) {
-  const n = landingStateDimension(singer, deckScale);
-  describe(`predictLanding (${singer ? 'Singer' : 'constant velocity'}, ${n} states${deckScale ? ' with the deck scale' : ''})`, () => {
-    const stream = RandomStream.fromKey(deckScale ? [99, singer ? 1 : 0, n, streamId('predict')] : [99, singer ? 1 : 0, streamId('predict')]);
+for (const { singer, deckScale, pointing } of MODELS) {
+  const n = landingStateDimension(singer, deckScale, pointing);
+  describe(`predictLanding (${singer ? 'Singer' : 'constant velocity'}, ${n} states${pointing ? ' with the pointing states' : ''}${deckScale ? ' with the deck scale' : ''})`, () => {
+    const stream = RandomStream.fromKey(deckScale || pointing ? [99, singer ? 1 : 0, n, streamId('predict')] : [99, singer ? 1 : 0, streamId('predict')]);
     const x0 = Float64Array.from({ length: n }, () => stream.gaussian());
     const P0 = randomSpd(n, stream);
     const dt = 0.01;
@@ -129,8 +134,8 @@ for (const { singer, deckScale } of MODELS) {
 }
 
 describe('generated straight-line predicts (predictLanding.generated.ts)', () => {
-  for (const { singer, deckScale } of MODELS) {
-    const n = landingStateDimension(singer, deckScale);
+  for (const { singer, deckScale, pointing } of MODELS) {
+    const n = landingStateDimension(singer, deckScale, pointing);
     it(`gives the loops' x and P to the last bit (${singer ? 'Singer' : 'constant velocity'}, n = ${n}), on random covariances, attitudes and step lengths`, () => {
       const stream = RandomStream.fromKey([7, n, streamId('generated-predict')]);
       for (let trial = 0; trial < 200; trial++) {

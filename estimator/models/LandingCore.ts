@@ -208,23 +208,14 @@ export class LandingCore {
     }
     if (!innovationCovariance3(this.P, Hb, col, R, this.n, ws)) {
       // R is positive definite (spec) or semi-definite (loose fix), so S fails only when P does.
-      const event = checkCovariance(this.x, this.P, this.n, this.check);
-      if (event) {
-        this.lastReason = event;
-        return 'diverged';
-      }
-      return this.fail('innovation-covariance-not-positive-definite');
+      return this.refuseS();
     }
     this.lastNis = normalizedInnovationSquared3(ws);
     if (useGate && this.lastNis > this.gate) {
       this.lastReason = 'outside-gate';
       return 'gated';
     }
-    if (!updateJoseph3(this.x, this.P, this.n, ws)) {
-      this.lastReason = this.nonFiniteEvent();
-      return 'diverged';
-    }
-    return 'accepted';
+    return this.joseph3(ws);
   }
 
   /** y and S of the last apply() that reached S: views of lastDim and lastDim² numbers. */
@@ -263,12 +254,7 @@ export class LandingCore {
       ? innovationCovarianceColumnBlocks(this.P, this.Houtline, 0, 6, this.extraIndex, this.extraCount, R, this.n, m, ws)
       : scaled ? innovationCovarianceColumnBlockAndColumn(this.P, this.Houtline, 0, 6, this.scaleIndex, R, this.n, m, ws) : innovationCovarianceColumnBlock(this.P, this.Houtline, 0, 6, R, this.n, m, ws);
     if (!ok) {
-      const event = checkCovariance(this.x, this.P, this.n, this.check);
-      if (event) {
-        this.lastReason = event;
-        return 'diverged';
-      }
-      return this.fail('innovation-covariance-not-positive-definite');
+      return this.refuseS();
     }
     this.lastNis = normalizedInnovationSquared(ws, m);
     if (useGate && this.lastNis > this.gateOutline) {
@@ -278,11 +264,7 @@ export class LandingCore {
     // with the deck-scale state a 3-D box takes the generated Joseph kernel (same U, S layout);
     // without it the loops stay, so a filter without the state is unchanged to the bit
     if ((scaled || this.pointing) && m === 3) {
-      if (!updateJoseph3(this.x, this.P, this.n, ws)) {
-        this.lastReason = this.nonFiniteEvent();
-        return 'diverged';
-      }
-      return 'accepted';
+      return this.joseph3(ws);
     }
     updateJosephColumnBlock(this.x, this.P, this.n, m, ws);
     if (!allFinite(this.state, this.state.length)) {
@@ -318,18 +300,28 @@ export class LandingCore {
     }
     const ws = this.ws;
     if (!innovationCovarianceColumnBlocks(this.P, H, 0, 3, this.extraIndex, this.extraCount, R, this.n, 3, ws)) {
-      const event = checkCovariance(this.x, this.P, this.n, this.check);
-      if (event) {
-        this.lastReason = event;
-        return 'diverged';
-      }
-      return this.fail('innovation-covariance-not-positive-definite');
+      return this.refuseS();
     }
     this.lastNis = normalizedInnovationSquared(ws, 3);
     if (useGate && this.lastNis > this.gate) {
       this.lastReason = 'outside-gate';
       return 'gated';
     }
+    return this.joseph3(ws);
+  }
+
+  /** S could not be formed: R is positive (semi-)definite, so P failed (a named divergence) or S is not positive definite. */
+  private refuseS(): UpdateStatus {
+    const event = checkCovariance(this.x, this.P, this.n, this.check);
+    if (event) {
+      this.lastReason = event;
+      return 'diverged';
+    }
+    return this.fail('innovation-covariance-not-positive-definite');
+  }
+
+  /** Joseph update of a 3-D measurement from workspace ws (the generated kernel). */
+  private joseph3(ws: UpdateWorkspace): UpdateStatus {
     if (!updateJoseph3(this.x, this.P, this.n, ws)) {
       this.lastReason = this.nonFiniteEvent();
       return 'diverged';
@@ -372,12 +364,7 @@ export class LandingCore {
   private updateWithScale(R: Float64Array, useGate: boolean): UpdateStatus {
     const ws = this.ws;
     if (!innovationCovarianceColumnBlockAndColumn(this.P, this.Hscale, 0, 3, this.scaleIndex, R, this.n, 3, ws)) {
-      const event = checkCovariance(this.x, this.P, this.n, this.check);
-      if (event) {
-        this.lastReason = event;
-        return 'diverged';
-      }
-      return this.fail('innovation-covariance-not-positive-definite');
+      return this.refuseS();
     }
     this.lastNis = normalizedInnovationSquared(ws, 3);
     if (useGate && this.lastNis > this.gate) {
@@ -385,11 +372,7 @@ export class LandingCore {
       return 'gated';
     }
     // U (n x 3) and S as updateJoseph3 reads them: its generated kernel for 13 and 16 states
-    if (!updateJoseph3(this.x, this.P, this.n, ws)) {
-      this.lastReason = this.nonFiniteEvent();
-      return 'diverged';
-    }
-    return 'accepted';
+    return this.joseph3(ws);
   }
 
   /**

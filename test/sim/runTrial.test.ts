@@ -1,34 +1,15 @@
-import { readdirSync } from 'node:fs';
-import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { loadScenario } from '../../estimator/io/loadScenario.js';
 import { setPath, setPaths } from '../../estimator/io/scenarioPath.js';
 import { PHASES } from '../../estimator/sim/TrialResult.js';
-import type { Scenario } from '../../estimator/sim/Scenario.js';
 import { blindHeight, runTrial, type TraceRow } from '../../estimator/sim/runTrial.js';
 import type { TrialRecorder } from '../../estimator/io/log/TrialRecorder.js';
 import { expectClose } from '../helpers/expectClose.js';
+import { demoNames, loadDemo, sensingPerfect } from './demoTrials.js';
 
-const DEMO = join(import.meta.dirname, '..', '..', 'data-demo');
-const demoNames = readdirSync(DEMO).filter((f) => f.endsWith('.scenario.json')).sort();
-const demo = (name: string) => loadScenario(join(DEMO, name));
-
-/** Perfect sensing: no detector noise, loss, latency or false boxes, no localization error. */
-function perfectSensing(s: Scenario): Scenario {
-  return setPaths(s, {
-    'detector.pixelNoise': 0, 'detector.sizeNoise': 0, 'detector.latency': 0, 'detector.latencyJitter': 0,
-    'detector.dropout': 0, 'detector.burst': null, 'detector.falseBoxRate': 0,
-    'localization.attitudeBiasDeg': 0, 'localization.attitudeNoiseDeg': 0, 'localization.odometryBias': 0,
-    'localization.odometryNoise': 0, 'localization.odometryDrift': 0, 'localization.accelNoise': 0,
-    'localization.accelBias': 0, 'localization.misalignmentDeg': 0, 'localization.focalError': 0,
-    'localization.targetSizeError': 0, 'localization.clockOffset': 0,
-    'localization.gyroBiasDegPerSec': 0, 'localization.gyroNoiseDegPerSqrtSec': 0,
-  });
-}
 
 describe('runTrial', () => {
   it('is deterministic in (seed, point, trial) and different across trials', () => {
-    const s = demo('survey-rover.scenario.json');
+    const s = loadDemo('survey-rover.scenario.json');
     const key = { seed: 5, point: 2, trial: 3 };
     const a = runTrial(s, { key });
     expect(runTrial(s, { key })).toEqual(a);
@@ -39,7 +20,7 @@ describe('runTrial', () => {
   });
 
   it.each(demoNames)('lands %s with perfect sensing for several seeds', (name) => {
-    const s = perfectSensing(demo(name));
+    const s = sensingPerfect(loadDemo(name));
     for (const seed of [1, 2, 3]) {
       const r = runTrial(s, { key: { seed, point: 0, trial: 0 } });
       expect(r.outcome, `seed ${seed}: miss ${r.missDistance}, closing ${r.closingSpeed}, lateral ${r.lateralSpeed}, tilt ${r.tiltDeg}`).toBe('landed');
@@ -48,8 +29,8 @@ describe('runTrial', () => {
   });
 
   it('fills every result field consistently', () => {
-    const s = demo('delivery-van.scenario.json');
-    const r = runTrial(perfectSensing(s), { key: { seed: 1, point: 0, trial: 0 } });
+    const s = loadDemo('delivery-van.scenario.json');
+    const r = runTrial(sensingPerfect(s), { key: { seed: 1, point: 0, trial: 0 } });
     expect(r.outcome).toBe('landed');
     expectClose(Math.hypot(r.missX!, r.missY!), r.missDistance!, { rel: 1e-12 }, 'miss = hypot(missX, missY) (round-off)');
     const total = PHASES.reduce((sum, p) => sum + r.phaseTimes[p], 0);
@@ -70,8 +51,8 @@ describe('runTrial', () => {
   });
 
   it('counts dropped and false boxes and degrades the estimate under heavy impairment', () => {
-    const s = demo('survey-rover.scenario.json');
-    const clean = runTrial(perfectSensing(s), { key: { seed: 2, point: 0, trial: 0 } });
+    const s = loadDemo('survey-rover.scenario.json');
+    const clean = runTrial(sensingPerfect(s), { key: { seed: 2, point: 0, trial: 0 } });
     const noisy = runTrial(setPaths(s, { 'detector.dropout': 0.3, 'detector.falseBoxRate': 2, 'detector.pixelNoise': 4 }), { key: { seed: 2, point: 0, trial: 0 } });
     expect(noisy.dropped).toBeGreaterThan(0.15 * (noisy.boxes + noisy.dropped));
     expect(noisy.falseBoxes).toBeGreaterThan(0);
@@ -79,7 +60,7 @@ describe('runTrial', () => {
   });
 
   it('times out when the carrier is never in view; a latency beyond filter.historyLength still uses every box', () => {
-    const s = setPaths(demo('survey-rover.scenario.json'), { 'lander.startOffset': [30, 30, 6], duration: 20 });
+    const s = setPaths(loadDemo('survey-rover.scenario.json'), { 'lander.startOffset': [30, 30, 6], duration: 20 });
     const r = runTrial(s, { key: { seed: 1, point: 0, trial: 0 } });
     expect(r.outcome).toBe('timed-out');
     expect(r.touchdownTime).toBeNull();
@@ -88,7 +69,7 @@ describe('runTrial', () => {
     expect(r.boxes).toBe(0);
     // latency beyond the configured 0.3 s history: the trial's history rises to fit (historyFor),
     // where it used to start nothing and time out
-    const late = setPaths(demo('survey-rover.scenario.json'), { 'detector.latency': 0.8, 'detector.latencyJitter': 0, duration: 40 });
+    const late = setPaths(loadDemo('survey-rover.scenario.json'), { 'detector.latency': 0.8, 'detector.latencyJitter': 0, duration: 40 });
     const stale = runTrial(late, { key: { seed: 1, point: 0, trial: 0 } });
     expect(stale.outcome).toBe('landed');
     expect(stale.nisCount).toBeGreaterThan(100);
@@ -96,7 +77,7 @@ describe('runTrial', () => {
 
   it('aborts and re-acquires when the target leaves the image for longer than lostTimeout', () => {
     // a long bursty outage: Gilbert-Elliott with rare entry and slow exit (mean burst 100 frames)
-    const s = setPaths(demo('survey-rover.scenario.json'), { 'detector.burst': { enter: 0.01, exit: 0.01 } });
+    const s = setPaths(loadDemo('survey-rover.scenario.json'), { 'detector.burst': { enter: 0.01, exit: 0.01 } });
     const results = [1, 2, 3, 4, 5, 6].map((trial) => runTrial(s, { key: { seed: 3, point: 0, trial } }));
     expect(results.some((r) => r.aborts > 0)).toBe(true);
     // a re-start from a false box in the outage, never refuted, ends as a silent divergence
@@ -104,7 +85,7 @@ describe('runTrial', () => {
   });
 
   it('reports each step to onStep and every filter input to the recorder, in time order', () => {
-    const s = setPath(demo('harbour-boat.scenario.json'), 'duration', 3);
+    const s = setPath(loadDemo('harbour-boat.scenario.json'), 'duration', 3);
     const rows: TraceRow[] = [];
     const calls: Record<string, number[]> = { imu: [], attitude: [], odometry: [], box: [], truth: [], estimate: [] };
     const recorder: TrialRecorder = {
@@ -156,7 +137,7 @@ describe('runTrial', () => {
   // Heavier box-centre noise must not help: success counts fall and the miss grows
   // (monotone trend over 30 seeded trials per level, not single runs).
   it('degrades monotonically with detector pixel noise over 30 trials per level', () => {
-    const base = demo('survey-rover.scenario.json');
+    const base = loadDemo('survey-rover.scenario.json');
     const levels = [0.5, 8, 30].map((pixelNoise) => {
       const s = setPath(base, 'detector.pixelNoise', pixelNoise);
       let landed = 0;
